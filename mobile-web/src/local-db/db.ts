@@ -1,0 +1,65 @@
+import Dexie, { type EntityTable } from 'dexie';
+import type {
+  CatalogueItemRecord,
+  ControlCheckRecord,
+  FindingRecord,
+  InspectionRecord,
+  MetaEntry,
+  OutboxEntry,
+  PhotoRecord,
+  ScaffoldRecord,
+  SiteRecord,
+} from './records';
+
+export const DB_NAME = 'plummet';
+
+/**
+ * The phone's database. The UI reads from here (works with no signal); src/sync/ alone moves
+ * records to and from the server through the outbox.
+ *
+ * SCHEMA VERSIONS ARE APPEND-ONLY. Once a version has shipped, never edit it: add
+ * `this.version(n + 1).stores({ ...changed tables only }).upgrade(tx => ...)` below the last one.
+ * Phones in the field still hold data written under every earlier version.
+ */
+export class PlummetDb extends Dexie {
+  sites!: EntityTable<SiteRecord, 'id'>;
+  scaffolds!: EntityTable<ScaffoldRecord, 'id'>;
+  inspections!: EntityTable<InspectionRecord, 'id'>;
+  findings!: EntityTable<FindingRecord, 'id'>;
+  controlChecks!: EntityTable<ControlCheckRecord, 'id'>;
+  photos!: EntityTable<PhotoRecord, 'id'>;
+  catalogue!: EntityTable<CatalogueItemRecord, 'id'>;
+  outbox!: EntityTable<OutboxEntry, 'id'>;
+  meta!: EntityTable<MetaEntry, 'key'>;
+
+  constructor(name: string = DB_NAME) {
+    super(name);
+
+    // Version 1 (first release). Only indexed fields are listed; records hold more.
+    this.version(1).stores({
+      sites: 'id, organisationId, updatedAt',
+      scaffolds: 'id, siteId, updatedAt',
+      inspections: 'id, scaffoldId, siteId, status, startedAt, updatedAt',
+      findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state]',
+      controlChecks: 'id, inspectionId, [inspectionId+control]',
+      photos: 'id, [ownerType+ownerId], uploadedAt',
+      catalogue: 'id, category, *words',
+      outbox: '++id, [entity+entityId], createdAt',
+      meta: 'key',
+    });
+  }
+}
+
+/** The app's one database instance; Dexie opens it on first use. */
+export const db = new PlummetDb();
+
+/** Reads a key-value setting (e.g. units, last sync time) from the meta table. */
+export async function readMeta<T>(database: PlummetDb, key: string): Promise<T | undefined> {
+  const entry = await database.meta.get(key);
+  return entry?.value as T | undefined;
+}
+
+/** Writes a key-value setting to the meta table. */
+export async function writeMeta<T>(database: PlummetDb, key: string, value: T): Promise<void> {
+  await database.meta.put({ key, value });
+}

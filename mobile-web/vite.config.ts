@@ -1,0 +1,98 @@
+import react from '@vitejs/plugin-react';
+import { defineConfig, defaultClientConditions, type Plugin } from 'vite';
+import { VitePWA } from 'vite-plugin-pwa';
+import { initialJsSize } from './scripts/initial-js-size';
+
+const apiTarget = process.env.PLUMMET_API_URL ?? 'http://127.0.0.1:3000';
+const apiProxy = { '/api': { target: apiTarget, changeOrigin: true } };
+
+/**
+ * @ionic/core has no "sideEffects" flag, so every component it ships ends up in the bundle.
+ * Its per-component files only define a custom element when their defineCustomElement is
+ * called, so we tell the bundler they are side-effect free (TOOLCHAIN pitfall 8). An overlay
+ * created by tag name alone (e.g. toastController without useIonToast) must therefore call that
+ * component's defineCustomElement itself.
+ */
+const ionicComponentsHaveNoSideEffects = /[\\/]@ionic[\\/]core[\\/]components[\\/]ion-[^\\/]+\.js$/;
+
+/**
+ * Fontsource's CSS lists a .woff fallback after each .woff2; every browser we support reads
+ * woff2, so drop the fallback and keep the build (and the precache) to the files that are used.
+ */
+function woff2Only(): Plugin {
+  return {
+    name: 'plummet:woff2-only',
+    enforce: 'pre',
+    transform: {
+      filter: { id: /@fontsource[\\/].*\.css$/ },
+      handler(code) {
+        return { code: code.replace(/,\s*url\([^)]*\.woff\)\s*format\(['"]woff['"]\)/g, ''), map: null };
+      },
+    },
+  };
+}
+
+export default defineConfig({
+  resolve: {
+    // @plummet/shared exports its TypeScript source under this condition; Vite's defaults stay.
+    conditions: ['plummet-source', ...defaultClientConditions],
+  },
+  server: { host: '127.0.0.1', port: 5173, proxy: apiProxy },
+  preview: { host: '127.0.0.1', port: 4173, proxy: apiProxy },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    target: 'es2022',
+    sourcemap: true,
+    rolldownOptions: {
+      treeshake: {
+        moduleSideEffects: [{ test: ionicComponentsHaveNoSideEffects, sideEffects: false }],
+      },
+    },
+  },
+  plugins: [
+    woff2Only(),
+    react(),
+    VitePWA({
+      strategies: 'generateSW',
+      registerType: 'prompt',
+      // src/app/ReloadPrompt.tsx registers the worker with useRegisterSW; inject nothing else.
+      injectRegister: null,
+      includeAssets: ['favicon.svg', 'icons/apple-touch-icon.png'],
+      manifest: {
+        id: '/',
+        name: 'Plummet',
+        short_name: 'Plummet',
+        description: 'Falling-object inspections of scaffolds, with drop estimates that work offline.',
+        lang: 'en-GB',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        theme_color: '#4a1d6b',
+        background_color: '#fbf9f6',
+        categories: ['business', 'productivity', 'utilities'],
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+          { src: '/icons/maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
+          { src: '/icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+          { src: '/icons/plummet.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+        ],
+      },
+      workbox: {
+        // The app shell: code, styles, the page, icons and the Open Sans woff2 files.
+        globPatterns: ['**/*.{js,css,html,svg,png,woff2}'],
+        globIgnores: ['**/*.map'],
+        navigateFallback: 'index.html',
+        navigateFallbackDenylist: [/^\/api\//],
+        cleanupOutdatedCaches: true,
+        // Take control on the first install so the app works offline from the first visit;
+        // later versions wait until the user taps Reload (registerType 'prompt', no skipWaiting).
+        clientsClaim: true,
+      },
+      devOptions: { enabled: false },
+    }),
+    initialJsSize({ budgetKiB: 200 }),
+  ],
+});

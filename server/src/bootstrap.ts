@@ -1,0 +1,61 @@
+import 'reflect-metadata';
+import { NestFactory } from '@nestjs/core';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import type { Express, NextFunction, Request, Response } from 'express';
+import helmet from 'helmet';
+import { Logger } from 'nestjs-pino';
+import { cleanupOpenApiDoc } from 'nestjs-zod';
+import { AppModule } from './app.module.js';
+import { toErrorBody } from './common/error-body.js';
+import { type AppConfig, loadConfig } from './config/config.js';
+import { mountWebApp } from './web/static-web.js';
+
+/** Builds the whole HTTP application (API, docs, PWA) without listening. */
+export async function createApp(config: AppConfig = loadConfig()): Promise<NestExpressApplication> {
+  const app = await NestFactory.create<NestExpressApplication>(AppModule, { bufferLogs: true, bodyParser: false });
+  app.useLogger(app.get(Logger));
+  app.enableShutdownHooks();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'worker-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  app.useBodyParser('json', { limit: config.MAX_JSON_BODY });
+  app.setGlobalPrefix('api');
+
+  const openApi = new DocumentBuilder()
+    .setTitle('Plummet API')
+    .setDescription('Scaffold falling-object inspections: sites, scaffolds, inspections, findings, photos, sync.')
+    .setVersion('0.1.0')
+    .addBearerAuth()
+    .build();
+  SwaggerModule.setup('api/docs', app, () => cleanupOpenApiDoc(SwaggerModule.createDocument(app, openApi)), {
+    jsonDocumentUrl: 'api/docs/openapi.json',
+  });
+
+  const express = app.getHttpAdapter().getInstance() as Express;
+  mountWebApp(express, config.WEB_DIST);
+  // Body-parser errors (bad JSON, too large) happen before Nest's filter can see them.
+  await app.init();
+  express.use('/api', (_req: Request, res: Response) => {
+    res.status(404).json({ code: 'NOT_FOUND', message: 'No such API route' });
+  });
+  express.use((error: unknown, _req: Request, res: Response, next: NextFunction) => {
+    if (res.headersSent) return next(error);
+    const { status, body } = toErrorBody(error);
+    res.status(status).json(body);
+  });
+  return app;
+}

@@ -1,0 +1,58 @@
+/** Error codes the client branches on. Add here; never reuse a code for another meaning. */
+export enum ErrorCode {
+  ValidationFailed = 'VALIDATION_FAILED',
+  InvalidJson = 'INVALID_JSON',
+  PayloadTooLarge = 'PAYLOAD_TOO_LARGE',
+  Unauthenticated = 'UNAUTHENTICATED',
+  Forbidden = 'FORBIDDEN',
+  NotFound = 'NOT_FOUND',
+  Conflict = 'CONFLICT',
+  RateLimited = 'RATE_LIMITED',
+  UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
+  ServiceUnavailable = 'SERVICE_UNAVAILABLE',
+  Internal = 'INTERNAL',
+}
+
+const STATUS: Record<ErrorCode, number> = {
+  [ErrorCode.ValidationFailed]: 400,
+  [ErrorCode.InvalidJson]: 400,
+  [ErrorCode.PayloadTooLarge]: 413,
+  [ErrorCode.Unauthenticated]: 401,
+  [ErrorCode.Forbidden]: 403,
+  [ErrorCode.NotFound]: 404,
+  [ErrorCode.Conflict]: 409,
+  [ErrorCode.RateLimited]: 429,
+  [ErrorCode.UnsupportedMediaType]: 415,
+  [ErrorCode.ServiceUnavailable]: 503,
+  [ErrorCode.Internal]: 500,
+};
+
+export interface ErrorIssue {
+  path: (string | number)[];
+  code: string;
+  message: string;
+}
+
+/** The one error type services throw; the global filter turns it into `{ code, message, issues? }`. */
+export class AppError extends Error {
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues?: ErrorIssue[],
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+
+  get status(): number {
+    return STATUS[this.code];
+  }
+
+  static notFound(what: string): AppError {
+    return new AppError(ErrorCode.NotFound, `${what} not found`);
+  }
+}
+
+export function statusForCode(code: ErrorCode): number {
+  return STATUS[code];
+}

@@ -1,0 +1,33 @@
+import { existsSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { drizzle } from 'drizzle-orm/node-postgres';
+import { migrate } from 'drizzle-orm/node-postgres/migrator';
+import type pg from 'pg';
+
+/** Arbitrary constant: serialises migrations when several replicas start at once. */
+const MIGRATION_LOCK_KEY = 7_243_118_001;
+
+export function defaultMigrationsDir(): string {
+  const here = dirname(fileURLToPath(import.meta.url));
+  // src/db or dist/db → repo root → drizzle/migrations
+  return resolve(here, '../../../drizzle/migrations');
+}
+
+/** Applies the committed drizzle-kit migrations under an advisory lock. */
+export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultMigrationsDir()): Promise<void> {
+  if (!existsSync(resolve(migrationsFolder, 'meta/_journal.json'))) {
+    throw new Error(`No migrations found in ${migrationsFolder}`);
+  }
+  const client = await pool.connect();
+  try {
+    await client.query('SELECT pg_advisory_lock($1)', [MIGRATION_LOCK_KEY]);
+    try {
+      await migrate(drizzle(client), { migrationsFolder });
+    } finally {
+      await client.query('SELECT pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY]);
+    }
+  } finally {
+    client.release();
+  }
+}

@@ -1,0 +1,2 @@
+export * from './organisations.table.js';
+export * from './users.table.js';

@@ -1,0 +1,31 @@
+import { boolean, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { organisations } from './organisations.table.js';
+
+export const roleEnum = pgEnum('role', ['inspector', 'foreman', 'manager', 'admin']);
+
+export const users = pgTable('users', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  /** Stored lower-cased; unique across the service. */
+  email: text('email').notNull().unique(),
+  name: text('name').notNull(),
+  position: text('position').notNull().default(''),
+  passwordHash: text('password_hash'),
+  active: boolean('active').notNull().default(true),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** A user's role in one organisation. */
+export const memberships = pgTable(
+  'memberships',
+  {
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    organisationId: uuid('organisation_id')
+      .notNull()
+      .references(() => organisations.id, { onDelete: 'cascade' }),
+    role: roleEnum('role').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.organisationId] })],
+);

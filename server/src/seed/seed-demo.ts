@@ -1,0 +1,36 @@
+import argon2 from 'argon2';
+import { sql } from 'drizzle-orm';
+import type { Db } from '../db/db.tokens.js';
+import { memberships, organisations, users } from '../db/schema/index.js';
+import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_USERS } from './demo-data.js';
+
+/** Idempotent: running it again leaves one copy of everything and keeps other data. */
+export async function seedDemo(db: Db): Promise<{ users: number }> {
+  if (process.env.NODE_ENV === 'production') {
+    throw new Error('Refusing to seed demo data with NODE_ENV=production.');
+  }
+  const passwordHash = await argon2.hash(DEMO_PASSWORD);
+  await db.transaction(async (tx) => {
+    const orgIds = new Map<string, string>();
+    for (const org of DEMO_ORGANISATIONS) {
+      const [row] = await tx
+        .insert(organisations)
+        .values(org)
+        .onConflictDoUpdate({ target: organisations.slug, set: { name: sql`excluded.name` } })
+        .returning({ id: organisations.id });
+      orgIds.set(org.slug, row.id);
+    }
+    for (const u of DEMO_USERS) {
+      const [row] = await tx
+        .insert(users)
+        .values({ email: u.email, name: u.name, position: u.position, passwordHash })
+        .onConflictDoUpdate({ target: users.email, set: { name: u.name, position: u.position, active: true } })
+        .returning({ id: users.id });
+      await tx
+        .insert(memberships)
+        .values({ userId: row.id, organisationId: orgIds.get(u.org)!, role: u.role })
+        .onConflictDoUpdate({ target: [memberships.userId, memberships.organisationId], set: { role: u.role } });
+    }
+  });
+  return { users: DEMO_USERS.length };
+}

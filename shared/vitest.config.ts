@@ -1,0 +1,7 @@
+import { defineProject } from 'vitest/config';
+
+export default defineProject({
+  test: { name: 'shared', include: ['src/**/*.test.ts'], environment: 'node' },
+  ssr: { resolve: { conditions: ['plummet-source'] } },
+  resolve: { conditions: ['plummet-source'] },
+});
