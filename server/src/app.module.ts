@@ -1,34 +1,37 @@
-import { Module } from '@nestjs/common';
+import { type DynamicModule, Module } from '@nestjs/common';
 import { APP_FILTER, APP_PIPE } from '@nestjs/core';
 import { LoggerModule } from 'nestjs-pino';
 import { ZodValidationPipe } from 'nestjs-zod';
 import { AllExceptionsFilter } from './common/all-exceptions.filter.js';
 import { ConfigModule } from './config/config.module.js';
-import { loadConfig } from './config/config.js';
+import type { AppConfig } from './config/config.js';
 import { DbModule } from './db/db.module.js';
 import { HealthModule } from './health/health.module.js';
 
-@Module({
-  imports: [
-    ConfigModule,
-    LoggerModule.forRootAsync({
-      useFactory: () => {
-        const config = loadConfig();
-        return {
+/** Feature modules are listed here once each. */
+const FEATURES = [HealthModule];
+
+@Module({})
+export class AppModule {
+  static forRoot(config: AppConfig): DynamicModule {
+    return {
+      module: AppModule,
+      imports: [
+        ConfigModule.forRoot(config),
+        LoggerModule.forRoot({
           pinoHttp: {
             level: config.LOG_LEVEL,
             redact: ['req.headers.authorization', 'req.headers.cookie'],
             autoLogging: { ignore: (req) => req.url === '/api/health' },
           },
-        };
-      },
-    }),
-    DbModule,
-    HealthModule,
-  ],
-  providers: [
-    { provide: APP_PIPE, useClass: ZodValidationPipe },
-    { provide: APP_FILTER, useClass: AllExceptionsFilter },
-  ],
-})
-export class AppModule {}
+        }),
+        DbModule,
+        ...FEATURES,
+      ],
+      providers: [
+        { provide: APP_PIPE, useClass: ZodValidationPipe },
+        { provide: APP_FILTER, useClass: AllExceptionsFilter },
+      ],
+    };
+  }
+}

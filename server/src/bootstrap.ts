@@ -13,7 +13,7 @@ import { mountWebApp } from './web/static-web.js';
 
 /** Builds the whole HTTP application (API, docs, PWA) without listening. */
 export async function createApp(config: AppConfig = loadConfig()): Promise<NestExpressApplication> {
-  const app = await NestFactory.create<NestExpressApplication>(AppModule, { bufferLogs: true, bodyParser: false });
+  const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), { bufferLogs: true, bodyParser: false });
   app.useLogger(app.get(Logger));
   app.enableShutdownHooks();
   app.set('trust proxy', 'loopback');
@@ -47,11 +47,11 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
 
   const express = app.getHttpAdapter().getInstance() as Express;
   mountWebApp(express, config.WEB_DIST);
-  // Body-parser errors (bad JSON, too large) happen before Nest's filter can see them.
   await app.init();
   express.use('/api', (_req: Request, res: Response) => {
     res.status(404).json({ code: 'NOT_FOUND', message: 'No such API route' });
   });
+  // Errors from plain Express middleware (static files) get the same body as the API's.
   express.use((error: unknown, _req: Request, res: Response, next: NextFunction) => {
     if (res.headersSent) return next(error);
     const { status, body } = toErrorBody(error);

@@ -13,8 +13,7 @@ export interface TestApp {
 /** The whole server on a random loopback port against its own fresh database. */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const db = await createTestDatabase();
-  Object.assign(process.env, { DATABASE_URL: db.url, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn', ...env });
-  const config = loadConfig({ ...process.env, DATABASE_URL: db.url, PORT: '0', ...env });
+  const config = loadConfig({ ...process.env, DATABASE_URL: db.url, PORT: '0', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn', ...env });
   const app = await createApp(config);
   await app.listen(0, '127.0.0.1');
   const address = app.getHttpServer().address() as { port: number };

@@ -40,6 +40,10 @@ interface LowLevelError {
 
 /** Maps anything thrown to a status and the public error body. Never includes a stack. */
 export function toErrorBody(error: unknown): { status: number; body: ErrorBody } {
+  // The Express adapter wraps body-parser errors in an HttpException; answer from the original.
+  if (error instanceof HttpException && (error.cause as LowLevelError | undefined)?.type) {
+    return toErrorBody(error.cause);
+  }
   if (error instanceof AppError) {
     return { status: error.status, body: { code: error.code, message: error.message, issues: error.issues } };
   }

@@ -1,9 +1,11 @@
-import { Global, Module } from '@nestjs/common';
-import { APP_CONFIG, loadConfig } from './config.js';
+import { type DynamicModule, Global, Module } from '@nestjs/common';
+import { APP_CONFIG, type AppConfig } from './config.js';
 
 @Global()
-@Module({
-  providers: [{ provide: APP_CONFIG, useFactory: () => loadConfig() }],
-  exports: [APP_CONFIG],
-})
-export class ConfigModule {}
+@Module({})
+export class ConfigModule {
+  /** The configuration is parsed once by the caller (main or a test) and shared as a value. */
+  static forRoot(config: AppConfig): DynamicModule {
+    return { module: ConfigModule, providers: [{ provide: APP_CONFIG, useValue: config }], exports: [APP_CONFIG] };
+  }
+}

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../../test/test-app.js';
+import { json } from '../../test/http.js';
 
 describe('GET /api/health against the real PostgreSQL', () => {
   let t: TestApp;
@@ -13,7 +14,7 @@ describe('GET /api/health against the real PostgreSQL', () => {
   it('answers 200 with status ok and db ok while PostgreSQL answers', async () => {
     const res = await fetch(`${t.baseUrl}/api/health`);
     expect(res.status).toBe(200);
-    expect(await res.json()).toEqual({ status: 'ok', db: 'ok' });
+    expect(await json(res)).toEqual({ status: 'ok', db: 'ok' });
   });
 
   it('sends security headers', async () => {
@@ -26,7 +27,7 @@ describe('GET /api/health against the real PostgreSQL', () => {
   it('answers an unknown API route with a 404 error body and no stack', async () => {
     const res = await fetch(`${t.baseUrl}/api/no-such-route`);
     expect(res.status).toBe(404);
-    const body = await res.json();
+    const body = await json(res);
     expect(body.code).toBe('NOT_FOUND');
     expect(JSON.stringify(body)).not.toMatch(/at .*\.js/);
   });
@@ -38,13 +39,13 @@ describe('GET /api/health against the real PostgreSQL', () => {
       body: '{"broken":',
     });
     expect(res.status).toBe(400);
-    expect((await res.json()).code).toBe('INVALID_JSON');
+    expect((await json(res)).code).toBe('INVALID_JSON');
   });
 
   it('publishes the OpenAPI document', async () => {
     const res = await fetch(`${t.baseUrl}/api/docs/openapi.json`);
     expect(res.status).toBe(200);
-    const doc = await res.json();
+    const doc = await json(res);
     expect(doc.info.title).toBe('Plummet API');
     expect(Object.keys(doc.paths)).toContain('/api/health');
   });
@@ -59,7 +60,7 @@ describe('GET /api/health against the real PostgreSQL', () => {
     try {
       const res = await fetch(`${t.baseUrl}/api/health`);
       expect(res.status).toBe(503);
-      expect(await res.json()).toEqual({ status: 'error', db: 'unavailable' });
+      expect(await json(res)).toEqual({ status: 'error', db: 'unavailable' });
     } finally {
       await admin.query(`ALTER DATABASE "${t.db.name}" WITH ALLOW_CONNECTIONS true`);
       await admin.end();

@@ -1,0 +1,64 @@
+import { IonButton } from '@ionic/react';
+import { useEffect } from 'react';
+import { useRegisterSW } from 'virtual:pwa-register/react';
+import './ReloadPrompt.css';
+
+/** How often an open app asks the server whether a new version has been deployed. */
+const UPDATE_CHECK_INTERVAL_MS = 60 * 60 * 1000;
+
+/**
+ * Registers the service worker (vite-plugin-pwa, injectRegister: null) and tells the user when
+ * a new version is waiting. The waiting worker only takes over when they tap Reload, so a form
+ * in progress is never swapped out under them.
+ */
+export function ReloadPrompt() {
+  const {
+    needRefresh: [needRefresh, setNeedRefresh],
+    offlineReady: [offlineReady, setOfflineReady],
+    updateServiceWorker,
+  } = useRegisterSW({
+    immediate: true,
+    onRegisteredSW(_swUrl, registration) {
+      if (!registration) return;
+      setInterval(() => {
+        if (navigator.onLine && !registration.installing) registration.update().catch(() => undefined);
+      }, UPDATE_CHECK_INTERVAL_MS);
+    },
+    onRegisterError(error: unknown) {
+      console.error('[plummet] service worker registration failed', error);
+    },
+  });
+
+  useEffect(() => {
+    if (!offlineReady) return;
+    const timer = setTimeout(() => setOfflineReady(false), 8000);
+    return () => clearTimeout(timer);
+  }, [offlineReady, setOfflineReady]);
+
+  if (needRefresh) {
+    return (
+      <div className="reload-prompt" role="alert" data-testid="reload-prompt">
+        <span className="reload-prompt__text">A new version of Plummet is ready</span>
+        <IonButton fill="clear" className="reload-prompt__later" onClick={() => setNeedRefresh(false)}>
+          Later
+        </IonButton>
+        <IonButton color="secondary" onClick={() => void updateServiceWorker(true)} data-testid="reload-prompt-reload">
+          Reload
+        </IonButton>
+      </div>
+    );
+  }
+
+  if (offlineReady) {
+    return (
+      <div className="reload-prompt" role="status" data-testid="offline-ready">
+        <span className="reload-prompt__text">Plummet is ready to work offline</span>
+        <IonButton fill="clear" className="reload-prompt__later" onClick={() => setOfflineReady(false)}>
+          OK
+        </IonButton>
+      </div>
+    );
+  }
+
+  return null;
+}

@@ -1,0 +1,15 @@
+import { IonIcon } from '@ionic/react';
+import { CAUTION_TEXT } from '@plummet/shared';
+import { warningOutline } from 'ionicons/icons';
+
+/** The safety caution every estimate screen carries (BRIEF, "Safety stance"). */
+export function CautionNote() {
+  return (
+    <aside className="plummet-caution" aria-label="Caution">
+      <IonIcon icon={warningOutline} aria-hidden="true" />
+      <p data-testid="caution" style={{ margin: 0 }}>
+        {CAUTION_TEXT}
+      </p>
+    </aside>
+  );
+}

@@ -1,0 +1,25 @@
+import { ApiError, apiFetch } from '../../api/http';
+
+export interface SignInCredentials {
+  email: string;
+  password: string;
+}
+
+/**
+ * Posts the credentials to the server. The response shape (tokens, user) arrives with the
+ * server-core issue and will be parsed with its schema from @plummet/shared.
+ */
+export function signIn(credentials: SignInCredentials, fetchImpl?: typeof fetch): Promise<unknown> {
+  return apiFetch<unknown>('/auth/sign-in', { method: 'POST', body: credentials }, fetchImpl);
+}
+
+/** A sentence for the sign-in form, for any failure of signIn. */
+export function describeSignInError(error: unknown): string {
+  if (!(error instanceof ApiError)) return 'Sign-in failed. Please try again.';
+  if (error.isOffline) return 'You are offline. Signing in needs a connection; try again when you have signal.';
+  if (error.status === 404) return 'Sign-in is not available on this server yet.';
+  if (error.status === 401) return 'That email and password do not match an account.';
+  if (error.status === 429) return 'Too many attempts. Wait a minute, then try again.';
+  if (error.status >= 500) return 'The Plummet server could not sign you in just now. Try again shortly.';
+  return error.message;
+}
