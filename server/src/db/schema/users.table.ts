@@ -1,6 +1,8 @@
 import { boolean, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { organisations } from './organisations.table.js';
 
+export const unitsEnum = pgEnum('units', ['si', 'imperial']);
+
 export const roleEnum = pgEnum('role', ['inspector', 'foreman', 'manager', 'admin']);
 
 export const users = pgTable('users', {
@@ -11,6 +13,8 @@ export const users = pgTable('users', {
   position: text('position').notNull().default(''),
   passwordHash: text('password_hash'),
   active: boolean('active').notNull().default(true),
+  /** Display units chosen by the user; values are always stored in SI. */
+  units: unitsEnum('units').notNull().default('si'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -1,0 +1,96 @@
+import { bigserial, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { createdAt, updatedAt, version } from './columns.js';
+import { catalogueItems } from './catalogue.table.js';
+import { inspections } from './inspections.table.js';
+import { organisations } from './organisations.table.js';
+import { scaffolds } from './sites.table.js';
+import { users } from './users.table.js';
+
+export const findingStateEnum = pgEnum('finding_state', ['open', 'made-safe', 'fixed', 'verified']);
+export const exposureEnum = pgEnum('exposure', ['public', 'hard-hats', 'zone-closed']);
+export const riskBandEnum = pgEnum('risk_band', ['Low', 'Medium', 'High']);
+
+/**
+ * One unsecured item or failed control. The estimate columns are always computed on the server
+ * with the shared physics from the item fields; a client's figure is never stored.
+ */
+export const findings = pgTable(
+  'findings',
+  {
+    id: uuid('id').primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    inspectionId: uuid('inspection_id').references(() => inspections.id, { onDelete: 'set null' }),
+    scaffoldId: uuid('scaffold_id').notNull().references(() => scaffolds.id, { onDelete: 'cascade' }),
+    elevation: text('elevation').notNull(),
+    lift: integer('lift').notNull(),
+    bay: integer('bay').notNull(),
+    heightM: real('height_m').notNull(),
+    catalogueItemId: uuid('catalogue_item_id').references(() => catalogueItems.id, { onDelete: 'set null' }),
+    itemName: text('item_name').notNull(),
+    massKg: real('mass_kg').notNull(),
+    /** ShapeSpec from the shared physics (kind, dimensions in metres, orientation). */
+    shape: jsonb('shape'),
+    exposure: exposureEnum('exposure').notNull(),
+    likelihoodAnswers: jsonb('likelihood_answers').notNull(),
+    likelihood: integer('likelihood').notNull(),
+    /** The server-computed drop estimate (SI units). */
+    estimate: jsonb('estimate').notNull(),
+    severity: integer('severity').notNull(),
+    riskScore: integer('risk_score').notNull(),
+    riskBand: riskBandEnum('risk_band').notNull(),
+    state: findingStateEnum('state').notNull().default('open'),
+    assigneeId: uuid('assignee_id').references(() => users.id, { onDelete: 'set null' }),
+    dueAt: timestamp('due_at', { withTimezone: true }),
+    notes: text('notes').notNull().default(''),
+    madeSafeNote: text('made_safe_note'),
+    createdBy: uuid('created_by').notNull().references(() => users.id),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    version: version(),
+  },
+  (t) => [
+    index('findings_org_scaffold_idx').on(t.organisationId, t.scaffoldId),
+    index('findings_org_state_risk_idx').on(t.organisationId, t.state, t.riskScore),
+    index('findings_assignee_idx').on(t.assigneeId),
+  ],
+);
+
+export const fixes = pgTable('fixes', {
+  id: uuid('id').primaryKey(),
+  organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+  fixedBy: uuid('fixed_by').notNull().references(() => users.id),
+  fixedAt: timestamp('fixed_at', { withTimezone: true }).notNull(),
+  note: text('note').notNull().default(''),
+  createdAt: createdAt(),
+});
+
+export const verificationOutcomeEnum = pgEnum('verification_outcome', ['verified', 'reopened']);
+
+export const verifications = pgTable('verifications', {
+  id: uuid('id').primaryKey(),
+  organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+  verifiedBy: uuid('verified_by').notNull().references(() => users.id),
+  verifiedAt: timestamp('verified_at', { withTimezone: true }).notNull(),
+  outcome: verificationOutcomeEnum('outcome').notNull(),
+  note: text('note').notNull().default(''),
+  createdAt: createdAt(),
+});
+
+/** Who changed what and when, with the record before and after; written in the same transaction. */
+export const auditEvents = pgTable(
+  'audit_events',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    actorId: uuid('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    entityType: text('entity_type').notNull(),
+    entityId: text('entity_id').notNull(),
+    action: text('action').notNull(),
+    before: jsonb('before'),
+    after: jsonb('after'),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('audit_events_org_entity_idx').on(t.organisationId, t.entityType, t.entityId)],
+);

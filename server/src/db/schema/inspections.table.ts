@@ -1,0 +1,65 @@
+import { index, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { createdAt, updatedAt, version } from './columns.js';
+import { organisations } from './organisations.table.js';
+import { scaffolds } from './sites.table.js';
+import { users } from './users.table.js';
+
+export const inspectionReasonEnum = pgEnum('inspection_reason', ['scheduled', 'after-alteration', 'after-bad-weather', 'handover']);
+
+/** Ids are generated on the phone (offline), so they are never defaulted here. */
+export const inspections = pgTable(
+  'inspections',
+  {
+    id: uuid('id').primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    scaffoldId: uuid('scaffold_id').notNull().references(() => scaffolds.id, { onDelete: 'cascade' }),
+    inspectorId: uuid('inspector_id').notNull().references(() => users.id),
+    startedAt: timestamp('started_at', { withTimezone: true }).notNull(),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    reason: inspectionReasonEnum('reason').notNull(),
+    windSpeedMps: real('wind_speed_mps'),
+    // Statutory report fields (UK WAHR Schedule 7).
+    reportFor: text('report_for').notNull().default(''),
+    location: text('location').notNull().default(''),
+    equipment: text('equipment').notNull().default(''),
+    mattersGivingRisk: text('matters_giving_risk').notNull().default(''),
+    actionTaken: text('action_taken').notNull().default(''),
+    furtherAction: text('further_action').notNull().default(''),
+    reporterName: text('reporter_name').notNull().default(''),
+    reporterPosition: text('reporter_position').notNull().default(''),
+    /** Optional drawn signature as an SVG path string. */
+    signature: text('signature'),
+    signedAt: timestamp('signed_at', { withTimezone: true }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    version: version(),
+  },
+  (t) => [index('inspections_org_scaffold_idx').on(t.organisationId, t.scaffoldId)],
+);
+
+export const controlEnum = pgEnum('control', [
+  'toe-boards',
+  'brick-guards',
+  'netting-or-sheeting',
+  'fans-or-canopies',
+  'exclusion-zone-barriers',
+  'tool-tethering',
+  'material-storage',
+]);
+export const controlResultEnum = pgEnum('control_result', ['pass', 'fail', 'not-applicable']);
+
+export const controlChecks = pgTable(
+  'control_checks',
+  {
+    id: uuid('id').primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    inspectionId: uuid('inspection_id').notNull().references(() => inspections.id, { onDelete: 'cascade' }),
+    control: controlEnum('control').notNull(),
+    result: controlResultEnum('result').notNull(),
+    note: text('note').notNull().default(''),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    version: version(),
+  },
+  (t) => [unique('control_checks_inspection_control_uq').on(t.inspectionId, t.control)],
+);

@@ -1,0 +1,49 @@
+import { index, integer, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { createdAt, updatedAt, version } from './columns.js';
+import { organisations } from './organisations.table.js';
+import { users } from './users.table.js';
+
+export const inspectionRegimeEnum = pgEnum('inspection_regime', ['7-day', 'pre-shift']);
+
+export const sites = pgTable(
+  'sites',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    address: text('address').notNull(),
+    clientName: text('client_name').notNull(),
+    timeZone: text('time_zone').notNull().default('Europe/London'),
+    regime: inspectionRegimeEnum('regime').notNull().default('7-day'),
+    reportRecipients: text('report_recipients').array().notNull().default([]),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    version: version(),
+  },
+  (t) => [index('sites_org_idx').on(t.organisationId)],
+);
+
+export const scaffoldStatusEnum = pgEnum('scaffold_status', ['Safe to use', 'Restricted use', 'Do not use']);
+
+export const scaffolds = pgTable(
+  'scaffolds',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    siteId: uuid('site_id').notNull().references(() => sites.id, { onDelete: 'cascade' }),
+    reference: text('reference').notNull(),
+    description: text('description').notNull().default(''),
+    elevations: text('elevations').array().notNull(),
+    lifts: integer('lifts').notNull(),
+    liftHeightM: real('lift_height_m').notNull(),
+    baysPerElevation: integer('bays_per_elevation').notNull(),
+    status: scaffoldStatusEnum('status').notNull().default('Safe to use'),
+    foremanId: uuid('foreman_id').references(() => users.id, { onDelete: 'set null' }),
+    lastInspectedAt: timestamp('last_inspected_at', { withTimezone: true }),
+    nextDueAt: timestamp('next_due_at', { withTimezone: true }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    version: version(),
+  },
+  (t) => [index('scaffolds_org_site_idx').on(t.organisationId, t.siteId), index('scaffolds_foreman_idx').on(t.foremanId)],
+);
