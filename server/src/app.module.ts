@@ -5,6 +5,7 @@ import { ZodValidationPipe } from 'nestjs-zod';
 import { AllExceptionsFilter } from './common/all-exceptions.filter.js';
 import { ConfigModule } from './config/config.module.js';
 import type { AppConfig } from './config/config.js';
+import { AuthCoreModule } from './auth/auth-core.module.js';
 import { DbModule } from './db/db.module.js';
 import { HealthModule } from './health/health.module.js';
 
@@ -26,6 +27,7 @@ export class AppModule {
           },
         }),
         DbModule,
+        AuthCoreModule,
         ...FEATURES,
       ],
       providers: [

@@ -1,1 +1,2 @@
 export * from './caution.js';
+export * from './auth/roles.js';

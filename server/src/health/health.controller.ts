@@ -2,8 +2,10 @@ import { Controller, Get, Inject, Res } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type pg from 'pg';
+import { Public } from '../auth/auth.decorators.js';
 import { PG_POOL } from '../db/db.tokens.js';
 
+@Public()
 @ApiTags('health')
 @Controller('health')
 export class HealthController {

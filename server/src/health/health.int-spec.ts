@@ -5,7 +5,7 @@ import { json } from '../../test/http.js';
 describe('GET /api/health against the real PostgreSQL', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await startTestApp();
+    t = await startTestApp({ seed: false });
   });
   afterAll(async () => {
     await t?.close();

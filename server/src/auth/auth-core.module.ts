@@ -1,0 +1,23 @@
+import { Global, Module } from '@nestjs/common';
+import { APP_GUARD } from '@nestjs/core';
+import { JwtModule } from '@nestjs/jwt';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { AuthGuard } from './auth.guard.js';
+
+/** JWT signing/verification and the global guard; sign-in routes live in AuthModule. */
+@Global()
+@Module({
+  imports: [
+    JwtModule.registerAsync({
+      inject: [APP_CONFIG],
+      useFactory: (config: AppConfig) => ({
+        secret: config.JWT_SECRET,
+        signOptions: { expiresIn: config.ACCESS_TOKEN_TTL_S, algorithm: 'HS256' },
+        verifyOptions: { algorithms: ['HS256'] },
+      }),
+    }),
+  ],
+  providers: [{ provide: APP_GUARD, useClass: AuthGuard }],
+  exports: [JwtModule],
+})
+export class AuthCoreModule {}

@@ -1,0 +1,15 @@
+import type { Role } from '@plummet/shared';
+
+/** What a verified access token says about its bearer; set on `request.user` by the guard. */
+export interface AuthUser {
+  userId: string;
+  organisationId: string;
+  role: Role;
+}
+
+/** Claims inside the access JWT. */
+export interface AccessTokenClaims {
+  sub: string;
+  org: string;
+  role: Role;
+}
