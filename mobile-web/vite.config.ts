@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url';
 import react from '@vitejs/plugin-react';
 import { defineConfig, defaultClientConditions, type Plugin } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
@@ -14,6 +15,15 @@ const apiProxy = { '/api': { target: apiTarget, changeOrigin: true } };
  * component's defineCustomElement itself.
  */
 const ionicComponentsHaveNoSideEffects = /[\\/]@ionic[\\/]core[\\/]components[\\/]ion-[^\\/]+\.js$/;
+
+/**
+ * shared/ is pure domain code (STYLE: no React, Nest, Dexie), but zod schemas built at module top
+ * level look like side effects, so one `import { CAUTION_TEXT }` would pull in every schema.
+ * Until shared's package.json says "sideEffects": false, say it here for its source files.
+ */
+const sharedSourceDir = fileURLToPath(new URL('../shared/src/', import.meta.url));
+const escapeRegExp = (text: string) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+const sharedSourceHasNoSideEffects = new RegExp(`^${escapeRegExp(sharedSourceDir)}.*\\.ts$`);
 
 /**
  * Fontsource's CSS lists a .woff fallback after each .woff2; every browser we support reads
@@ -48,7 +58,10 @@ export default defineConfig({
     chunkSizeWarningLimit: 1024,
     rolldownOptions: {
       treeshake: {
-        moduleSideEffects: [{ test: ionicComponentsHaveNoSideEffects, sideEffects: false }],
+        moduleSideEffects: [
+          { test: ionicComponentsHaveNoSideEffects, sideEffects: false },
+          { test: sharedSourceHasNoSideEffects, sideEffects: false },
+        ],
       },
     },
   },

@@ -151,7 +151,8 @@ CREATE TABLE "catalogue_items" (
 	"shape" jsonb NOT NULL,
 	"source" text NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
-	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"version" integer DEFAULT 1 NOT NULL
 );
 --> statement-breakpoint
 CREATE TABLE "audit_events" (
@@ -276,6 +277,7 @@ CREATE INDEX "catalogue_items_org_idx" ON "catalogue_items" USING btree ("organi
 CREATE INDEX "audit_events_org_entity_idx" ON "audit_events" USING btree ("organisation_id","entity_type","entity_id");--> statement-breakpoint
 CREATE INDEX "findings_org_scaffold_idx" ON "findings" USING btree ("organisation_id","scaffold_id");--> statement-breakpoint
 CREATE INDEX "findings_org_state_risk_idx" ON "findings" USING btree ("organisation_id","state","risk_score");--> statement-breakpoint
+CREATE INDEX "findings_org_risk_id_idx" ON "findings" USING btree ("organisation_id","risk_score","id");--> statement-breakpoint
 CREATE INDEX "findings_assignee_idx" ON "findings" USING btree ("assignee_id");--> statement-breakpoint
 CREATE INDEX "photos_owner_idx" ON "photos" USING btree ("owner_type","owner_id");--> statement-breakpoint
 CREATE INDEX "photos_hash_idx" ON "photos" USING btree ("content_hash");

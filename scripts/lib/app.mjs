@@ -1,6 +1,7 @@
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
 import { ROOT } from './paths.mjs';
+import { FatalError } from './log.mjs';
 import { run } from './run.mjs';
 
 /** Builds shared (emitted JS for Node), the server and the PWA. */
@@ -25,7 +26,7 @@ export async function startServer(env, { timeoutMs = 30_000, stdio = 'inherit' }
   const url = `http://${env.HOST ?? '127.0.0.1'}:${env.PORT}/api/health`;
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    if (exited) throw new Error(`the server exited during start (${exited.signal ?? `exit ${exited.code}`})`);
+    if (exited) throw new FatalError(`the server exited during start (${exited.signal ?? `exit ${exited.code}`})`);
     try {
       const res = await fetch(url);
       if (res.ok) return child;

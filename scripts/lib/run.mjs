@@ -1,14 +1,14 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { fail } from './log.mjs';
+import { FatalError, fail } from './log.mjs';
 
 /** Runs a command to completion, inheriting stdio; rejects with a one-line message on failure. */
 export function run(cmd, args, opts = {}) {
   return new Promise((resolve, reject) => {
     const child = spawn(cmd, args, { stdio: 'inherit', ...opts });
-    child.on('error', (e) => reject(new Error(`${cmd} could not start: ${e.message}`)));
+    child.on('error', (e) => reject(new FatalError(`${cmd} could not start: ${e.message}`)));
     child.on('exit', (code, signal) => {
       if (code === 0) resolve();
-      else reject(new Error(`${opts.label ?? [cmd, ...args].join(' ')} failed (${signal ?? `exit ${code}`})`));
+      else reject(new FatalError(`${opts.label ?? [cmd, ...args].join(' ')} failed (${signal ?? `exit ${code}`})`));
     });
   });
 }

@@ -8,9 +8,20 @@ import type { AppConfig } from './config/config.js';
 import { AuthCoreModule } from './auth/auth-core.module.js';
 import { DbModule } from './db/db.module.js';
 import { HealthModule } from './health/health.module.js';
+import { AuthModule } from './auth/auth.module.js';
+import { MailModule } from './mail/mail.module.js';
+import { RateLimitModule } from './rate-limit/rate-limit.module.js';
+import { UsersModule } from './users/users.module.js';
+import { PhotosModule } from './photos/photos.module.js';
+import { AuditModule } from './audit/audit.module.js';
+import { SitesModule } from './sites/sites.module.js';
+import { ScaffoldsModule } from './scaffolds/scaffolds.module.js';
+import { InspectionsModule } from './inspections/inspections.module.js';
+import { FindingsModule } from './findings/findings.module.js';
+import { CatalogueModule } from './catalogue/catalogue.module.js';
 
 /** Feature modules are listed here once each. */
-const FEATURES = [HealthModule];
+const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule];
 
 @Module({})
 export class AppModule {

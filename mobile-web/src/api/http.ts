@@ -1,3 +1,5 @@
+import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
+
 /**
  * The one way the app calls the Plummet API. The server answers every error as
  * `{ code, message, issues? }` (STYLE habit 4); this turns those, and the cases where no answer
@@ -6,7 +8,7 @@
 
 /** Client-side codes for failures that never reached the server's error filter. */
 export const ClientErrorCode = {
-  /** No connection, DNS failure, server stopped: fetch itself rejected. */
+  /** No connection, DNS failure, server stopped (fetch rejected, or a gateway answered 502/504). */
   Offline: 'CLIENT_OFFLINE',
   /** An answer that is not the server's JSON error shape (e.g. a proxy's HTML page). */
   UnexpectedResponse: 'CLIENT_UNEXPECTED_RESPONSE',
@@ -51,9 +53,15 @@ export async function apiFetch<T>(path: string, request: ApiRequest = {}, fetchI
     });
   } catch (error) {
     if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    reportServerReachable(false);
     throw new ApiError(0, ClientErrorCode.Offline, 'No connection to the Plummet server.');
   }
 
+  if (isGatewayFailure(response.status)) {
+    reportServerReachable(false);
+    throw new ApiError(response.status, ClientErrorCode.Offline, 'No connection to the Plummet server.');
+  }
+  reportServerReachable(true);
   if (response.status === 204) return undefined as T;
   const body: unknown = await response.json().catch(() => undefined);
   if (response.ok) return body as T;

@@ -29,6 +29,21 @@ export function ReloadPrompt() {
     },
   });
 
+  /**
+   * Activates the waiting worker and reloads once it controls the page. vite-plugin-pwa reloads
+   * on its own only when this page was already controlled at start-up (workbox-window's
+   * isUpdate), not in the first session after install, so listen for the change here too.
+   */
+  async function reloadIntoNewVersion() {
+    const registration = await navigator.serviceWorker.getRegistration();
+    if (!registration?.waiting) {
+      window.location.reload();
+      return;
+    }
+    navigator.serviceWorker.addEventListener('controllerchange', () => window.location.reload(), { once: true });
+    await updateServiceWorker(true);
+  }
+
   useEffect(() => {
     if (!offlineReady) return;
     const timer = setTimeout(() => setOfflineReady(false), 8000);
@@ -39,12 +54,14 @@ export function ReloadPrompt() {
     return (
       <div className="reload-prompt" role="alert" data-testid="reload-prompt">
         <span className="reload-prompt__text">A new version of Plummet is ready</span>
-        <IonButton fill="clear" className="reload-prompt__later" onClick={() => setNeedRefresh(false)}>
-          Later
-        </IonButton>
-        <IonButton color="secondary" onClick={() => void updateServiceWorker(true)} data-testid="reload-prompt-reload">
-          Reload
-        </IonButton>
+        <span className="reload-prompt__actions">
+          <IonButton fill="clear" className="reload-prompt__later" onClick={() => setNeedRefresh(false)}>
+            Later
+          </IonButton>
+          <IonButton color="secondary" onClick={() => void reloadIntoNewVersion()} data-testid="reload-prompt-reload">
+            Reload
+          </IonButton>
+        </span>
       </div>
     );
   }
@@ -53,9 +70,11 @@ export function ReloadPrompt() {
     return (
       <div className="reload-prompt" role="status" data-testid="offline-ready">
         <span className="reload-prompt__text">Plummet is ready to work offline</span>
-        <IonButton fill="clear" className="reload-prompt__later" onClick={() => setOfflineReady(false)}>
-          OK
-        </IonButton>
+        <span className="reload-prompt__actions">
+          <IonButton fill="clear" className="reload-prompt__later" onClick={() => setOfflineReady(false)}>
+            OK
+          </IonButton>
+        </span>
       </div>
     );
   }

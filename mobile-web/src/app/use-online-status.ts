@@ -1,18 +1,7 @@
 import { useSyncExternalStore } from 'react';
+import { isOnline, subscribeToConnectivity } from './connectivity';
 
-function subscribe(onChange: () => void): () => void {
-  window.addEventListener('online', onChange);
-  window.addEventListener('offline', onChange);
-  return () => {
-    window.removeEventListener('online', onChange);
-    window.removeEventListener('offline', onChange);
-  };
-}
-
-/**
- * The browser's own idea of connectivity. `true` only means a network is attached, not that
- * the server answers; sync treats a failed request as offline too.
- */
+/** True while the Plummet server can be reached (see connectivity.ts). */
 export function useOnlineStatus(): boolean {
-  return useSyncExternalStore(subscribe, () => navigator.onLine, () => true);
+  return useSyncExternalStore(subscribeToConnectivity, isOnline, () => true);
 }

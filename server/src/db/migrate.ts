@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import type pg from 'pg';
+import { upsertBuiltinCatalogue } from '../catalogue/catalogue-builtins.js';
 
 /** Arbitrary constant: serialises migrations when several replicas start at once. */
 const MIGRATION_LOCK_KEY = 7_243_118_001;
@@ -14,7 +15,7 @@ export function defaultMigrationsDir(): string {
   return resolve(here, '../../../drizzle/migrations');
 }
 
-/** Applies the committed drizzle-kit migrations under an advisory lock. */
+/** Applies the committed drizzle-kit migrations, then upserts the built-in catalogue, under an advisory lock. */
 export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultMigrationsDir()): Promise<void> {
   if (!existsSync(resolve(migrationsFolder, 'meta/_journal.json'))) {
     throw new Error(`No migrations found in ${migrationsFolder}`);
@@ -24,6 +25,7 @@ export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultM
     await client.query('SELECT pg_advisory_lock($1)', [MIGRATION_LOCK_KEY]);
     try {
       await migrate(drizzle(client), { migrationsFolder });
+      await upsertBuiltinCatalogue(drizzle(client));
     } finally {
       await client.query('SELECT pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY]);
     }

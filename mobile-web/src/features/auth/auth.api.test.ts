@@ -35,11 +35,15 @@ describe('signIn', () => {
     );
   });
 
-  it('says the phone is offline when no answer comes', async () => {
+  it('says there is no connection when no answer comes', async () => {
     const offline: typeof fetch = async () => {
       throw new TypeError('Failed to fetch');
     };
-    expect(await failureOf(offline)).toMatch(/^You are offline/);
+    expect(await failureOf(offline)).toMatch(/^No connection to the Plummet server/);
+  });
+
+  it('says there is no connection when a gateway cannot reach the server', async () => {
+    expect(await failureOf(answering(502))).toMatch(/^No connection to the Plummet server/);
   });
 
   it('shows the server message for other refusals', async () => {

@@ -16,7 +16,7 @@ export function signIn(credentials: SignInCredentials, fetchImpl?: typeof fetch)
 /** A sentence for the sign-in form, for any failure of signIn. */
 export function describeSignInError(error: unknown): string {
   if (!(error instanceof ApiError)) return 'Sign-in failed. Please try again.';
-  if (error.isOffline) return 'You are offline. Signing in needs a connection; try again when you have signal.';
+  if (error.isOffline) return 'No connection to the Plummet server. Signing in needs one; try again when you have signal.';
   if (error.status === 404) return 'Sign-in is not available on this server yet.';
   if (error.status === 401) return 'That email and password do not match an account.';
   if (error.status === 429) return 'Too many attempts. Wait a minute, then try again.';

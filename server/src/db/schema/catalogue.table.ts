@@ -1,5 +1,5 @@
 import { index, jsonb, pgTable, real, text, uuid } from 'drizzle-orm/pg-core';
-import { createdAt, updatedAt } from './columns.js';
+import { createdAt, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 
 /** Items with a typical mass and shape. organisationId null = built in, shared by everyone. */
@@ -16,6 +16,7 @@ export const catalogueItems = pgTable(
     source: text('source').notNull(),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    version: version(),
   },
   (t) => [index('catalogue_items_org_idx').on(t.organisationId)],
 );

@@ -51,6 +51,8 @@ export const findings = pgTable(
   (t) => [
     index('findings_org_scaffold_idx').on(t.organisationId, t.scaffoldId),
     index('findings_org_state_risk_idx').on(t.organisationId, t.state, t.riskScore),
+    // The default list (highest risk first) and its keyset pages: ORDER BY risk_score DESC, id DESC.
+    index('findings_org_risk_id_idx').on(t.organisationId, t.riskScore, t.id),
     index('findings_assignee_idx').on(t.assigneeId),
   ],
 );

@@ -1,0 +1,105 @@
+/**
+ * Turns what an inspector sent into the stored columns of a finding: the position checked against
+ * the scaffold, the item resolved from the catalogue or taken as given, and the estimate ALWAYS
+ * recomputed here with the shared physics (a client's figures are not even read).
+ */
+import {
+  DropInputError,
+  estimateFinding,
+  type FindingExposure,
+  type FindingItemInput,
+  type LikelihoodAnswers,
+  RiskInputError,
+  type ShapeSpec,
+} from '@plummet/shared';
+import { AppError, ErrorCode, type ErrorIssue } from '../common/app-error.js';
+import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
+import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
+import type { FindingInsert } from './findings.repository.js';
+
+/** Every column that follows from the inspector's input: position, item copy, estimate and risk. */
+export type FindingComputedColumns = Required<
+  Pick<
+    FindingInsert,
+    | 'elevation' | 'lift' | 'bay' | 'heightM' | 'catalogueItemId' | 'itemName' | 'massKg' | 'shape'
+    | 'exposure' | 'likelihoodAnswers' | 'estimate' | 'severity' | 'likelihood' | 'riskScore' | 'riskBand'
+  >
+>;
+
+export interface FindingFields {
+  elevation: string;
+  lift: number;
+  bay: number;
+  heightM: number;
+  item: { catalogueItemId: string | null; name: string; massKg: number; shape: ShapeSpec | null };
+  exposure: FindingExposure;
+  likelihoodAnswers: LikelihoodAnswers;
+}
+
+const invalid = (issues: ErrorIssue[]) => new AppError(ErrorCode.ValidationFailed, 'The request is not valid', issues);
+
+/** Elevation, lift and bay must exist on the scaffold (400 naming the field). */
+export function checkPosition(fields: Pick<FindingFields, 'elevation' | 'lift' | 'bay'>, scaffold: ScaffoldRow): void {
+  const issues: ErrorIssue[] = [];
+  if (!scaffold.elevations.includes(fields.elevation)) {
+    issues.push({ path: ['elevation'], code: 'not_on_scaffold', message: `The scaffold's elevations are: ${scaffold.elevations.join(', ')}` });
+  }
+  if (fields.lift > scaffold.lifts) issues.push({ path: ['lift'], code: 'too_big', message: `The scaffold has ${scaffold.lifts} lifts` });
+  if (fields.bay > scaffold.baysPerElevation) {
+    issues.push({ path: ['bay'], code: 'too_big', message: `The scaffold has ${scaffold.baysPerElevation} bays per elevation` });
+  }
+  if (issues.length) throw invalid(issues);
+}
+
+/** The item as stored: copied from the catalogue entry, or the custom one as given. */
+export function resolveItem(input: FindingItemInput, catalogueItem: CatalogueItemRow | undefined): FindingFields['item'] {
+  if (input.catalogueItemId !== undefined) {
+    if (!catalogueItem) throw AppError.notFound('Catalogue item');
+    return { catalogueItemId: catalogueItem.id, name: catalogueItem.name, massKg: catalogueItem.massKg, shape: catalogueItem.shape as ShapeSpec };
+  }
+  return { catalogueItemId: null, name: input.name!, massKg: input.massKg!, shape: input.shape ?? null };
+}
+
+/** Where a physics input field lives in the request body. */
+function physicsFieldPath(field: string): string[] {
+  const parts = field.split('.');
+  return parts[0] === 'massKg' || parts[0] === 'shape' ? ['item', ...parts] : parts;
+}
+
+/** The stored columns of the item, position and estimate. Physics or risk refusals become 400s naming the field. */
+export function findingColumns(fields: FindingFields, windSpeedMps: number | null): FindingComputedColumns {
+  let result;
+  try {
+    result = estimateFinding({
+      massKg: fields.item.massKg,
+      heightM: fields.heightM,
+      shape: fields.item.shape,
+      exposure: fields.exposure,
+      likelihoodAnswers: fields.likelihoodAnswers,
+      windSpeedMps,
+    });
+  } catch (error) {
+    if (error instanceof DropInputError) {
+      throw invalid(error.issues.map((i) => ({ path: physicsFieldPath(i.field), code: i.code, message: i.message })));
+    }
+    if (error instanceof RiskInputError) throw invalid([{ path: ['likelihoodAnswers', error.field], code: error.code, message: error.message }]);
+    throw error;
+  }
+  return {
+    elevation: fields.elevation,
+    lift: fields.lift,
+    bay: fields.bay,
+    heightM: fields.heightM,
+    catalogueItemId: fields.item.catalogueItemId,
+    itemName: fields.item.name,
+    massKg: fields.item.massKg,
+    shape: fields.item.shape,
+    exposure: fields.exposure,
+    likelihoodAnswers: fields.likelihoodAnswers,
+    estimate: result.estimate,
+    severity: result.severity,
+    likelihood: result.likelihood,
+    riskScore: result.riskScore,
+    riskBand: result.riskBand,
+  };
+}

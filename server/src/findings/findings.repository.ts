@@ -1,0 +1,91 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, eq, inArray, type SQL, sql } from 'drizzle-orm';
+import type { FindingListQuery } from '@plummet/shared';
+import { keyset, type SortKey } from '../common/keyset.js';
+import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { findings, fixes, scaffolds, verifications } from '../db/schema/index.js';
+import type { FindingRow } from './finding.mapper.js';
+
+const SORTS: Record<FindingListQuery['sort'], SortKey> = {
+  riskScore: { expr: findings.riskScore, cast: 'integer' },
+  // No due time sorts after every due time.
+  dueAt: { expr: sql`coalesce(${findings.dueAt}, 'infinity'::timestamptz)`, cast: 'timestamptz' },
+  createdAt: { expr: findings.createdAt, cast: 'timestamptz' },
+  updatedAt: { expr: findings.updatedAt, cast: 'timestamptz' },
+  heightM: { expr: findings.heightM, cast: 'real' },
+};
+
+export type FindingInsert = Omit<typeof findings.$inferInsert, 'createdAt' | 'updatedAt' | 'version'>;
+export type FindingChanges = Partial<Omit<FindingInsert, 'id' | 'organisationId' | 'createdBy'>>;
+
+/** A finding with the foreman responsible for its scaffold (for a foreman's scope). */
+export interface FindingWithScope {
+  finding: FindingRow;
+  scaffoldForemanId: string | null;
+}
+
+@Injectable()
+export class FindingsRepository {
+  constructor(@Inject(DRIZZLE) private readonly db: Db) {}
+
+  /** `foremanId`: only findings on that foreman's scaffolds or assigned to them. */
+  async list(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
+    const page = keyset(SORTS[query.sort], findings.id, query);
+    const scaffoldsWhere = (condition: SQL) =>
+      sql`${findings.scaffoldId} in (select ${scaffolds.id} from ${scaffolds} where ${scaffolds.organisationId} = ${organisationId} and ${condition})`;
+    const where: (SQL | undefined)[] = [eq(findings.organisationId, organisationId), page.after];
+    if (foremanId) where.push(sql`(${scaffoldsWhere(sql`${scaffolds.foremanId} = ${foremanId}`)} or ${findings.assigneeId} = ${foremanId})`);
+    if (query.siteId) where.push(scaffoldsWhere(sql`${scaffolds.siteId} = ${query.siteId}`));
+    if (query.scaffoldId) where.push(eq(findings.scaffoldId, query.scaffoldId));
+    if (query.inspectionId) where.push(eq(findings.inspectionId, query.inspectionId));
+    if (query.state) where.push(inArray(findings.state, query.state));
+    if (query.riskBand) where.push(inArray(findings.riskBand, query.riskBand));
+    if (query.assigneeId) where.push(eq(findings.assigneeId, query.assigneeId));
+    const overdue = sql`(${findings.dueAt} < now() and ${findings.state} in ('open', 'made-safe'))`;
+    if (query.overdue === true) where.push(overdue);
+    if (query.overdue === false) where.push(sql`not coalesce(${overdue}, false)`);
+    return executor
+      .select({ row: findings, sortKey: page.sortKey })
+      .from(findings)
+      .where(and(...where))
+      .orderBy(...page.orderBy)
+      .limit(page.fetch);
+  }
+
+  async findAnyOrg(id: string, executor: DbExecutor = this.db): Promise<FindingRow | undefined> {
+    const [row] = await executor.select().from(findings).where(eq(findings.id, id));
+    return row;
+  }
+
+  async findWithScope(organisationId: string, id: string, executor: DbExecutor = this.db, forUpdate = false): Promise<FindingWithScope | undefined> {
+    const q = executor
+      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId })
+      .from(findings)
+      .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
+      .where(and(eq(findings.id, id), eq(findings.organisationId, organisationId)));
+    const [row] = forUpdate ? await q.for('update', { of: findings }) : await q;
+    return row;
+  }
+
+  async insertIfAbsent(values: FindingInsert, executor: DbExecutor = this.db): Promise<FindingRow | undefined> {
+    const [row] = await executor.insert(findings).values(values).onConflictDoNothing({ target: findings.id }).returning();
+    return row;
+  }
+
+  async update(id: string, changes: FindingChanges, executor: DbExecutor = this.db): Promise<FindingRow> {
+    const [row] = await executor
+      .update(findings)
+      .set({ ...changes, version: sql`${findings.version} + 1`, updatedAt: sql`now()` })
+      .where(eq(findings.id, id))
+      .returning();
+    return row;
+  }
+
+  async insertFix(values: typeof fixes.$inferInsert, executor: DbExecutor = this.db): Promise<void> {
+    await executor.insert(fixes).values(values);
+  }
+
+  async insertVerification(values: typeof verifications.$inferInsert, executor: DbExecutor = this.db): Promise<void> {
+    await executor.insert(verifications).values(values);
+  }
+}

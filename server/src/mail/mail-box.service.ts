@@ -1,0 +1,99 @@
+import { open, readdir, readFile, stat } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { Inject, Injectable } from '@nestjs/common';
+import type { MailList, MailListQuery, MailMessage } from '@plummet/shared';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { parseEmlHeaders } from './eml-headers.js';
+
+/** `<letters, digits, dot, dash, underscore>.eml`, no path separators and no leading dot. */
+const MAIL_NAME = /^[A-Za-z0-9][A-Za-z0-9._-]{0,195}\.eml$/;
+const HEADER_BYTES = 32 * 1024;
+const MAX_MESSAGE_BYTES = 5 * 1024 * 1024;
+
+function isMissing(error: unknown): boolean {
+  return (error as NodeJS.ErrnoException | undefined)?.code === 'ENOENT';
+}
+
+/**
+ * Development aid: reads the `.eml` files that the local SMTP fake (scripts/lib/fakes.mjs) writes
+ * into MAIL_DIR, so invitation and reset links can be followed without a real mailbox. It reads
+ * nothing from a real mail server and is off unless MAIL_DIR is set (and always off in production).
+ */
+@Injectable()
+export class MailBoxService {
+  constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
+
+  private folder(): string {
+    if (!this.config.MAIL_DIR || this.config.NODE_ENV === 'production') {
+      throw new AppError(ErrorCode.NotFound, 'Captured mail is only available with the local mail fake (MAIL_DIR)');
+    }
+    return resolve(this.config.MAIL_DIR);
+  }
+
+  /** Newest first (by file time, then name). */
+  async list(query: MailListQuery): Promise<MailList> {
+    const dir = this.folder();
+    let names: string[];
+    try {
+      names = (await readdir(dir)).filter((n) => MAIL_NAME.test(n));
+    } catch (error) {
+      if (isMissing(error)) return { items: [], total: 0, limit: query.limit, offset: query.offset };
+      throw error;
+    }
+    const dated = await Promise.all(
+      names.map(async (name) => ({ name, mtime: await stat(join(dir, name)).then((s) => s.mtimeMs, () => null) })),
+    );
+    const present = dated.filter((f): f is { name: string; mtime: number } => f.mtime !== null);
+    present.sort((a, b) => b.mtime - a.mtime || b.name.localeCompare(a.name));
+    const page = present.slice(query.offset, query.offset + query.limit);
+    const items = await Promise.all(page.map((f) => this.summary(dir, f.name)));
+    return { items, total: present.length, limit: query.limit, offset: query.offset };
+  }
+
+  /** The raw message text; 400 for a name that is not a plain `.eml` file name, 404 when absent. */
+  async read(name: string): Promise<string> {
+    const dir = this.folder();
+    if (!MAIL_NAME.test(name) || name.includes('..')) {
+      throw new AppError(ErrorCode.ValidationFailed, 'Not a captured message name', [
+        { path: ['name'], code: 'invalid_format', message: 'Expected a file name ending in .eml' },
+      ]);
+    }
+    const file = resolve(dir, name);
+    if (file !== join(dir, name)) throw AppError.notFound('Message');
+    try {
+      const info = await stat(file);
+      if (!info.isFile()) throw AppError.notFound('Message');
+      if (info.size > MAX_MESSAGE_BYTES) throw new AppError(ErrorCode.PayloadTooLarge, 'The message is too large to show');
+      return await readFile(file, 'utf8');
+    } catch (error) {
+      if (isMissing(error)) throw AppError.notFound('Message');
+      throw error;
+    }
+  }
+
+  private async summary(dir: string, name: string): Promise<MailMessage> {
+    let head = '';
+    try {
+      const handle = await open(join(dir, name), 'r');
+      try {
+        const buffer = Buffer.alloc(HEADER_BYTES);
+        const { bytesRead } = await handle.read(buffer, 0, HEADER_BYTES, 0);
+        head = buffer.subarray(0, bytesRead).toString('utf8');
+      } finally {
+        await handle.close();
+      }
+    } catch (error) {
+      if (!isMissing(error)) throw error;
+    }
+    const headers = parseEmlHeaders(head);
+    const date = headers.get('date');
+    const parsed = date ? new Date(date) : null;
+    return {
+      name,
+      subject: headers.get('subject') ?? '',
+      to: headers.get('to') ?? '',
+      date: parsed && !Number.isNaN(parsed.getTime()) ? parsed.toISOString() : null,
+    };
+  }
+}

@@ -1,0 +1,44 @@
+import { Inject, Injectable, Logger, type OnModuleDestroy } from '@nestjs/common';
+import nodemailer, { type Transporter } from 'nodemailer';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { type MailContent, renderMail } from './mail.layout.js';
+
+function isLoopback(host: string): boolean {
+  return host === 'localhost' || host === '::1' || host.startsWith('127.');
+}
+
+/** Sends e-mail over SMTP (the local fake in development and tests); every message carries the caution footer. */
+@Injectable()
+export class MailService implements OnModuleDestroy {
+  private readonly logger = new Logger(MailService.name);
+  private readonly transport: Transporter;
+
+  constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {
+    this.transport = nodemailer.createTransport({
+      host: config.SMTP_HOST,
+      port: config.SMTP_PORT,
+      secure: false,
+      // The loopback fake speaks plain SMTP; anything else upgrades with STARTTLS when offered.
+      ignoreTLS: isLoopback(config.SMTP_HOST),
+      connectionTimeout: 5_000,
+      greetingTimeout: 5_000,
+      socketTimeout: 10_000,
+    });
+  }
+
+  /** Sends one message; 503 SERVICE_UNAVAILABLE when the mail server cannot be reached. */
+  async send(to: string, content: MailContent): Promise<void> {
+    const { text, html } = renderMail(content);
+    try {
+      await this.transport.sendMail({ from: this.config.MAIL_FROM, to, subject: content.subject, text, html });
+    } catch (error) {
+      this.logger.error(`sending "${content.subject}" failed: ${error instanceof Error ? error.message : String(error)}`);
+      throw new AppError(ErrorCode.ServiceUnavailable, 'The e-mail could not be sent; try again later');
+    }
+  }
+
+  onModuleDestroy(): void {
+    this.transport.close();
+  }
+}

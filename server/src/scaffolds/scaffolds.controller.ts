@@ -1,0 +1,63 @@
+import { Body, Controller, Get, HttpCode, Param, Patch, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import {
+  ScaffoldCreateSchema,
+  ScaffoldListQuerySchema,
+  ScaffoldListResponseSchema,
+  ScaffoldSchema,
+  ScaffoldStatusChangeSchema,
+  ScaffoldUpdateSchema,
+} from '@plummet/shared';
+import { createZodDto } from 'nestjs-zod';
+import { CurrentUser, Roles } from '../auth/auth.decorators.js';
+import type { AuthUser } from '../auth/auth.types.js';
+import { IdParamPipe } from '../common/id-param.pipe.js';
+import { ScaffoldsService } from './scaffolds.service.js';
+
+class ScaffoldDto extends createZodDto(ScaffoldSchema) {}
+class ScaffoldListDto extends createZodDto(ScaffoldListResponseSchema) {}
+class ScaffoldListQueryDto extends createZodDto(ScaffoldListQuerySchema) {}
+class ScaffoldCreateDto extends createZodDto(ScaffoldCreateSchema) {}
+class ScaffoldUpdateDto extends createZodDto(ScaffoldUpdateSchema) {}
+class ScaffoldStatusChangeDto extends createZodDto(ScaffoldStatusChangeSchema) {}
+
+@ApiTags('scaffolds')
+@ApiBearerAuth()
+@Controller('scaffolds')
+export class ScaffoldsController {
+  constructor(private readonly scaffolds: ScaffoldsService) {}
+
+  @Get()
+  @ApiOkResponse({ type: ScaffoldListDto })
+  list(@CurrentUser() user: AuthUser, @Query() query: ScaffoldListQueryDto) {
+    return this.scaffolds.list(user, query);
+  }
+
+  @Get(':id')
+  @ApiOkResponse({ type: ScaffoldDto })
+  get(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string) {
+    return this.scaffolds.get(user, id);
+  }
+
+  @Post()
+  @Roles('admin')
+  @ApiCreatedResponse({ type: ScaffoldDto })
+  create(@CurrentUser() user: AuthUser, @Body() body: ScaffoldCreateDto) {
+    return this.scaffolds.create(user, body);
+  }
+
+  @Patch(':id')
+  @Roles('admin')
+  @ApiOkResponse({ type: ScaffoldDto })
+  update(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: ScaffoldUpdateDto) {
+    return this.scaffolds.update(user, id, body);
+  }
+
+  @Post(':id/status')
+  @Roles('inspector', 'manager', 'admin')
+  @HttpCode(200)
+  @ApiOkResponse({ type: ScaffoldDto })
+  changeStatus(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: ScaffoldStatusChangeDto) {
+    return this.scaffolds.changeStatus(user, id, body);
+  }
+}

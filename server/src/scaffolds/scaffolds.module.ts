@@ -1,0 +1,14 @@
+import { Module } from '@nestjs/common';
+import { AuditModule } from '../audit/audit.module.js';
+import { SitesModule } from '../sites/sites.module.js';
+import { ScaffoldsController } from './scaffolds.controller.js';
+import { ScaffoldsRepository } from './scaffolds.repository.js';
+import { ScaffoldsService } from './scaffolds.service.js';
+
+@Module({
+  imports: [AuditModule, SitesModule],
+  controllers: [ScaffoldsController],
+  providers: [ScaffoldsRepository, ScaffoldsService],
+  exports: [ScaffoldsRepository],
+})
+export class ScaffoldsModule {}

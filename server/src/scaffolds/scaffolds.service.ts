@@ -1,0 +1,94 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type {
+  ListResponse,
+  Scaffold,
+  ScaffoldCreate,
+  ScaffoldListQuery,
+  ScaffoldStatusChange,
+  ScaffoldUpdate,
+} from '@plummet/shared';
+import { AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../auth/auth.types.js';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { toPage } from '../common/keyset.js';
+import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { SitesRepository } from '../sites/sites.repository.js';
+import { toScaffold } from './scaffold.mapper.js';
+import { ScaffoldsRepository } from './scaffolds.repository.js';
+
+@Injectable()
+export class ScaffoldsService {
+  constructor(
+    @Inject(DRIZZLE) private readonly db: Db,
+    private readonly scaffolds: ScaffoldsRepository,
+    private readonly sites: SitesRepository,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(user: AuthUser, query: ScaffoldListQuery): Promise<ListResponse<Scaffold>> {
+    const rows = await this.scaffolds.list(user.organisationId, query);
+    return toPage(
+      rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
+      query,
+      toScaffold,
+    );
+  }
+
+  async get(user: AuthUser, id: string): Promise<Scaffold> {
+    const row = await this.scaffolds.find(user.organisationId, id);
+    if (!row) throw AppError.notFound('Scaffold');
+    return toScaffold(row);
+  }
+
+  async create(user: AuthUser, input: ScaffoldCreate): Promise<Scaffold> {
+    return this.db.transaction(async (tx) => {
+      if (!(await this.sites.find(user.organisationId, input.siteId, tx))) throw AppError.notFound('Site');
+      await this.checkForeman(user, input.foremanId, tx);
+      const scaffold = toScaffold(await this.scaffolds.insert(user.organisationId, input, tx));
+      await this.audit.record(tx, user, { entityType: 'scaffold', entityId: scaffold.id, action: 'create', before: null, after: scaffold });
+      return scaffold;
+    });
+  }
+
+  async update(user: AuthUser, id: string, input: ScaffoldUpdate): Promise<Scaffold> {
+    const { version, ...changes } = input;
+    return this.db.transaction(async (tx) => {
+      const current = await this.scaffolds.find(user.organisationId, id, tx, true);
+      if (!current) throw AppError.notFound('Scaffold');
+      if (version !== undefined && version !== current.version) {
+        throw new AppError(ErrorCode.Conflict, `The scaffold changed since version ${version}; it is now at version ${current.version}`);
+      }
+      await this.checkForeman(user, changes.foremanId, tx);
+      const scaffold = toScaffold(await this.scaffolds.update(id, changes, tx));
+      await this.audit.record(tx, user, { entityType: 'scaffold', entityId: id, action: 'update', before: toScaffold(current), after: scaffold });
+      return scaffold;
+    });
+  }
+
+  /** The tag on the scaffold (Safe to use / Restricted use / Do not use), changed on site with a reason. */
+  async changeStatus(user: AuthUser, id: string, input: ScaffoldStatusChange): Promise<Scaffold> {
+    return this.db.transaction(async (tx) => {
+      const current = await this.scaffolds.find(user.organisationId, id, tx, true);
+      if (!current) throw AppError.notFound('Scaffold');
+      const scaffold = toScaffold(await this.scaffolds.update(id, { status: input.status }, tx));
+      await this.audit.record(tx, user, {
+        entityType: 'scaffold',
+        entityId: id,
+        action: 'status',
+        before: toScaffold(current),
+        after: { ...scaffold, statusNote: input.note },
+      });
+      return scaffold;
+    });
+  }
+
+  /** The foreman responsible must hold the foreman role in the organisation (400 naming foremanId). */
+  private async checkForeman(user: AuthUser, foremanId: string | null | undefined, tx: DbExecutor): Promise<void> {
+    if (!foremanId) return;
+    if (!(await this.scaffolds.isForeman(user.organisationId, foremanId, tx))) {
+      throw new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [
+        { path: ['foremanId'], code: 'not_a_foreman', message: 'Not a foreman of this organisation' },
+      ]);
+    }
+  }
+}

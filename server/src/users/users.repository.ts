@@ -1,0 +1,151 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { Role } from '@plummet/shared';
+import { and, asc, count, eq, sql } from 'drizzle-orm';
+import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { auditEvents, memberships, organisations, users } from '../db/schema/index.js';
+
+const profileColumns = {
+  userId: users.id,
+  email: users.email,
+  name: users.name,
+  position: users.position,
+  units: users.units,
+  active: users.active,
+  role: memberships.role,
+  organisationId: organisations.id,
+  organisationName: organisations.name,
+};
+
+const memberColumns = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  position: users.position,
+  role: memberships.role,
+  active: users.active,
+  hasPassword: sql<boolean>`(${users.passwordHash} IS NOT NULL)`,
+  createdAt: memberships.createdAt,
+};
+
+export type ProfileRow = {
+  userId: string;
+  email: string;
+  name: string;
+  position: string;
+  units: 'si' | 'imperial';
+  active: boolean;
+  role: Role;
+  organisationId: string;
+  organisationName: string;
+};
+export type SignInCandidate = ProfileRow & { passwordHash: string | null };
+export type MemberRow = {
+  id: string;
+  email: string;
+  name: string;
+  position: string;
+  role: Role;
+  active: boolean;
+  hasPassword: boolean;
+  createdAt: Date;
+};
+export type AuditInsert = typeof auditEvents.$inferInsert;
+
+/** Users, their memberships and the audit trail of changes to them. */
+@Injectable()
+export class UsersRepository {
+  constructor(@Inject(DRIZZLE) private readonly db: Db) {}
+
+  /** The user's profile in one organisation (null when not a member of it). */
+  async findProfile(userId: string, organisationId: string, ex: DbExecutor = this.db): Promise<ProfileRow | null> {
+    const [row] = await ex
+      .select(profileColumns)
+      .from(users)
+      .innerJoin(memberships, eq(memberships.userId, users.id))
+      .innerJoin(organisations, eq(organisations.id, memberships.organisationId))
+      .where(and(eq(users.id, userId), eq(memberships.organisationId, organisationId)));
+    return row ?? null;
+  }
+
+  /** The account behind an e-mail, in its first organisation; null when unknown or without membership. */
+  async findSignInCandidate(email: string, ex: DbExecutor = this.db): Promise<SignInCandidate | null> {
+    const [row] = await ex
+      .select({ ...profileColumns, passwordHash: users.passwordHash })
+      .from(users)
+      .innerJoin(memberships, eq(memberships.userId, users.id))
+      .innerJoin(organisations, eq(organisations.id, memberships.organisationId))
+      .where(eq(users.email, email))
+      .orderBy(asc(memberships.createdAt))
+      .limit(1);
+    return row ?? null;
+  }
+
+  async findUser(userId: string, ex: DbExecutor = this.db) {
+    const [row] = await ex.select().from(users).where(eq(users.id, userId));
+    return row ?? null;
+  }
+
+  async findUserByEmail(email: string, ex: DbExecutor = this.db) {
+    const [row] = await ex.select().from(users).where(eq(users.email, email));
+    return row ?? null;
+  }
+
+  /** Inserts a user; null when the e-mail is already taken (by a concurrent request, too). */
+  async insertUser(values: { email: string; name: string }, ex: DbExecutor = this.db): Promise<string | null> {
+    const [row] = await ex.insert(users).values(values).onConflictDoNothing({ target: users.email }).returning({ id: users.id });
+    return row?.id ?? null;
+  }
+
+  async insertMembership(values: { userId: string; organisationId: string; role: Role }, ex: DbExecutor = this.db): Promise<void> {
+    await ex.insert(memberships).values(values);
+  }
+
+  async updateUser(
+    userId: string,
+    patch: Partial<{ name: string; position: string; units: 'si' | 'imperial'; active: boolean; passwordHash: string }>,
+    ex: DbExecutor = this.db,
+  ): Promise<void> {
+    if (Object.keys(patch).length === 0) return;
+    await ex.update(users).set(patch).where(eq(users.id, userId));
+  }
+
+  async updateRole(userId: string, organisationId: string, role: Role, ex: DbExecutor = this.db): Promise<void> {
+    await ex
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.userId, userId), eq(memberships.organisationId, organisationId)));
+  }
+
+  /** One member of the organisation; `forUpdate` locks the rows until the transaction ends. */
+  async findMember(organisationId: string, userId: string, ex: DbExecutor = this.db, forUpdate = false): Promise<MemberRow | null> {
+    const query = ex
+      .select(memberColumns)
+      .from(users)
+      .innerJoin(memberships, eq(memberships.userId, users.id))
+      .where(and(eq(memberships.organisationId, organisationId), eq(users.id, userId)));
+    const [row] = forUpdate ? await query.for('update') : await query;
+    return row ?? null;
+  }
+
+  async listMembers(
+    organisationId: string,
+    page: { limit: number; offset: number; role?: Role },
+    ex: DbExecutor = this.db,
+  ): Promise<{ rows: MemberRow[]; total: number }> {
+    const where = and(eq(memberships.organisationId, organisationId), page.role ? eq(memberships.role, page.role) : undefined);
+    const rows = await ex
+      .select(memberColumns)
+      .from(users)
+      .innerJoin(memberships, eq(memberships.userId, users.id))
+      .where(where)
+      .orderBy(asc(sql`lower(${users.name})`), asc(users.email))
+      .limit(page.limit)
+      .offset(page.offset);
+    const [{ total }] = await ex.select({ total: count() }).from(memberships).where(where);
+    return { rows, total };
+  }
+
+  async insertAudit(event: AuditInsert, ex: DbExecutor = this.db): Promise<void> {
+    await ex.insert(auditEvents).values(event);
+  }
+}

@@ -1,0 +1,80 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { Member, MemberList, MemberListQuery, MemberUpdate, UserProfile, UserProfileUpdate } from '@plummet/shared';
+import type { AuthUser } from '../auth/auth.types.js';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { toMember, toUserProfile } from './users.mapper.js';
+import { UsersRepository } from './users.repository.js';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** The caller's own profile, and admins' management of their organisation's members. */
+@Injectable()
+export class UsersService {
+  constructor(
+    @Inject(DRIZZLE) private readonly db: Db,
+    private readonly users: UsersRepository,
+  ) {}
+
+  async me(caller: AuthUser): Promise<UserProfile> {
+    const row = await this.users.findProfile(caller.userId, caller.organisationId);
+    if (!row) throw AppError.notFound('User');
+    return toUserProfile(row);
+  }
+
+  async updateMe(caller: AuthUser, patch: UserProfileUpdate): Promise<UserProfile> {
+    return this.db.transaction(async (tx) => {
+      const before = await this.users.findProfile(caller.userId, caller.organisationId, tx);
+      if (!before) throw AppError.notFound('User');
+      await this.users.updateUser(caller.userId, patch, tx);
+      const after = (await this.users.findProfile(caller.userId, caller.organisationId, tx))!;
+      await this.users.insertAudit(
+        {
+          organisationId: caller.organisationId,
+          actorId: caller.userId,
+          entityType: 'user',
+          entityId: caller.userId,
+          action: 'profile-updated',
+          before: { name: before.name, position: before.position, units: before.units },
+          after: { name: after.name, position: after.position, units: after.units },
+        },
+        tx,
+      );
+      return toUserProfile(after);
+    });
+  }
+
+  async list(caller: AuthUser, query: MemberListQuery): Promise<MemberList> {
+    const { rows, total } = await this.users.listMembers(caller.organisationId, query);
+    return { items: rows.map(toMember), total, limit: query.limit, offset: query.offset };
+  }
+
+  /** Role and active flag of a member of the admin's own organisation; admins cannot lock themselves out. */
+  async updateMember(caller: AuthUser, userId: string, patch: MemberUpdate): Promise<Member> {
+    if (!UUID.test(userId)) throw AppError.notFound('User');
+    const demotesSelf = patch.role !== undefined && patch.role !== 'admin';
+    if (userId === caller.userId && (demotesSelf || patch.active === false)) {
+      throw new AppError(ErrorCode.Forbidden, 'You cannot change your own role or deactivate yourself; ask another admin');
+    }
+    return this.db.transaction(async (tx) => {
+      const before = await this.users.findMember(caller.organisationId, userId, tx, true);
+      if (!before) throw AppError.notFound('User');
+      if (patch.role !== undefined) await this.users.updateRole(userId, caller.organisationId, patch.role, tx);
+      if (patch.active !== undefined) await this.users.updateUser(userId, { active: patch.active }, tx);
+      const after = (await this.users.findMember(caller.organisationId, userId, tx))!;
+      await this.users.insertAudit(
+        {
+          organisationId: caller.organisationId,
+          actorId: caller.userId,
+          entityType: 'user',
+          entityId: userId,
+          action: 'member-updated',
+          before: { role: before.role, active: before.active },
+          after: { role: after.role, active: after.active },
+        },
+        tx,
+      );
+      return toMember(after);
+    });
+  }
+}

@@ -1,0 +1,170 @@
+/** Findings: one unsecured item or failed control, with its position, item, exposure and estimate. */
+import { z } from 'zod';
+import { ShapeSpecSchema } from '../catalogue/shape-spec.schema.js';
+import {
+  DateTimeSchema,
+  HeightMSchema,
+  IdSchema,
+  MassKgSchema,
+  NameSchema,
+  NoteSchema,
+  VersionSchema,
+} from '../common/fields.schema.js';
+import { listQueryShape, listResponseSchema, QueryBooleanSchema, queryList } from '../common/list.schema.js';
+import type { LikelihoodAnswers } from '../risk/likelihood.js';
+import { FINDING_EXPOSURES } from './finding-estimate.js';
+import { FINDING_STATES } from './finding-state.js';
+
+export const FindingStateSchema = z.enum(FINDING_STATES);
+export const FindingExposureSchema = z.enum(FINDING_EXPOSURES);
+export const RiskBandSchema = z.enum(['Low', 'Medium', 'High']);
+
+/** The inspector's answers behind the likelihood (shared/src/risk/likelihood.ts asks the questions). */
+export const LikelihoodAnswersSchema = z.object({
+  securing: z.enum(['secured', 'contained', 'loose']),
+  edgeDistance: z.enum(['at-edge', 'near-edge', 'away']),
+  activity: z.enum(['none', 'light', 'heavy']),
+  wind: z.enum(['calm', 'breezy', 'strong']),
+  footTraffic: z.enum(['none', 'occasional', 'frequent']),
+});
+// Fails to compile when the risk helper's questions and this schema drift apart.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const answersAgree: Same<z.infer<typeof LikelihoodAnswersSchema>, LikelihoodAnswers> = true;
+void answersAgree;
+
+/**
+ * The item: a catalogue entry (its name, mass and shape are copied) or a custom item with a name,
+ * mass and, when known, a shape (without one the estimate has no air drag: the worst case).
+ */
+export const FindingItemInputSchema = z
+  .object({
+    catalogueItemId: IdSchema.optional(),
+    name: NameSchema.optional(),
+    massKg: MassKgSchema.optional(),
+    shape: ShapeSpecSchema.nullable().optional(),
+  })
+  .superRefine((item, ctx) => {
+    if (item.catalogueItemId !== undefined) {
+      for (const key of ['name', 'massKg', 'shape'] as const) {
+        if (item[key] !== undefined) ctx.addIssue({ code: 'custom', path: [key], message: 'Give a catalogue item or a custom item, not both' });
+      }
+      return;
+    }
+    if (item.name === undefined) ctx.addIssue({ code: 'custom', path: ['name'], message: 'A custom item needs a name' });
+    if (item.massKg === undefined) ctx.addIssue({ code: 'custom', path: ['massKg'], message: 'A custom item needs a mass in kg' });
+  });
+export type FindingItemInput = z.infer<typeof FindingItemInputSchema>;
+
+/** The server's estimate, stored as computed (SI units). */
+export const FindingEstimateSchema = z.object({
+  terminalVelocityMps: z.number().nullable(),
+  impactVelocityMps: z.number(),
+  vacuumImpactVelocityMps: z.number(),
+  fallTimeS: z.number(),
+  riseM: z.number(),
+  impactEnergyJ: z.number(),
+  meanForceN: z.number(),
+  peakForceN: z.number(),
+  driftM: z.number(),
+  severity: z.object({ level: z.number().int(), label: z.string(), basis: z.string() }),
+  likelihood: z.object({ level: z.number().int(), label: z.string(), reasons: z.array(z.string()) }),
+  resolved: z.record(z.string(), z.unknown()),
+});
+
+export const FindingSchema = z.object({
+  id: IdSchema,
+  inspectionId: IdSchema.nullable(),
+  scaffoldId: IdSchema,
+  elevation: z.string(),
+  lift: z.number().int(),
+  bay: z.number().int(),
+  heightM: z.number(),
+  item: z.object({
+    catalogueItemId: IdSchema.nullable(),
+    name: z.string(),
+    massKg: z.number(),
+    shape: ShapeSpecSchema.nullable(),
+  }),
+  exposure: FindingExposureSchema,
+  likelihoodAnswers: LikelihoodAnswersSchema,
+  likelihood: z.number().int(),
+  estimate: FindingEstimateSchema,
+  severity: z.number().int(),
+  riskScore: z.number().int(),
+  riskBand: RiskBandSchema,
+  state: FindingStateSchema,
+  assigneeId: IdSchema.nullable(),
+  dueAt: DateTimeSchema.nullable(),
+  /** Open or made safe, and past its due time. */
+  overdue: z.boolean(),
+  notes: z.string(),
+  madeSafeNote: z.string().nullable(),
+  createdBy: IdSchema,
+  createdAt: DateTimeSchema,
+  updatedAt: DateTimeSchema,
+  version: z.number().int(),
+});
+export type Finding = z.infer<typeof FindingSchema>;
+
+const findingFields = {
+  elevation: z.string().trim().min(1).max(50),
+  lift: z.number().int().min(1).max(100),
+  bay: z.number().int().min(1).max(200),
+  /** From the item down to the level where someone could be struck, m. */
+  heightM: HeightMSchema,
+  item: FindingItemInputSchema,
+  exposure: FindingExposureSchema,
+  likelihoodAnswers: LikelihoodAnswersSchema,
+  notes: NoteSchema,
+};
+
+/**
+ * Recorded on the phone with an id of its own: sending the same body again is harmless. Estimate
+ * fields a client sends (estimate, severity, riskScore…) are not part of the shape and are dropped.
+ */
+export const FindingCreateSchema = z.object({
+  id: IdSchema,
+  scaffoldId: IdSchema,
+  inspectionId: IdSchema.nullable().default(null),
+  ...findingFields,
+  notes: findingFields.notes.default(''),
+});
+export type FindingCreate = z.infer<typeof FindingCreateSchema>;
+
+export const FindingUpdateSchema = z
+  .object({ ...z.object(findingFields).partial().shape, version: VersionSchema.optional() })
+  .refine((v) => Object.keys(v).some((k) => k !== 'version'), 'Nothing to change');
+export type FindingUpdate = z.infer<typeof FindingUpdateSchema>;
+
+export const FindingStateChangeSchema = z.object({
+  to: FindingStateSchema,
+  note: NoteSchema.default(''),
+  /**
+   * Id for the fix or verification this change records, made on the phone so a proof photo can be
+   * attached to it offline (photos with owner `fix` or `verification`); the server makes one if absent.
+   */
+  recordId: IdSchema.optional(),
+});
+export type FindingStateChange = z.infer<typeof FindingStateChangeSchema>;
+
+/** Hands a finding to a foreman of the organisation (or takes it back with null), with a due time. */
+export const FindingAssignSchema = z.object({
+  assigneeId: IdSchema.nullable(),
+  dueAt: DateTimeSchema.nullable().default(null),
+});
+export type FindingAssign = z.infer<typeof FindingAssignSchema>;
+
+export const FindingListQuerySchema = z.object({
+  ...listQueryShape(['riskScore', 'dueAt', 'createdAt', 'updatedAt', 'heightM'], 'riskScore', 'desc'),
+  siteId: IdSchema.optional(),
+  scaffoldId: IdSchema.optional(),
+  inspectionId: IdSchema.optional(),
+  state: queryList(FindingStateSchema).optional(),
+  riskBand: queryList(RiskBandSchema).optional(),
+  assigneeId: IdSchema.optional(),
+  /** Open or made safe and past the due time. */
+  overdue: QueryBooleanSchema.optional(),
+});
+export type FindingListQuery = z.infer<typeof FindingListQuerySchema>;
+
+export const FindingListResponseSchema = listResponseSchema(FindingSchema);

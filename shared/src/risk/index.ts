@@ -1,0 +1,4 @@
+export * from './severity-table.js';
+export * from './severity.js';
+export * from './risk-score.js';
+export * from './likelihood.js';
