@@ -36,6 +36,8 @@ export interface ApiRequest {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   body?: unknown;
   signal?: AbortSignal;
+  /** Sent as `Authorization: Bearer …` (src/api/authorised-fetch.ts supplies it). */
+  accessToken?: string;
 }
 
 type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
@@ -46,7 +48,11 @@ export async function apiFetch<T>(path: string, request: ApiRequest = {}, fetchI
   try {
     response = await fetchImpl(`/api${path}`, {
       method: request.method ?? (request.body === undefined ? 'GET' : 'POST'),
-      headers: { Accept: 'application/json', ...(request.body === undefined ? {} : { 'Content-Type': 'application/json' }) },
+      headers: {
+        Accept: 'application/json',
+        ...(request.body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...(request.accessToken ? { Authorization: `Bearer ${request.accessToken}` } : {}),
+      },
       body: request.body === undefined ? undefined : JSON.stringify(request.body),
       credentials: 'same-origin',
       signal: request.signal,

@@ -2,8 +2,19 @@ import { IonApp, IonRouterOutlet } from '@ionic/react';
 import { IonReactRouter } from '@ionic/react-router';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { Navigate, Route, Routes } from 'react-router-dom';
-import { SignInPage } from '../features/auth/pages/SignInPage';
-import { HomePage } from '../features/home/pages/HomePage';
+import {
+  CalculatorPage,
+  FindingEditorPage,
+  FindingListPage,
+  HomePage,
+  InspectionFinishPage,
+  InspectionPage,
+  Lazy,
+  ScaffoldPage,
+  SettingsPage,
+  SignInPage,
+  SitePage,
+} from './lazy-pages';
 import { MutationErrorToasts } from './MutationErrorToasts';
 import { queryClient } from './query-client';
 import { ReloadPrompt } from './ReloadPrompt';
@@ -15,8 +26,17 @@ export function App() {
         <IonReactRouter>
           <IonRouterOutlet>
             <Routes>
-              <Route path="/" element={<HomePage />} />
-              <Route path="/sign-in" element={<SignInPage />} />
+              <Route path="/" element={<Lazy page={HomePage} />} />
+              <Route path="/sign-in" element={<Lazy page={SignInPage} />} />
+              <Route path="/sites/:siteId" element={<Lazy page={SitePage} />} />
+              <Route path="/sites/:siteId/findings" element={<Lazy page={FindingListPage} />} />
+              <Route path="/scaffolds/:scaffoldId" element={<Lazy page={ScaffoldPage} />} />
+              <Route path="/inspections/:inspectionId" element={<Lazy page={InspectionPage} />} />
+              <Route path="/inspections/:inspectionId/finish" element={<Lazy page={InspectionFinishPage} />} />
+              <Route path="/inspections/:inspectionId/findings/new" element={<Lazy page={FindingEditorPage} />} />
+              <Route path="/findings/:findingId" element={<Lazy page={FindingEditorPage} />} />
+              <Route path="/calculator" element={<Lazy page={CalculatorPage} />} />
+              <Route path="/settings" element={<Lazy page={SettingsPage} />} />
               <Route path="*" element={<Navigate to="/" replace />} />
             </Routes>
           </IonRouterOutlet>

@@ -1,7 +1,8 @@
 import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
 import { PlummetDb, readMeta, writeMeta } from './db';
-import type { FindingRecord } from './records';
+import type { OutboxEntry } from './records';
+import { sampleFinding } from './testing';
 
 const openDbs: PlummetDb[] = [];
 
@@ -15,16 +16,31 @@ afterEach(async () => {
   await Promise.all(openDbs.splice(0).map((database) => database.delete()));
 });
 
-const finding: FindingRecord = {
-  id: 'f-1',
-  organisationId: 'org-1',
-  siteId: 'site-1',
-  scaffoldId: 'scaffold-1',
-  inspectionId: 'inspection-1',
-  state: 'open',
-  riskScore: 12,
-  updatedAt: '2026-03-01T08:30:00.000Z',
-};
+const finding = sampleFinding({ id: 'f-1', scaffoldId: 'scaffold-1', state: 'open' });
+
+const outboxEntry = (): OutboxEntry => ({
+  entity: 'finding',
+  action: 'state',
+  entityId: 'f-1',
+  op: 'put',
+  payload: { to: 'made-safe', note: '' },
+  createdAt: finding.updatedAt,
+  attempts: 0,
+});
+
+function catalogueItem(id: string, name: string) {
+  return {
+    id,
+    name,
+    massKg: 1,
+    shape: { kind: 'sphere' as const, diameterM: 0.1 },
+    source: 'test',
+    builtIn: true,
+    createdAt: finding.createdAt,
+    updatedAt: finding.createdAt,
+    version: 1,
+  };
+}
 
 describe('PlummetDb', () => {
   it('opens at version 1 with every table the app needs', async () => {
@@ -59,8 +75,8 @@ describe('PlummetDb', () => {
     const database = freshDb();
     await database.transaction('rw', database.findings, database.outbox, async () => {
       await database.findings.put(finding);
-      await database.outbox.add({ entity: 'finding', entityId: 'f-1', op: 'put', createdAt: finding.updatedAt, attempts: 0 });
-      await database.outbox.add({ entity: 'finding', entityId: 'f-1', op: 'put', createdAt: finding.updatedAt, attempts: 0 });
+      await database.outbox.add(outboxEntry());
+      await database.outbox.add(outboxEntry());
     });
 
     const entries = await database.outbox.orderBy('id').toArray();
@@ -72,7 +88,7 @@ describe('PlummetDb', () => {
     const database = freshDb();
     const failing = database.transaction('rw', database.findings, database.outbox, async () => {
       await database.findings.put(finding);
-      await database.outbox.add({ entity: 'finding', entityId: 'f-1', op: 'put', createdAt: finding.updatedAt, attempts: 0 });
+      await database.outbox.add(outboxEntry());
       throw new Error('disk full');
     });
 
@@ -91,8 +107,8 @@ describe('PlummetDb', () => {
   it('finds catalogue items by any word of their name', async () => {
     const database = freshDb();
     await database.catalogue.bulkPut([
-      { id: 'c-1', name: 'Scaffold clip (double coupler)', category: 'fittings', words: ['scaffold', 'clip', 'double', 'coupler'] },
-      { id: 'c-2', name: 'Claw hammer', category: 'tools', words: ['claw', 'hammer'] },
+      { ...catalogueItem('c-1', 'Scaffold clip (double coupler)'), category: 'fitting', words: ['scaffold', 'clip', 'double', 'coupler'] },
+      { ...catalogueItem('c-2', 'Claw hammer'), category: 'hand-tool', words: ['claw', 'hammer'] },
     ]);
     const hits = await database.catalogue.where('words').startsWith('coup').toArray();
     expect(hits.map((item) => item.id)).toEqual(['c-1']);

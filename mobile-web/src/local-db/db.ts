@@ -53,6 +53,29 @@ export class PlummetDb extends Dexie {
 /** The app's one database instance; Dexie opens it on first use. */
 export const db = new PlummetDb();
 
+/** Every table that holds the signed-in user's data (all of them: sign-out clears the phone). */
+export function userDataTables(database: PlummetDb) {
+  return [
+    database.sites,
+    database.scaffolds,
+    database.inspections,
+    database.findings,
+    database.controlChecks,
+    database.photos,
+    database.catalogue,
+    database.outbox,
+    database.meta,
+  ];
+}
+
+/** Empties every table in one transaction (sign-out). The schema stays, so the app keeps working. */
+export async function clearLocalData(database: PlummetDb): Promise<void> {
+  const tables = userDataTables(database);
+  await database.transaction('rw', tables, async () => {
+    await Promise.all(tables.map((table) => table.clear()));
+  });
+}
+
 /** Reads a key-value setting (e.g. units, last sync time) from the meta table. */
 export async function readMeta<T>(database: PlummetDb, key: string): Promise<T | undefined> {
   const entry = await database.meta.get(key);

@@ -1,8 +1,25 @@
 /**
- * What the phone keeps in IndexedDB. Only the fields the database indexes, or that every record
- * needs, are typed here; each feature narrows its records with the zod schemas from
- * @plummet/shared and validates what it reads back (STYLE habit 7).
+ * What the phone keeps in IndexedDB. Records are the API shapes of @plummet/shared plus the few
+ * fields the phone needs (organisation, site, local state). Values are SI, as on the server.
+ * Whatever is read back is validated by the feature that reads it (STYLE habit 7, see restore.ts).
  */
+import type {
+  CatalogueItem,
+  ControlCheck,
+  Finding,
+  FindingCreate,
+  FindingStateChange,
+  FindingUpdate,
+  Inspection,
+  InspectionCreate,
+  InspectionFinish,
+  InspectionUpdate,
+  PhotoOwnerType,
+  Scaffold,
+  Site,
+  UserProfileUpdate,
+  ControlCheckPut,
+} from '@plummet/shared';
 
 /** ISO 8601 date-time string, e.g. 2026-03-01T08:30:00.000Z. */
 export type IsoDateTime = string;
@@ -14,77 +31,79 @@ export interface SyncedRecord {
   updatedAt: IsoDateTime;
 }
 
-export interface SiteRecord extends SyncedRecord {
-  name: string;
+export interface SiteRecord extends Site, SyncedRecord {
   /** True when the inspector chose "make available offline" for this site. */
   offline?: boolean;
+  /** When its scaffolds, open findings and the catalogue were last downloaded. */
+  downloadedAt?: IsoDateTime;
 }
 
-export interface ScaffoldRecord extends SyncedRecord {
+export type ScaffoldRecord = Scaffold & SyncedRecord;
+
+export interface InspectionRecord extends Inspection, SyncedRecord {
   siteId: string;
-  name: string;
+  status: 'in-progress' | 'finished';
 }
 
-export interface InspectionRecord extends SyncedRecord {
+export type FindingState = Finding['state'];
+
+/** A finding as the server shapes it; estimate fields are computed on the phone with the same shared code. */
+export interface FindingRecord extends Finding, SyncedRecord {
   siteId: string;
-  scaffoldId: string;
-  status: 'in-progress' | 'finished' | 'signed';
-  startedAt: IsoDateTime;
 }
 
-export type FindingState = 'open' | 'made-safe' | 'fixed' | 'verified';
+export type ControlOutcome = ControlCheck['result'];
 
-export interface FindingRecord extends SyncedRecord {
-  siteId: string;
-  scaffoldId: string;
-  inspectionId: string;
-  state: FindingState;
-  /** Severity × likelihood, 1–25 (BRIEF, risk score). */
-  riskScore?: number;
-  dueAt?: IsoDateTime;
-}
-
-export type ControlOutcome = 'pass' | 'fail' | 'not-applicable';
-
-export interface ControlCheckRecord extends SyncedRecord {
-  inspectionId: string;
-  /** Which falling-object control, e.g. 'toe-boards', 'brick-guards'. */
-  control: string;
-  outcome?: ControlOutcome;
-}
+export type ControlCheckRecord = ControlCheck & SyncedRecord;
 
 export interface PhotoRecord {
   id: string;
-  ownerType: 'finding' | 'control-check' | 'fix-proof';
+  ownerType: PhotoOwnerType;
   ownerId: string;
   mimeType: string;
   /** Some browsers refuse Blobs in IndexedDB; those get the bytes as an ArrayBuffer. */
   data: Blob | ArrayBuffer;
+  /** Bytes of the stored (compressed) image. */
+  sizeBytes: number;
+  width: number;
+  height: number;
   createdAt: IsoDateTime;
   /** Set once the upload has reached the server. */
   uploadedAt?: IsoDateTime;
 }
 
-export interface CatalogueItemRecord {
-  id: string;
-  name: string;
-  category: string;
+export interface CatalogueItemRecord extends CatalogueItem {
   /** Lower-case words of the name, for prefix search (a multi-entry index). */
   words: string[];
 }
 
-export type OutboxEntity = 'site' | 'scaffold' | 'inspection' | 'finding' | 'control-check' | 'photo';
+export type OutboxEntity = 'site' | 'scaffold' | 'inspection' | 'finding' | 'control-check' | 'photo' | 'user';
 
-export interface OutboxEntry {
+/**
+ * Each change the server must hear about, with the body the sync will send. `entityId` is the
+ * record the change is about (for a control check: its inspection, as the route has it).
+ */
+export type OutboxChange =
+  | { entity: 'inspection'; action: 'create'; payload: InspectionCreate }
+  | { entity: 'inspection'; action: 'update'; payload: InspectionUpdate }
+  | { entity: 'inspection'; action: 'finish'; payload: InspectionFinish }
+  | { entity: 'control-check'; action: 'put'; payload: ControlCheckPut & { inspectionId: string; control: ControlCheck['control'] } }
+  | { entity: 'finding'; action: 'create'; payload: FindingCreate }
+  | { entity: 'finding'; action: 'update'; payload: FindingUpdate }
+  | { entity: 'finding'; action: 'state'; payload: FindingStateChange }
+  | { entity: 'photo'; action: 'upload'; payload: { id: string; ownerType: PhotoOwnerType; ownerId: string; takenAt?: IsoDateTime } }
+  | { entity: 'user'; action: 'update'; payload: UserProfileUpdate };
+
+export type OutboxAction = OutboxChange['action'];
+
+export type OutboxEntry = OutboxChange & {
   /** Auto-incremented by IndexedDB, so entries replay in the order they were made. */
   id?: number;
-  entity: OutboxEntity;
   entityId: string;
   op: 'put' | 'delete';
-  payload?: unknown;
   createdAt: IsoDateTime;
   attempts: number;
-}
+};
 
 export interface MetaEntry<T = unknown> {
   key: string;

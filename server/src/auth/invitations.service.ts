@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { InvitationAccept, InvitationCreate, Member, Session } from '@plummet/shared';
-import type { AuthUser } from '../auth/auth.types.js';
+import type { AuthUser } from './auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
@@ -9,7 +9,7 @@ import { toMember } from '../users/users.mapper.js';
 import { UsersRepository } from '../users/users.repository.js';
 import { invitationMail, publicLink } from './auth.mails.js';
 import { EmailTokensRepository } from './email-tokens.repository.js';
-import { newOpaqueToken, hashOpaqueToken } from './opaque-token.js';
+import { hashOpaqueToken, newOpaqueToken } from './opaque-token.js';
 import { PasswordHasher } from './password-hasher.js';
 import { SessionsService } from './sessions.service.js';
 

@@ -7,11 +7,12 @@
  */
 import { BUILTIN_ITEMS } from '@plummet/shared';
 import { sql } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import { catalogueItems } from '../db/schema/index.js';
 
+/** Takes a database or a transaction (the seed runs it inside its own). */
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
-export async function upsertBuiltinCatalogue(db: NodePgDatabase<any>): Promise<number> {
+export async function upsertBuiltinCatalogue(db: PgDatabase<PgQueryResultHKT, any, any>): Promise<number> {
   const rows = BUILTIN_ITEMS.map((item) => ({ ...item, organisationId: null }));
   await db
     .insert(catalogueItems)

@@ -20,6 +20,13 @@ export function inScope(user: AuthUser, scoped: FindingWithScope): boolean {
 
 const f4 = Math.fround;
 
+/** JSON with sorted keys: jsonb does not keep the key order a client sent. */
+function canonical(value: unknown): string {
+  return JSON.stringify(value, (_key, v: unknown) =>
+    v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => a.localeCompare(b))) : v,
+  );
+}
+
 /** A repeated create with the body the finding was made from (then it is a retry, not a conflict). */
 function sameCreate(row: FindingRow, input: FindingCreate): boolean {
   const item = input.item.catalogueItemId !== undefined
@@ -27,7 +34,7 @@ function sameCreate(row: FindingRow, input: FindingCreate): boolean {
     : row.catalogueItemId === null &&
       row.itemName === input.item.name &&
       f4(row.massKg) === f4(input.item.massKg!) &&
-      JSON.stringify(row.shape ?? null) === JSON.stringify(input.item.shape ?? null);
+      canonical(row.shape ?? null) === canonical(input.item.shape ?? null);
   return (
     item &&
     row.scaffoldId === input.scaffoldId &&
@@ -37,7 +44,7 @@ function sameCreate(row: FindingRow, input: FindingCreate): boolean {
     row.bay === input.bay &&
     f4(row.heightM) === f4(input.heightM) &&
     row.exposure === input.exposure &&
-    JSON.stringify(row.likelihoodAnswers) === JSON.stringify(input.likelihoodAnswers) &&
+    canonical(row.likelihoodAnswers) === canonical(input.likelihoodAnswers) &&
     row.notes === input.notes
   );
 }

@@ -1,7 +1,7 @@
 import { open, readdir, readFile, stat } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { Inject, Injectable } from '@nestjs/common';
-import type { MailList, MailListQuery, MailMessage } from '@plummet/shared';
+import { decodeCursor, encodeCursor, type MailListQuery, type MailListResponse, type MailMessage } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { parseEmlHeaders } from './eml-headers.js';
@@ -31,24 +31,41 @@ export class MailBoxService {
     return resolve(this.config.MAIL_DIR);
   }
 
-  /** Newest first (by file time, then name). */
-  async list(query: MailListQuery): Promise<MailList> {
+  /** Newest first (by file time, then name); the cursor is the last (time, name) of the previous page. */
+  async list(query: MailListQuery): Promise<MailListResponse> {
     const dir = this.folder();
+    let after: { mtime: number; name: string } | null = null;
+    if (query.cursor !== undefined) {
+      const position = decodeCursor(query.cursor, 'date', 'desc');
+      if (!position || typeof position.value !== 'number') {
+        throw new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [
+          { path: ['cursor'], code: 'invalid_cursor', message: 'Not a cursor of this list' },
+        ]);
+      }
+      after = { mtime: position.value, name: position.id };
+    }
     let names: string[];
     try {
       names = (await readdir(dir)).filter((n) => MAIL_NAME.test(n));
     } catch (error) {
-      if (isMissing(error)) return { items: [], total: 0, limit: query.limit, offset: query.offset };
+      if (isMissing(error)) return { items: [], nextCursor: null };
       throw error;
     }
     const dated = await Promise.all(
       names.map(async (name) => ({ name, mtime: await stat(join(dir, name)).then((s) => s.mtimeMs, () => null) })),
     );
-    const present = dated.filter((f): f is { name: string; mtime: number } => f.mtime !== null);
-    present.sort((a, b) => b.mtime - a.mtime || b.name.localeCompare(a.name));
-    const page = present.slice(query.offset, query.offset + query.limit);
+    const newestFirst = (a: { mtime: number; name: string }, b: { mtime: number; name: string }) =>
+      b.mtime - a.mtime || (a.name < b.name ? 1 : a.name > b.name ? -1 : 0);
+    const files = dated
+      .filter((f): f is { name: string; mtime: number } => f.mtime !== null)
+      .sort(newestFirst)
+      .filter((f) => !after || newestFirst(after, f) < 0);
+    const page = files.slice(0, query.limit);
     const items = await Promise.all(page.map((f) => this.summary(dir, f.name)));
-    return { items, total: present.length, limit: query.limit, offset: query.offset };
+    const last = page[page.length - 1];
+    const nextCursor =
+      files.length > query.limit && last ? encodeCursor({ sort: 'date', order: 'desc', value: last.mtime, id: last.name }) : null;
+    return { items, nextCursor };
   }
 
   /** The raw message text; 400 for a name that is not a plain `.eml` file name, 404 when absent. */

@@ -1,9 +1,10 @@
-import { Controller, Get, Header, Param, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { MailList } from '@plummet/shared';
+import { Controller, Get, Param, Query, Res } from '@nestjs/common';
+import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { MailListResponse } from '@plummet/shared';
 import { Roles } from '../auth/auth.decorators.js';
 import { MailBoxService } from './mail-box.service.js';
-import { MailListDto, MailListQueryDto } from './mail.dto.js';
+import { MailListResponseDto, MailListQueryDto } from './mail.dto.js';
 
 /**
  * Development aid for admins: browse what the local SMTP fake captured in MAIL_DIR (invitations,
@@ -17,14 +18,17 @@ export class MailController {
   constructor(private readonly mailBox: MailBoxService) {}
 
   @Get()
-  @ApiOkResponse({ type: MailListDto.Output })
-  list(@Query() query: MailListQueryDto): Promise<MailList> {
+  @ApiOkResponse({ type: MailListResponseDto.Output })
+  list(@Query() query: MailListQueryDto): Promise<MailListResponse> {
     return this.mailBox.list(query);
   }
 
   @Get(':name')
-  @Header('Content-Type', 'text/plain; charset=utf-8')
-  read(@Param('name') name: string): Promise<string> {
-    return this.mailBox.read(name);
+  @ApiProduces('text/plain')
+  async read(@Param('name') name: string, @Res({ passthrough: true }) res: Response): Promise<string> {
+    const raw = await this.mailBox.read(name);
+    // Set only on success: errors keep the JSON body type.
+    res.type('text/plain; charset=utf-8');
+    return raw;
   }
 }

@@ -1,5 +1,5 @@
-import { MailListQuerySchema, MailListSchema } from '@plummet/shared';
+import { MailListQuerySchema, MailListResponseSchema } from '@plummet/shared';
 import { createZodDto } from 'nestjs-zod';
 
 export class MailListQueryDto extends createZodDto(MailListQuerySchema) {}
-export class MailListDto extends createZodDto(MailListSchema) {}
+export class MailListResponseDto extends createZodDto(MailListResponseSchema) {}

@@ -201,6 +201,12 @@ describe('photo uploads against the real PostgreSQL and the object-storage fake'
     expect((await getWithToken(t.baseUrl, inspector, '/api/photos/not-a-uuid')).status).toBe(400);
   });
 
+  it('describes the photo routes in the OpenAPI document', async () => {
+    const doc = await json(await fetch(`${t.baseUrl}/api/docs/openapi.json`));
+    expect(Object.keys(doc.paths)).toEqual(expect.arrayContaining(['/api/photos', '/api/photos/{id}', '/api/photos/{id}/thumbnail']));
+    expect(Object.keys(doc.paths['/api/photos'].post.requestBody.content)).toEqual(['multipart/form-data']);
+  });
+
   it('answers 401 without a token', async () => {
     const res = await fetch(`${t.baseUrl}/api/photos`, { method: 'POST', body: photoForm({ id: randomUUID() }) });
     expect(res.status).toBe(401);

@@ -2,7 +2,9 @@ import argon2 from 'argon2';
 import { sql } from 'drizzle-orm';
 import type { Db } from '../db/db.tokens.js';
 import { memberships, organisations, users } from '../db/schema/index.js';
+import { upsertBuiltinCatalogue } from '../catalogue/catalogue-builtins.js';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_USERS } from './demo-data.js';
+import { seedDemoRecords } from './seed-demo-records.js';
 
 /** Idempotent: running it again leaves one copy of everything and keeps other data. */
 export async function seedDemo(db: Db): Promise<{ users: number }> {
@@ -20,17 +22,21 @@ export async function seedDemo(db: Db): Promise<{ users: number }> {
         .returning({ id: organisations.id });
       orgIds.set(org.slug, row.id);
     }
+    const userIds = new Map<string, string>();
     for (const u of DEMO_USERS) {
       const [row] = await tx
         .insert(users)
         .values({ email: u.email, name: u.name, position: u.position, passwordHash })
         .onConflictDoUpdate({ target: users.email, set: { name: u.name, position: u.position, active: true } })
         .returning({ id: users.id });
+      userIds.set(u.email, row.id);
       await tx
         .insert(memberships)
         .values({ userId: row.id, organisationId: orgIds.get(u.org)!, role: u.role })
         .onConflictDoUpdate({ target: [memberships.userId, memberships.organisationId], set: { role: u.role } });
     }
+    await upsertBuiltinCatalogue(tx);
+    await seedDemoRecords(tx, { orgIds, userIds });
   });
   return { users: DEMO_USERS.length };
 }

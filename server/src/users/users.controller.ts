@@ -1,9 +1,9 @@
 import { Body, Controller, Get, Param, Patch, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { Member, MemberList, UserProfile } from '@plummet/shared';
+import type { Member, MemberListResponse, UserProfile } from '@plummet/shared';
 import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
-import { MemberDto, MemberListDto, MemberListQueryDto, MemberUpdateDto, UserProfileDto, UserProfileUpdateDto } from './users.dto.js';
+import { MemberDto, MemberListResponseDto, MemberListQueryDto, MemberUpdateDto, UserProfileDto, UserProfileUpdateDto } from './users.dto.js';
 import { UsersService } from './users.service.js';
 
 @ApiTags('users')
@@ -27,8 +27,8 @@ export class UsersController {
 
   @Get()
   @Roles('admin')
-  @ApiOkResponse({ type: MemberListDto.Output })
-  list(@CurrentUser() caller: AuthUser, @Query() query: MemberListQueryDto): Promise<MemberList> {
+  @ApiOkResponse({ type: MemberListResponseDto.Output })
+  list(@CurrentUser() caller: AuthUser, @Query() query: MemberListQueryDto): Promise<MemberListResponse> {
     return this.users.list(caller, query);
   }
 

@@ -1,9 +1,9 @@
-import { MemberListQuerySchema, MemberListSchema, MemberSchema, MemberUpdateSchema, UserProfileSchema, UserProfileUpdateSchema } from '@plummet/shared';
+import { MemberListQuerySchema, MemberListResponseSchema, MemberSchema, MemberUpdateSchema, UserProfileSchema, UserProfileUpdateSchema } from '@plummet/shared';
 import { createZodDto } from 'nestjs-zod';
 
 export class UserProfileDto extends createZodDto(UserProfileSchema) {}
 export class UserProfileUpdateDto extends createZodDto(UserProfileUpdateSchema) {}
 export class MemberDto extends createZodDto(MemberSchema) {}
-export class MemberListDto extends createZodDto(MemberListSchema) {}
+export class MemberListResponseDto extends createZodDto(MemberListResponseSchema) {}
 export class MemberListQueryDto extends createZodDto(MemberListQuerySchema) {}
 export class MemberUpdateDto extends createZodDto(MemberUpdateSchema) {}

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { Role } from '@plummet/shared';
-import { and, asc, count, eq, sql } from 'drizzle-orm';
+import type { MemberListQuery, Role } from '@plummet/shared';
+import { and, asc, eq, sql } from 'drizzle-orm';
+import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { auditEvents, memberships, organisations, users } from '../db/schema/index.js';
 
@@ -127,22 +128,22 @@ export class UsersRepository {
     return row ?? null;
   }
 
-  async listMembers(
-    organisationId: string,
-    page: { limit: number; offset: number; role?: Role },
-    ex: DbExecutor = this.db,
-  ): Promise<{ rows: MemberRow[]; total: number }> {
-    const where = and(eq(memberships.organisationId, organisationId), page.role ? eq(memberships.role, page.role) : undefined);
-    const rows = await ex
-      .select(memberColumns)
+  /** One keyset page (see common/keyset.ts), fetched one row long to know whether more follow. */
+  async listMembers(organisationId: string, query: MemberListQuery, ex: DbExecutor = this.db): Promise<(MemberRow & { sortKey: string })[]> {
+    const key: SortKey =
+      query.sort === 'email'
+        ? { expr: users.email, cast: 'text' }
+        : query.sort === 'createdAt'
+          ? { expr: memberships.createdAt, cast: 'timestamptz' }
+          : { expr: users.name, cast: 'text' };
+    const page = keyset(key, users.id, query);
+    return ex
+      .select({ ...memberColumns, sortKey: page.sortKey })
       .from(users)
       .innerJoin(memberships, eq(memberships.userId, users.id))
-      .where(where)
-      .orderBy(asc(sql`lower(${users.name})`), asc(users.email))
-      .limit(page.limit)
-      .offset(page.offset);
-    const [{ total }] = await ex.select({ total: count() }).from(memberships).where(where);
-    return { rows, total };
+      .where(and(eq(memberships.organisationId, organisationId), query.role ? eq(memberships.role, query.role) : undefined, page.after))
+      .orderBy(...page.orderBy)
+      .limit(page.fetch);
   }
 
   async insertAudit(event: AuditInsert, ex: DbExecutor = this.db): Promise<void> {

@@ -1,7 +1,8 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { Member, MemberList, MemberListQuery, MemberUpdate, UserProfile, UserProfileUpdate } from '@plummet/shared';
+import type { Member, MemberListQuery, MemberListResponse, MemberUpdate, UserProfile, UserProfileUpdate } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
 import { toMember, toUserProfile } from './users.mapper.js';
 import { UsersRepository } from './users.repository.js';
@@ -44,9 +45,9 @@ export class UsersService {
     });
   }
 
-  async list(caller: AuthUser, query: MemberListQuery): Promise<MemberList> {
-    const { rows, total } = await this.users.listMembers(caller.organisationId, query);
-    return { items: rows.map(toMember), total, limit: query.limit, offset: query.offset };
+  async list(caller: AuthUser, query: MemberListQuery): Promise<MemberListResponse> {
+    const rows = await this.users.listMembers(caller.organisationId, query);
+    return toPage(rows, query, toMember);
   }
 
   /** Role and active flag of a member of the admin's own organisation; admins cannot lock themselves out. */

@@ -33,6 +33,14 @@ describe('assessDrop', () => {
     expect(windy.driftM).toBeLessThan(10 * 20); // slower than the wind for less than the time of a slow fall
   });
 
+  it('reports the ground speed in the wind beside the still-air speed', () => {
+    const calm = assessDrop({ massKg: 0.05, heightM: 20, dragAreaM2: 0.01 });
+    expect(calm.windImpactVelocityMps).toBe(calm.impactVelocityMps);
+    const windy = assessDrop({ massKg: 0.05, heightM: 20, dragAreaM2: 0.01, windSpeedMps: 15 });
+    expect(windy.windImpactVelocityMps).toBeGreaterThan(windy.impactVelocityMps); // a light item is carried sideways near the wind speed
+    expect(windy.windImpactVelocityMps).toBeLessThan(Math.hypot(15, windy.terminalVelocityMps)); // never faster than the wind plus terminal fall
+  });
+
   it('makes the still-air results independent of the wind', () => {
     const calm = assessDrop({ massKg: 0.2, heightM: 20, dragAreaM2: 0.01 });
     const windy = assessDrop({ massKg: 0.2, heightM: 20, dragAreaM2: 0.01, windSpeedMps: 10 });

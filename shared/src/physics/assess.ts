@@ -37,6 +37,7 @@ function defaultsFor(mask: number): readonly string[] {
   return names;
 }
 
+const HALF_SINE_FACTOR = PULSE_FACTORS['half-sine'];
 const scratch: StillAirFall = { speedMps: 0, timeS: 0, riseM: 0 };
 
 /** Throws DropInputError (every issue, the first named in `field`) when the input is invalid. */
@@ -107,17 +108,27 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
     if (contact != null) mask |= 128;
   }
   const meanForce = meanImpactForce(mass, speed, energy, durationS, stoppingDistanceM);
-  const peakForce = meanForce * PULSE_FACTORS[pulse];
-  const drift = wind > 0 && vt < Infinity ? integrateDrift(height, v0, vt, g, wind, fallTime).driftM : 0;
+  const peakForce = meanForce * (pulse === 'half-sine' ? HALF_SINE_FACTOR : PULSE_FACTORS[pulse]);
+  let drift = 0;
+  let windSpeed = speed;
+  if (wind > 0 && vt < Infinity) {
+    const carried = integrateDrift(height, v0, vt, g, wind, fallTime);
+    drift = carried.driftM;
+    windSpeed = Math.hypot(carried.horizontalSpeedMps, carried.verticalSpeedMps);
+  }
 
   const vacuumSpeed = Math.sqrt(v0 * v0 + 2 * g * height);
-  assertFiniteResult(vacuumSpeed, 'vacuumImpactVelocityMps');
-  assertFiniteResult(speed, 'impactVelocityMps');
-  assertFiniteResult(fallTime, 'fallTimeS');
-  assertFiniteResult(energy, 'impactEnergyJ');
-  assertFiniteResult(meanForce, 'meanForceN');
-  assertFiniteResult(peakForce, 'peakForceN');
-  assertFiniteResult(drift, 'driftM');
+  // One check on the sum covers the usual case (a NaN or infinity anywhere makes it non-finite).
+  if (!Number.isFinite(vacuumSpeed + speed + fallTime + energy + meanForce + peakForce + drift + windSpeed)) {
+    assertFiniteResult(vacuumSpeed, 'vacuumImpactVelocityMps');
+    assertFiniteResult(speed, 'impactVelocityMps');
+    assertFiniteResult(fallTime, 'fallTimeS');
+    assertFiniteResult(energy, 'impactEnergyJ');
+    assertFiniteResult(meanForce, 'meanForceN');
+    assertFiniteResult(peakForce, 'peakForceN');
+    assertFiniteResult(drift, 'driftM');
+    assertFiniteResult(windSpeed, 'windImpactVelocityMps');
+  }
 
   return {
     terminalVelocityMps: vt,
@@ -129,6 +140,7 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
     meanForceN: meanForce,
     peakForceN: peakForce,
     driftM: drift,
+    windImpactVelocityMps: windSpeed,
     severity: rateSeverity(energy, peakForce, exposure, options?.severityTable),
     resolved: {
       massKg: mass,

@@ -47,7 +47,7 @@ describe('dragAreaFromShape', () => {
     const flat = dragBreakdown({ kind: 'cylinder', lengthM: 0.5, diameterM: 0.1, orientation: 'flat' });
     expect(flat.principal[0]!.name).toBe('broadside');
     expect(flat.principal[0]!.cd).toBeCloseTo(0.74, 12); // Matthews Fig. 5.13(b): l/d = 5 broadside
-    expect(flat.dragAreaM2).toBeCloseTo(0.74 * 0.05, 12);
+    expect(flat.dragAreaM2).toBeCloseTo(0.74 * 0.05, 12); // Cd 0.74 (Matthews) on l·d = 0.05 m²
   });
 
   it('averages a tumbling cylinder over its three principal axes (broadside twice, end-on once)', () => {
@@ -61,7 +61,7 @@ describe('dragAreaFromShape', () => {
   it('lays a plate flat on its largest face with the plate Cd and falls end-first in the worst case', () => {
     const plate: ShapeSpec = { kind: 'plate', lengthM: 0.6, widthM: 0.6, thicknessM: 0.01 };
     const flat = dragBreakdown({ ...plate, orientation: 'flat' });
-    expect(flat.principal[0]!.frontalAreaM2).toBeCloseTo(0.36, 12);
+    expect(flat.principal[0]!.frontalAreaM2).toBeCloseTo(0.36, 12); // 0.6 m × 0.6 m face (geometry)
     expect(flat.principal[0]!.cd).toBeCloseTo(1.17 - 0.12 * (0.01 / 0.6), 12); // square plate 1.17 (Hoerner) less the depth correction towards the cube
     const worst = dragAreaFromShape({ ...plate, orientation: 'worst' });
     expect(worst).toBeLessThan(dragAreaFromShape({ ...plate, orientation: 'tumbling' }));
@@ -83,6 +83,28 @@ describe('dragAreaFromShape', () => {
         const tumbling = dragAreaFromShape({ ...s, orientation: 'tumbling' });
         const flat = dragAreaFromShape({ ...s, orientation: 'flat' });
         return worst <= tumbling * (1 + 1e-12) && worst <= flat * (1 + 1e-12) && worst > 0;
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
+
+describe('dragAreaFromShape and dragBreakdown', () => {
+  it('agree for every shape and orientation (the fast path builds no breakdown)', () => {
+    const size = fc.double({ min: 0.001, max: 5, noNaN: true });
+    const orientation = fc.constantFrom<Orientation | undefined>('tumbling', 'flat', 'edge', 'worst', undefined);
+    const shape: fc.Arbitrary<ShapeSpec> = fc.oneof(
+      fc.record({ kind: fc.constant('box' as const), lengthM: size, widthM: size, heightM: size, orientation }),
+      fc.record({ kind: fc.constant('plate' as const), lengthM: size, widthM: size, thicknessM: size, orientation }),
+      fc.record({ kind: fc.constant('cylinder' as const), lengthM: size, diameterM: size, orientation }),
+      fc.record({ kind: fc.constant('rod' as const), lengthM: size, diameterM: size, orientation }),
+      fc.record({ kind: fc.constant('sphere' as const), diameterM: size, orientation }),
+    );
+    fc.assert(
+      fc.property(shape, (s) => {
+        const fast = dragAreaFromShape(s);
+        const detailed = dragBreakdown(s).dragAreaM2;
+        return Math.abs(fast - detailed) <= 1e-14 * detailed;
       }),
       { numRuns: 300 },
     );

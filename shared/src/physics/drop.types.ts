@@ -96,6 +96,12 @@ export interface DropAssessment {
   peakForceN: number;
   /** Horizontal distance carried by the wind before the struck level, m; 0 without wind. */
   driftM: number;
+  /**
+   * Ground speed at the struck level in the wind (from the drift integration: the sideways speed
+   * the wind gave the item and its vertical speed), m/s; equal to impactVelocityMps without wind.
+   * Severity and energy use the still-air figures (see docs/physics.md, limits).
+   */
+  windImpactVelocityMps: number;
   severity: Severity;
   resolved: ResolvedDropInput;
 }

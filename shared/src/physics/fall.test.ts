@@ -64,7 +64,7 @@ describe('fall properties', () => {
         const [low, high] = a < b ? [a, b] : [b, a];
         const vLow = speedFromRest(low, vt);
         const vHigh = speedFromRest(high, vt);
-        return vLow <= vHigh && vHigh <= vt; // monotone in h, bounded by v_t (closed form)
+        return vLow <= vHigh * (1 + 1e-15) && vHigh <= vt; // monotone in h (up to rounding), bounded by v_t (closed form)
       }),
       { numRuns: 300 },
     );
@@ -76,7 +76,7 @@ describe('fall properties', () => {
         const [light, heavy] = a < b ? [a, b] : [b, a];
         const eLight = assessDrop({ massKg: light, heightM, dragAreaM2 }).impactEnergyJ;
         const eHeavy = assessDrop({ massKg: heavy, heightM, dragAreaM2 }).impactEnergyJ;
-        return eLight <= eHeavy;
+        return eLight <= eHeavy * (1 + 1e-12); // monotone up to rounding when the masses are nearly equal
       }),
       { numRuns: 300 },
     );

@@ -71,8 +71,11 @@ export function stillAirFallInto(
   if (initialVelocity >= 0) {
     const v0 = initialVelocity;
     const s = (2 * gravity * height) / vt2;
-    const reached = -Math.expm1(-s); // 1 − e^(−s), exact for small s
-    const v = Math.sqrt(vt2 * reached + v0 * v0 * Math.exp(-s));
+    // 1 − e^(−s), exact for small s; past s = 38 it rounds to 1 in double precision, and skipping the
+    // call avoids the slow underflow path of exp for long drops of light items.
+    const reached = s < 38 ? -Math.expm1(-s) : 1;
+    const carried = v0 === 0 || s > 745 ? 0 : v0 * v0 * Math.exp(-s); // share of the release speed left
+    const v = Math.sqrt(vt2 * reached + carried);
     const gained = ((vt2 - v0 * v0) * reached) / (v + v0); // v − v0 without cancellation
     out.speedMps = v;
     out.timeS = height / vt + (vt / gravity) * Math.log1p(gained / (vt + v0));
@@ -83,7 +86,8 @@ export function stillAirFallInto(
   const ratio = u / vt;
   const rise = (vt2 / (2 * gravity)) * Math.log1p(ratio * ratio);
   const drop = height + rise;
-  const v = vt * Math.sqrt(-Math.expm1((-2 * gravity * drop) / vt2));
+  const sDrop = (2 * gravity * drop) / vt2;
+  const v = vt * Math.sqrt(sDrop < 38 ? -Math.expm1(-sDrop) : 1);
   out.speedMps = v;
   out.timeS = (vt / gravity) * Math.atan(ratio) + drop / vt + (vt / gravity) * Math.log1p(v / vt);
   out.riseM = rise;
@@ -107,7 +111,8 @@ export function speedFromRest(
   gravity: MetresPerSecondSquared | number = STANDARD_GRAVITY,
 ): MetresPerSecond {
   if (terminal === Infinity) return Math.sqrt(2 * gravity * height) as MetresPerSecond;
-  return (terminal * Math.sqrt(-Math.expm1((-2 * gravity * height) / (terminal * terminal)))) as MetresPerSecond;
+  const s = (2 * gravity * height) / (terminal * terminal);
+  return (terminal * Math.sqrt(s < 38 ? -Math.expm1(-s) : 1)) as MetresPerSecond;
 }
 
 /** Speed in m/s with no air at all, the worst case: √(v0² + 2gh) for any direction of v0. */

@@ -146,8 +146,28 @@ const positive = (v: unknown): boolean => typeof v === 'number' && v > 0 && v < 
 const optionalPositive = (v: unknown): boolean => v === undefined || positive(v);
 const optionalNonNegative = (v: unknown): boolean => v === undefined || (typeof v === 'number' && v >= 0 && v < Infinity);
 
+function plainlyValidShape(shape: unknown): boolean {
+  if (typeof shape !== 'object' || shape === null) return false;
+  const s = shape as Record<string, unknown>;
+  const o = s.orientation;
+  if (!(o === undefined || o === 'tumbling' || o === 'flat' || o === 'edge' || o === 'worst')) return false;
+  switch (s.kind) {
+    case 'box':
+      return positive(s.lengthM) && positive(s.widthM) && positive(s.heightM);
+    case 'plate':
+      return positive(s.lengthM) && positive(s.widthM) && positive(s.thicknessM);
+    case 'cylinder':
+    case 'rod':
+      return positive(s.lengthM) && positive(s.diameterM);
+    case 'sphere':
+      return positive(s.diameterM);
+    default:
+      return false;
+  }
+}
+
 /**
- * A quick check with no allocation that accepts only plainly valid inputs (no shape, no nulls).
+ * A quick check with no allocation that accepts only plainly valid inputs (no nulls, no unknown values).
  * Anything else goes through the full scan, which alone decides.
  */
 function plainlyValid(o: Record<string, unknown>): boolean {
@@ -163,7 +183,7 @@ function plainlyValid(o: Record<string, unknown>): boolean {
     optionalPositive(o.gravityMps2) &&
     optionalNonNegative(o.windSpeedMps) &&
     (exposure === undefined || exposure === 'bare-head' || exposure === 'helmet') &&
-    o.shape === undefined &&
+    (o.shape === undefined || plainlyValidShape(o.shape)) &&
     (contact === undefined ||
       (typeof contact === 'object' &&
         contact !== null &&

@@ -51,7 +51,7 @@ describe('likelihoodFromAnswers', () => {
 
   it('caps at Rare when the zone below is closed', () => {
     const closed = likelihoodFromAnswers({ securing: 'loose', edgeDistance: 'at-edge', activity: 'heavy', wind: 'strong', footTraffic: 'none' });
-    expect(closed.level).toBe(1);
+    expect(closed.level).toBe(1); // 'zone closed' caps at Rare (rules as data, common practice, no source)
     expect(closed.reasons.at(-1)).toMatch(/zone/);
   });
 

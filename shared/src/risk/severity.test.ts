@@ -39,7 +39,7 @@ describe('rateSeverity', () => {
 
   it('says which reference the estimate crossed', () => {
     const s = rateSeverity(50, 3000, 'helmet');
-    expect(s.level).toBe(3);
+    expect(s.level).toBe(3); // 50 J ≥ 49 J, EN 397 test energy; 3 kN below the 4.45 kN ANSI/ISEA Z89.1 limit
     expect(s.basis).toMatch(/EN 397/);
     const catastrophic = rateSeverity(120, 3000, 'helmet');
     expect(catastrophic.label).toBe('Catastrophic');
@@ -54,18 +54,18 @@ describe('rateSeverity', () => {
 
   it('explains a level 1 by the lowest references', () => {
     const s = rateSeverity(0.5, 100, 'bare-head');
-    expect(s.level).toBe(1);
+    expect(s.level).toBe(1); // 0.5 J < 1.41 J and 100 N < 450 N (default table margins, common practice, no source)
     expect(s.basis).toMatch(/^Below every reference for a bare head/);
   });
 
   it('rates the EN 397 striker on a helmet as Moderate (at the test energy, force at its limit)', () => {
     const drop = assessDrop({ massKg: 5, heightM: 1, exposure: 'helmet' }); // EN 397: 5 kg from 1 m
-    expect(drop.severity.level).toBe(3);
+    expect(drop.severity.level).toBe(3); // 49.03 J ≥ 49 J (EN 397); peak 5.0 kN by construction, not above the EN 397 limit
   });
 
   it('rates the ANSI/ISEA Z89.1 Type I striker on a helmet as Major (beyond both test energies)', () => {
     const drop = assessDrop({ massKg: 3.6, heightM: (5.5 * 5.5) / (2 * G), exposure: 'helmet' }); // 54.45 J
-    expect(drop.impactEnergyJ).toBeLessThan(54.5);
+    expect(drop.impactEnergyJ).toBeLessThan(54.5); // ½ × 3.6 × 5.5² = 54.45 J (ANSI/ISEA Z89.1 Type I), just under the 54.5 J threshold
     expect(drop.severity.level).toBe(4); // peak 5.5 × √(254929 × 3.6) ≈ 5.27 kN > 5.0 kN EN 397 limit with the EN 397-derived helmet spring
   });
 
@@ -74,7 +74,7 @@ describe('rateSeverity', () => {
       'bare-head': [{ level: 5, quantity: 'energy', atLeast: 5, reference: 'our site rule for the public', source: 'Acme Build site rules 2025' }],
       helmet: [{ level: 2, quantity: 'energy', atLeast: 5, reference: 'our site rule for workers', source: 'Acme Build site rules 2025' }],
     };
-    expect(assessDrop({ massKg: 1, heightM: 1 }, { severityTable: strict }).severity.level).toBe(5);
+    expect(assessDrop({ massKg: 1, heightM: 1 }, { severityTable: strict }).severity.level).toBe(5); // 9.8 J ≥ the organisation's 5 J rule
     expect(assessDrop({ massKg: 1, heightM: 1, exposure: 'helmet' }, { severityTable: strict }).severity.basis).toMatch(/Acme/);
     const broken = { 'bare-head': [{ level: 7, quantity: 'energy', atLeast: 5, reference: 'x', source: 'y' }], helmet: [] } as unknown as SeverityTable;
     expect(() => rateSeverity(1, 1, 'bare-head', broken)).toThrow(SeverityTableError);

@@ -96,13 +96,35 @@ export function rateSeverity(
   exposure: Exposure,
   table: SeverityTable = DEFAULT_SEVERITY_TABLE,
 ): Severity {
-  if (table !== DEFAULT_SEVERITY_TABLE) validateSeverityTable(table);
+  const isDefault = table === DEFAULT_SEVERITY_TABLE;
+  if (!isDefault) validateSeverityTable(table);
   const thresholds = table[exposure];
-  let best: SeverityThreshold | undefined;
+  let best = -1;
+  let bestLevel = 0;
   for (let i = 0; i < thresholds.length; i++) {
     const t = thresholds[i]!;
     const value = t.quantity === 'energy' ? energyJ : peakForceN;
-    if (value >= t.atLeast && (best === undefined || t.level > best.level)) best = t;
+    if (value >= t.atLeast && t.level > bestLevel) {
+      best = i;
+      bestLevel = t.level;
+    }
   }
-  return best === undefined ? below(thresholds, exposure) : crossed(best);
+  if (isDefault) {
+    // The default table's results are built once, so the hot path does no map lookup.
+    const results = exposure === 'helmet' ? DEFAULT_HELMET_RESULTS : DEFAULT_BARE_HEAD_RESULTS;
+    return best < 0 ? results.below : results.crossed[best]!;
+  }
+  return best < 0 ? below(thresholds, exposure) : crossed(thresholds[best]!);
 }
+
+interface PrecomputedResults {
+  readonly crossed: readonly Severity[];
+  readonly below: Severity;
+}
+
+const precompute = (exposure: Exposure): PrecomputedResults => ({
+  crossed: DEFAULT_SEVERITY_TABLE[exposure].map(crossed),
+  below: below(DEFAULT_SEVERITY_TABLE[exposure], exposure),
+});
+const DEFAULT_BARE_HEAD_RESULTS = precompute('bare-head');
+const DEFAULT_HELMET_RESULTS = precompute('helmet');

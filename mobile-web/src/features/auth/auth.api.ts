@@ -5,12 +5,14 @@ export interface SignInCredentials {
   password: string;
 }
 
-/**
- * Posts the credentials to the server. The response shape (tokens, user) arrives with the
- * server-core issue and will be parsed with its schema from @plummet/shared.
- */
+/** Posts the credentials to the server; the answer is a Session (parsed by sessionFromResponse). */
 export function signIn(credentials: SignInCredentials, fetchImpl?: typeof fetch): Promise<unknown> {
   return apiFetch<unknown>('/auth/sign-in', { method: 'POST', body: credentials }, fetchImpl);
+}
+
+/** Ends the session on the server (every device it was renewed on). Always answered 204. */
+export function signOutOnServer(refreshToken: string, fetchImpl?: typeof fetch): Promise<void> {
+  return apiFetch<void>('/auth/sign-out', { method: 'POST', body: { refreshToken } }, fetchImpl);
 }
 
 /** A sentence for the sign-in form, for any failure of signIn. */

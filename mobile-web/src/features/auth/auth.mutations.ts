@@ -1,10 +1,33 @@
 import { useMutation } from '@tanstack/react-query';
-import { signIn, type SignInCredentials } from './auth.api';
+import { isOnline } from '../../app/connectivity';
+import { db } from '../../local-db/db';
+import { signIn, signOutOnServer, type SignInCredentials } from './auth.api';
+import { sessionFromResponse } from './session';
+import { readSession, signOutLocally, startSession } from './session.store';
 
-/** Sign-in shows its errors in the form, so it opts out of the shared error toast. */
+/** Signs in (needs a connection) and keeps the session on the phone. Errors show in the form. */
 export function useSignInMutation() {
   return useMutation({
-    mutationFn: (credentials: SignInCredentials) => signIn(credentials),
+    mutationFn: async (credentials: SignInCredentials) => {
+      const session = sessionFromResponse(await signIn(credentials), new Date());
+      await startSession(db, session);
+      return session;
+    },
     meta: { errorToast: false },
+  });
+}
+
+/**
+ * Signs out: tells the server when it can be reached (ending the refresh token), then clears
+ * every record, photo and waiting change from the phone. The screen has already warned.
+ */
+export function useSignOutMutation() {
+  return useMutation({
+    mutationFn: async () => {
+      const session = await readSession(db);
+      if (session && isOnline()) await signOutOnServer(session.refreshToken).catch(() => undefined);
+      await signOutLocally(db);
+    },
+    meta: { errorToast: 'Signing out failed. Close Plummet and try again.' },
   });
 }

@@ -1,9 +1,16 @@
-import { IonButton, IonButtons, IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { IonButton, IonButtons, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
+import { OutboxBadge } from '../../../components/OutboxBadge';
+import { useSession } from '../../auth/session.queries';
+import { SitesOverview } from '../../sites/components/SitesOverview';
 import './HomePage.css';
 
+/** Signed out: what Plummet is, and the way in. Signed in: the sites, for the walk. */
 export function HomePage() {
+  const { status, session } = useSession();
+  const signedIn = session && status !== 'signed-out';
+
   return (
     <IonPage>
       <IonHeader>
@@ -13,22 +20,46 @@ export function HomePage() {
             <OnlineStatusBadge />
           </IonButtons>
         </IonToolbar>
+        {signedIn && (
+          <div className="app-status">
+            <OutboxBadge />
+          </div>
+        )}
       </IonHeader>
       <IonContent className="ion-padding" data-testid="app-shell">
-        <div className="home-page">
-          <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />
-          <h1 className="home-page__heading">What could fall, and how hard it would land</h1>
-          <p className="home-page__lead">
-            Plummet is the safety team&rsquo;s field tool for objects falling from scaffolds: walk the scaffold lift by
-            lift, record each unsecured item with photos, get an estimate of its impact on the spot &mdash; with or
-            without signal &mdash; and turn the walk into the signed inspection record and a fix list.
-          </p>
-          <CautionNote />
-          <IonButton expand="block" routerLink="/sign-in" className="home-page__action">
-            Sign in
-          </IonButton>
-        </div>
+        {signedIn ? (
+          <SitesOverview session={session} expired={status === 'expired'} />
+        ) : (
+          <div className="home-page">
+            <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />
+            <h1 className="home-page__heading">What could fall, and how hard it would land</h1>
+            <p className="home-page__lead">
+              Plummet is the safety team&rsquo;s field tool for objects falling from scaffolds: walk the scaffold lift by
+              lift, record each unsecured item with photos, get an estimate of its impact on the spot &mdash; with or
+              without signal &mdash; and turn the walk into the signed inspection record and a fix list.
+            </p>
+            <CautionNote />
+            <IonButton expand="block" routerLink="/sign-in" className="home-page__action" data-testid="home-sign-in">
+              Sign in
+            </IonButton>
+            <IonButton expand="block" fill="outline" routerLink="/calculator" className="home-page__action--secondary">
+              Try the drop calculator
+            </IonButton>
+          </div>
+        )}
       </IonContent>
+      {signedIn && (
+        <IonFooter>
+          <div className="bottom-actions">
+            <IonButton fill="outline" routerLink="/calculator" data-testid="open-calculator">
+              Calculator
+            </IonButton>
+            <IonButton fill="outline" routerLink="/settings" data-testid="open-settings">
+              Settings
+            </IonButton>
+          </div>
+        </IonFooter>
+      )}
     </IonPage>
   );
 }

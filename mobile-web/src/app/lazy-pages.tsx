@@ -1,0 +1,30 @@
+import { lazy, Suspense, type ComponentType, type LazyExoticComponent } from 'react';
+
+/**
+ * Every page loads on demand, so the first download holds only the shell (React, Ionic, the
+ * router); Dexie, zod and the physics come with the first page that needs them. The service
+ * worker precaches every chunk, so pages still open with no signal.
+ */
+function page<K extends string>(load: () => Promise<Record<K, ComponentType>>, name: K): LazyExoticComponent<ComponentType> {
+  return lazy(() => load().then((module) => ({ default: module[name] })));
+}
+
+export const HomePage = page(() => import('../features/home/pages/HomePage'), 'HomePage');
+export const SignInPage = page(() => import('../features/auth/pages/SignInPage'), 'SignInPage');
+export const SitePage = page(() => import('../features/sites/pages/SitePage'), 'SitePage');
+export const FindingListPage = page(() => import('../features/findings/pages/FindingListPage'), 'FindingListPage');
+export const ScaffoldPage = page(() => import('../features/scaffolds/pages/ScaffoldPage'), 'ScaffoldPage');
+export const InspectionPage = page(() => import('../features/inspections/pages/InspectionPage'), 'InspectionPage');
+export const InspectionFinishPage = page(() => import('../features/inspections/pages/InspectionFinishPage'), 'InspectionFinishPage');
+export const FindingEditorPage = page(() => import('../features/findings/pages/FindingEditorPage'), 'FindingEditorPage');
+export const CalculatorPage = page(() => import('../features/calculator/pages/CalculatorPage'), 'CalculatorPage');
+export const SettingsPage = page(() => import('../features/settings/pages/SettingsPage'), 'SettingsPage');
+
+/** A route's element: the lazy page, rendering nothing until its chunk has loaded (Ionic waits for the IonPage). */
+export function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {
+  return (
+    <Suspense fallback={null}>
+      <Page />
+    </Suspense>
+  );
+}

@@ -1,0 +1,34 @@
+import { IonBackButton, IonButtons, IonHeader, IonTitle, IonToolbar } from '@ionic/react';
+import type { ReactNode } from 'react';
+import { OnlineStatusBadge } from './OnlineStatusBadge';
+import { OutboxBadge } from './OutboxBadge';
+import './AppHeader.css';
+
+interface AppHeaderProps {
+  title: string;
+  /** Where the back arrow leads when there is no history (a page opened after a reload). */
+  backHref?: string;
+  /** Shown under the toolbar, e.g. the live estimate of the finding editor. */
+  children?: ReactNode;
+}
+
+/** A page's toolbar with the connection and outbox status under it, where a glance finds them. */
+export function AppHeader({ title, backHref, children }: AppHeaderProps) {
+  return (
+    <IonHeader>
+      <IonToolbar>
+        {backHref && (
+          <IonButtons slot="start">
+            <IonBackButton defaultHref={backHref} text="" aria-label="Back" />
+          </IonButtons>
+        )}
+        <IonTitle>{title}</IonTitle>
+      </IonToolbar>
+      <div className="app-status">
+        <OnlineStatusBadge />
+        <OutboxBadge />
+      </div>
+      {children}
+    </IonHeader>
+  );
+}

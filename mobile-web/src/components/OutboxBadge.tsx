@@ -1,0 +1,16 @@
+import { IonIcon } from '@ionic/react';
+import { checkmarkDoneOutline, cloudUploadOutline } from 'ionicons/icons';
+import { useWaitingChangeCount } from '../local-db/outbox.queries';
+
+/** How many changes on this phone wait to be sent; a word and an icon, never colour alone. */
+export function OutboxBadge() {
+  const count = useWaitingChangeCount();
+  if (count === undefined) return null;
+  const text = count === 0 ? 'All changes sent' : count === 1 ? '1 change waiting to send' : `${count} changes waiting to send`;
+  return (
+    <span className={`status-chip ${count > 0 ? 'status-chip--waiting' : ''}`} data-testid="outbox-count" data-count={count} role="status">
+      <IonIcon icon={count > 0 ? cloudUploadOutline : checkmarkDoneOutline} aria-hidden="true" />
+      {text}
+    </span>
+  );
+}

@@ -1,0 +1,21 @@
+import { IonIcon } from '@ionic/react';
+import { keyOutline } from 'ionicons/icons';
+import { formatDateTime } from '../../../app/format-date';
+import type { StoredSession } from '../session';
+
+const SOON_MS = 3 * 86_400_000;
+
+/** Who is signed in, and until when the phone can work offline without signing in again. */
+export function SessionNote({ session, now = new Date() }: { session: StoredSession; now?: Date }) {
+  const soon = Date.parse(session.refreshExpiresAt) - now.getTime() < SOON_MS;
+  return (
+    <p className={`session-note ${soon ? 'session-note--soon' : ''}`} data-testid="session-expiry">
+      <IonIcon icon={keyOutline} aria-hidden="true" />
+      <span>
+        Signed in as <strong>{session.user.name}</strong> ({session.user.organisation.name}). Works offline until{' '}
+        <strong>{formatDateTime(session.refreshExpiresAt)}</strong>
+        {soon ? ': connect before then to stay signed in.' : '; each time you are online this moves on.'}
+      </span>
+    </p>
+  );
+}

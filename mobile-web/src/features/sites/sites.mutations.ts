@@ -1,0 +1,32 @@
+import type { Site } from '@plummet/shared';
+import { useMutation } from '@tanstack/react-query';
+import { db, writeMeta } from '../../local-db/db';
+import { downloadSite, type SiteDownloadResult } from '../../sync/download-site';
+import { requestPersistentStorage, type StorageReport } from '../../sync/storage';
+import { fetchCatalogue } from '../catalogue/catalogue.api';
+import { fetchOpenFindingsOfSite } from '../findings/findings.api';
+import { fetchScaffoldsOfSite } from '../scaffolds/scaffolds.api';
+
+export const STORAGE_REPORT_KEY = 'storage-report';
+
+export interface OfflineCopyResult {
+  download: SiteDownloadResult;
+  storage: StorageReport;
+}
+
+/** Downloads a site for the walk, then asks the browser to keep the data and measures it. */
+export function useMakeSiteOfflineMutation() {
+  return useMutation({
+    mutationFn: async ({ site, organisationId }: { site: Site; organisationId: string }): Promise<OfflineCopyResult> => {
+      const download = await downloadSite(db, site, organisationId, {
+        scaffolds: fetchScaffoldsOfSite,
+        openFindings: fetchOpenFindingsOfSite,
+        catalogue: fetchCatalogue,
+      });
+      const storage = await requestPersistentStorage();
+      await writeMeta(db, STORAGE_REPORT_KEY, { ...storage, at: new Date().toISOString() });
+      return { download, storage };
+    },
+    meta: { errorToast: 'The site could not be downloaded. Check the connection and try again.' },
+  });
+}

@@ -1,0 +1,104 @@
+import { CAUTION_TEXT } from '@plummet/shared';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { decodeQuotedPrintable, useMailFake, waitForMail, type MailFake } from '../../test/mail-fake.js';
+import { api } from '../../test/request.js';
+import { startTestApp, type TestApp } from '../../test/test-app.js';
+
+describe('GET /api/mail: the development view of the SMTP fake’s captured messages', () => {
+  let t: TestApp;
+  let mail: MailFake;
+  let admin: string;
+  const stamp = Date.now();
+  const first = `mail-first.${stamp}@demo.test`;
+  const second = `mail-second.${stamp}@demo.test`;
+  let firstName: string;
+  let secondName: string;
+
+  beforeAll(async () => {
+    mail = await useMailFake();
+    t = await startTestApp({ env: mail.env });
+    admin = await t.tokenFor('admin@demo.test');
+    await api(t.baseUrl, 'POST', '/users/invitations', { token: admin, body: { email: first, name: 'Mail First', role: 'inspector' } });
+    firstName = (await waitForMail(mail.mailDir, first)).name;
+    // File times order the list; keep the two messages apart on coarse file systems.
+    await new Promise((r) => setTimeout(r, 20));
+    await api(t.baseUrl, 'POST', '/users/invitations', { token: admin, body: { email: second, name: 'Mail Second', role: 'foreman' } });
+    secondName = (await waitForMail(mail.mailDir, second)).name;
+  });
+  afterAll(async () => {
+    await t?.close();
+    await mail?.close();
+  });
+
+  it('lists captured messages newest first with subject, recipient and date', async () => {
+    const res = await api(t.baseUrl, 'GET', '/mail?limit=200', { token: admin });
+    expect(res.status).toBe(200);
+    const names = res.body.items.map((m: { name: string }) => m.name);
+    expect(names.indexOf(secondName)).toBeGreaterThanOrEqual(0);
+    expect(names.indexOf(secondName)).toBeLessThan(names.indexOf(firstName));
+    const item = res.body.items[names.indexOf(secondName)];
+    expect(item.subject).toBe('You are invited to Plummet by Harrow & Span Access Ltd');
+    expect(item.to).toContain(second);
+    expect(new Date(item.date).getTime()).toBeGreaterThan(stamp - 60_000);
+  });
+
+  it('pages through the messages with a cursor, without repeats', async () => {
+    const seen: string[] = [];
+    let cursor: string | null = null;
+    do {
+      const query: string = cursor ? `limit=1&cursor=${encodeURIComponent(cursor)}` : 'limit=1';
+      const page = await api(t.baseUrl, 'GET', `/mail?${query}`, { token: admin });
+      expect(page.status).toBe(200);
+      expect(page.body.items.length).toBeLessThanOrEqual(1);
+      seen.push(...page.body.items.map((m: { name: string }) => m.name));
+      cursor = page.body.nextCursor;
+    } while (cursor && seen.length < 500);
+    expect(new Set(seen).size).toBe(seen.length);
+    expect(seen).toEqual(expect.arrayContaining([firstName, secondName]));
+  });
+
+  it('returns a message’s raw text, whose text and HTML parts both end with the caution', async () => {
+    const res = await api(t.baseUrl, 'GET', `/mail/${secondName}`, { token: admin });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/^text\/plain/);
+    expect(res.body).toMatch(/^Subject: /m);
+    const decoded = decodeQuotedPrintable(res.body);
+    const [textPart, htmlPart] = decoded.split(/Content-Type: text\/html/i);
+    expect(textPart).toContain(CAUTION_TEXT);
+    expect(htmlPart).toContain(CAUTION_TEXT);
+  });
+
+  it('refuses names that could reach outside the folder', async () => {
+    for (const name of ['..%2F..%2F..%2Fetc%2Fpasswd', '..%2Fpackage.json', '%2Fetc%2Fpasswd', '.hidden.eml', 'a..b.eml', 'message.txt', '..%5C..%5Cwin.ini']) {
+      const res = await api(t.baseUrl, 'GET', `/mail/${name}`, { token: admin });
+      expect([400, 404], name).toContain(res.status);
+      expect(res.body.code).toMatch(/^(VALIDATION_FAILED|NOT_FOUND)$/);
+      expect(JSON.stringify(res.body)).not.toContain('root:');
+    }
+  });
+
+  it('refuses a forged cursor with 400', async () => {
+    const res = await api(t.baseUrl, 'GET', '/mail?cursor=not-a-cursor', { token: admin });
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('VALIDATION_FAILED');
+  });
+});
+
+describe('GET /api/mail without MAIL_DIR', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp({ env: { MAIL_DIR: '' } });
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it('answers 404 NOT_FOUND: there is nothing captured to show', async () => {
+    const token = await t.tokenFor('admin@demo.test');
+    for (const path of ['/mail', '/mail/anything.eml']) {
+      const res = await api(t.baseUrl, 'GET', path, { token });
+      expect(res.status).toBe(404);
+      expect(res.body.code).toBe('NOT_FOUND');
+    }
+  });
+});

@@ -1,0 +1,164 @@
+#!/usr/bin/env node
+// `npm run bench:api`: the API under load, on a throwaway PostgreSQL seeded with the demo plus
+// 100,000 findings. Measures GET /api/findings?limit=50 as a manager (100 connections, ~10 s, with
+// autocannon) and GET /api/health as a baseline in the same run, then prints requests/s,
+// p50/p95/p99 latency and the ratios. Leaves nothing behind. A benchmark, not a test: nothing is
+// asserted about speed.
+import { createHmac } from 'node:crypto';
+import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import autocannon from 'autocannon';
+import { buildAll, migrateAndSeed, startServer, stopChild } from '../../scripts/lib/app.mjs';
+import { freePort } from '../../scripts/lib/free-port.mjs';
+import { handleFatal, say } from '../../scripts/lib/log.mjs';
+import { ensurePostgresBinaries, LocalPostgres } from '../../scripts/lib/postgres.mjs';
+
+const FINDINGS = 100_000;
+const CONNECTIONS = 100;
+const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 10);
+const JWT_SECRET = 'bench-secret-bench-secret-bench-secret-0123456789';
+
+let pg;
+let server;
+let tmp;
+
+async function cleanup() {
+  await stopChild(server);
+  server = undefined;
+  if (pg) {
+    pg.stop();
+    pg.remove();
+    pg = undefined;
+  }
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+}
+
+for (const signal of ['SIGINT', 'SIGTERM']) {
+  process.on(signal, () => void cleanup().finally(() => process.exit(130)));
+}
+
+/** 100,000 findings in one statement: copies of the demo organisation's findings, with varied states and due times. */
+const BULK_FINDINGS_SQL = `
+WITH t AS (
+  SELECT row_number() OVER (ORDER BY f.id) - 1 AS n, f.*
+  FROM findings f JOIN organisations o ON o.id = f.organisation_id AND o.slug = 'harrow-span'
+), c AS (SELECT count(*) AS k FROM t)
+INSERT INTO findings (id, organisation_id, inspection_id, scaffold_id, elevation, lift, bay, height_m, catalogue_item_id,
+  item_name, mass_kg, shape, exposure, likelihood_answers, likelihood, estimate, severity, risk_score, risk_band, state,
+  assignee_id, due_at, notes, made_safe_note, created_by, created_at, updated_at, version)
+SELECT gen_random_uuid(), t.organisation_id, NULL, t.scaffold_id, t.elevation, t.lift, t.bay, t.height_m, t.catalogue_item_id,
+  t.item_name, t.mass_kg, t.shape, t.exposure, t.likelihood_answers, t.likelihood, t.estimate, t.severity, t.risk_score, t.risk_band,
+  (ARRAY['open', 'made-safe', 'fixed', 'verified']::finding_state[])[1 + g % 4],
+  t.assignee_id, CASE WHEN g % 3 = 0 THEN now() + ((g % 240) - 120) * interval '1 hour' END,
+  'Bench finding ' || g, NULL, t.created_by, now() - (g % 50000) * interval '1 minute', now(), 1
+FROM generate_series(1, ${FINDINGS}) g CROSS JOIN c JOIN t ON t.n = g % c.k;
+ANALYZE findings;`;
+
+/** An HS256 access token like the server's own (claims sub, org, role), valid for an hour. */
+function accessToken(claims) {
+  const b64 = (o) => Buffer.from(JSON.stringify(o)).toString('base64url');
+  const now = Math.floor(Date.now() / 1000);
+  const unsigned = `${b64({ alg: 'HS256', typ: 'JWT' })}.${b64({ ...claims, iat: now, exp: now + 3600 })}`;
+  return `${unsigned}.${createHmac('sha256', JWT_SECRET).update(unsigned).digest('base64url')}`;
+}
+
+function percentile(sorted, p) {
+  return sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)] : NaN;
+}
+
+/** Runs autocannon and keeps every response time, so p95 is exact rather than the nearest reported bucket. */
+function load(url, headers, durationS) {
+  return new Promise((resolve, reject) => {
+    const latencies = [];
+    const instance = autocannon({ url, connections: CONNECTIONS, duration: durationS, headers }, (error, result) => {
+      if (error) return reject(error);
+      latencies.sort((a, b) => a - b);
+      resolve({
+        requestsPerS: result.requests.total / (result.duration || durationS),
+        non2xx: result.non2xx,
+        errors: result.errors + result.timeouts,
+        p50: percentile(latencies, 50),
+        p95: percentile(latencies, 95),
+        p99: percentile(latencies, 99),
+        bytesPerResponse: result.requests.total ? result.throughput.total / result.requests.total : 0,
+      });
+    });
+    instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
+  });
+}
+
+const fmt = (n, digits = 1) => n.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+
+async function main() {
+  say('building shared and server…');
+  await buildAll({ web: false });
+  const bin = await ensurePostgresBinaries();
+  tmp = mkdtempSync(join(tmpdir(), 'plummet-bench-'));
+  // PostgreSQL runs as its own user when we are root: it must be able to reach its folder.
+  chmodSync(tmp, 0o755);
+  pg = new LocalPostgres({ bin, dir: join(tmp, 'pg'), port: await freePort(), durable: false });
+  await pg.init();
+  await pg.start();
+  await pg.ensureDatabase('plummet_bench');
+  say(`throwaway PostgreSQL on 127.0.0.1:${pg.port}`);
+
+  const env = {
+    ...process.env,
+    NODE_ENV: 'development',
+    DATABASE_URL: pg.url('plummet_bench'),
+    JWT_SECRET,
+    LOG_LEVEL: 'warn',
+    HOST: '127.0.0.1',
+  };
+  await migrateAndSeed(env);
+  const started = Date.now();
+  pg.psql(BULK_FINDINGS_SQL, 'plummet_bench');
+  const count = pg.psql('SELECT count(*) FROM findings', 'plummet_bench');
+  say(`seeded ${Number(count).toLocaleString('en-GB')} findings in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+
+  const [userId, orgId] = pg
+    .psql(
+      "SELECT u.id || '|' || m.organisation_id FROM users u JOIN memberships m ON m.user_id = u.id WHERE u.email = 'manager@demo.test'",
+      'plummet_bench',
+    )
+    .split('|');
+  const token = accessToken({ sub: userId, org: orgId, role: 'manager' });
+
+  const port = await freePort();
+  server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
+  const base = `http://127.0.0.1:${port}/api`;
+  const headers = { authorization: `Bearer ${token}` };
+
+  const probe = await fetch(`${base}/findings?limit=50`, { headers });
+  const page = await probe.json();
+  if (probe.status !== 200 || page.items?.length !== 50) throw new Error(`GET /api/findings?limit=50 answered ${probe.status}: ${JSON.stringify(page).slice(0, 200)}`);
+  const plan = pg.psql(
+    `EXPLAIN SELECT * FROM findings WHERE organisation_id = '${orgId}' ORDER BY risk_score DESC, id DESC LIMIT 51`,
+    'plummet_bench',
+  );
+  say(`query plan of the page: ${plan.split('\n').map((l) => l.trim()).slice(0, 2).join(' / ')}`);
+
+  say('warming up (2 s each)…');
+  await load(`${base}/findings?limit=50`, headers, 2);
+  await load(`${base}/health`, {}, 2);
+
+  say(`GET /api/findings?limit=50 as a manager: ${CONNECTIONS} connections for ${DURATION_S} s…`);
+  const findings = await load(`${base}/findings?limit=50`, headers, DURATION_S);
+  say(`GET /api/health (baseline): ${CONNECTIONS} connections for ${DURATION_S} s…`);
+  const health = await load(`${base}/health`, {}, DURATION_S);
+
+  const row = (name, r) =>
+    `${name.padEnd(30)} ${fmt(r.requestsPerS, 0).padStart(9)} req/s   p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   p99 ${fmt(r.p99).padStart(7)} ms   ${fmt(r.bytesPerResponse / 1024)} KiB/response   non-2xx ${r.non2xx}, errors ${r.errors}`;
+  console.log('');
+  console.log(`API benchmark: ${Number(count).toLocaleString('en-GB')} findings, ${CONNECTIONS} connections, ${DURATION_S} s per route, one server process (node ${process.version})`);
+  console.log(row('GET /api/findings?limit=50', findings));
+  console.log(row('GET /api/health (baseline)', health));
+  console.log(
+    `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency`,
+  );
+}
+
+main()
+  .catch(handleFatal)
+  .finally(cleanup);
