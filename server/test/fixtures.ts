@@ -1,4 +1,5 @@
 import argon2 from 'argon2';
+import { ARGON2_OPTIONS } from '../src/auth/password-hasher.js';
 import { eq } from 'drizzle-orm';
 import type { Role } from '@plummet/shared';
 import type { Db } from '../src/db/db.tokens.js';
@@ -20,7 +21,7 @@ export const ALL_ROLE_USERS: { email: string; role: Role; org: 'demo' | 'other' 
 export async function addOtherOrgRoles(db: Db): Promise<void> {
   const [other] = await db.select().from(organisations).where(eq(organisations.slug, 'other-build'));
   if (!other) throw new Error('seed the demo first');
-  const passwordHash = await argon2.hash('plummet-demo');
+  const passwordHash = await argon2.hash('plummet-demo', ARGON2_OPTIONS);
   for (const u of ALL_ROLE_USERS.filter((x) => x.org === 'other' && x.role !== 'manager')) {
     const [row] = await db
       .insert(users)

@@ -2,7 +2,6 @@ import { IonBackButton, IonButtons, IonHeader, IonTitle, IonToolbar } from '@ion
 import type { ReactNode } from 'react';
 import { OnlineStatusBadge } from './OnlineStatusBadge';
 import { OutboxBadge } from './OutboxBadge';
-import './AppHeader.css';
 
 interface AppHeaderProps {
   title: string;

@@ -10,7 +10,7 @@ describe('visibleRows', () => {
   });
 
   it('stops at the end of the list and copes with an empty one', () => {
-    expect(visibleRows(88 * 2000, 700, 88, 2000)).toEqual({ start: 1993, end: 2000 });
+    expect(visibleRows(88 * 2000 - 700, 700, 88, 2000)).toEqual({ start: 1986, end: 2000 });
     expect(visibleRows(0, 700, 88, 0)).toEqual({ start: 0, end: 0 });
     expect(visibleRows(-50, 700, 88, 3)).toEqual({ start: 0, end: 3 });
   });

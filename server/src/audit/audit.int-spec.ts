@@ -46,3 +46,29 @@ describe('the audit trail', () => {
     for (const e of res.body.items) expect(e.actorId).toBe(api.userIds['demo:admin']);
   });
 });
+
+describe('the inspection data API as a whole', () => {
+  const ROUTES = [
+    ['get', '/api/sites'], ['post', '/api/sites'], ['get', '/api/sites/{id}'], ['patch', '/api/sites/{id}'], ['delete', '/api/sites/{id}'],
+    ['get', '/api/scaffolds'], ['post', '/api/scaffolds'], ['get', '/api/scaffolds/{id}'], ['patch', '/api/scaffolds/{id}'], ['post', '/api/scaffolds/{id}/status'],
+    ['get', '/api/inspections'], ['post', '/api/inspections'], ['get', '/api/inspections/{id}'], ['patch', '/api/inspections/{id}'],
+    ['post', '/api/inspections/{id}/finish'], ['put', '/api/inspections/{id}/control-checks/{control}'],
+    ['get', '/api/findings'], ['post', '/api/findings'], ['get', '/api/findings/{id}'], ['patch', '/api/findings/{id}'],
+    ['post', '/api/findings/{id}/state'], ['post', '/api/findings/{id}/assign'],
+    ['get', '/api/catalogue'], ['post', '/api/catalogue'], ['get', '/api/catalogue/{id}'], ['patch', '/api/catalogue/{id}'], ['delete', '/api/catalogue/{id}'],
+    ['get', '/api/audit'],
+  ] as const;
+
+  it('lists every route in the OpenAPI document', async () => {
+    const doc = (await (await fetch(`${api.t.baseUrl}/api/docs/openapi.json`)).json()) as { paths: Record<string, Record<string, unknown>> };
+    for (const [method, path] of ROUTES) expect(doc.paths[path]?.[method], `${method} ${path}`).toBeDefined();
+  });
+
+  it('answers 401 to every route without a token', async () => {
+    for (const [method, path] of ROUTES) {
+      const url = path.replace('/api', '').replace('{id}', DEMO.unmannedScaffold).replace('{control}', 'toe-boards');
+      const res = await api.call(null, method.toUpperCase(), url, method === 'get' || method === 'delete' ? undefined : {});
+      expect(res.status, `${method} ${path}`).toBe(401);
+    }
+  });
+});

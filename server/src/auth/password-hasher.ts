@@ -2,7 +2,12 @@ import { randomBytes } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import argon2 from 'argon2';
 
-const OPTIONS = { type: argon2.argon2id } as const;
+/**
+ * argon2id with the OWASP Password Storage Cheat Sheet's first configuration (m = 19 MiB, t = 2,
+ * p = 1): recommended strength at a cost a 2-core replica can afford per sign-in.
+ */
+export const ARGON2_OPTIONS = { type: argon2.argon2id, memoryCost: 19_456, timeCost: 2, parallelism: 1 } as const;
+const OPTIONS = ARGON2_OPTIONS;
 
 /** argon2id hashing; verification costs the same whether or not there is a real hash to check. */
 @Injectable()

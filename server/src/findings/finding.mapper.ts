@@ -1,4 +1,4 @@
-import { type Finding, type LikelihoodAnswers, type ShapeSpec, UNFIXED_STATES } from '@plummet/shared';
+import { type Finding, type FindingListItem, type LikelihoodAnswers, type ShapeSpec, UNFIXED_STATES } from '@plummet/shared';
 import type { findings } from '../db/schema/index.js';
 
 export type FindingRow = typeof findings.$inferSelect;
@@ -40,4 +40,9 @@ export function toFinding(row: FindingRow, now = Date.now()): Finding {
     updatedAt: row.updatedAt.toISOString(),
     version: row.version,
   };
+}
+
+/** A row read by the list query, whose estimate PostgreSQL already trimmed to the summary. */
+export function toFindingListItem(row: FindingRow, now = Date.now()): FindingListItem {
+  return toFinding(row, now) as unknown as FindingListItem;
 }

@@ -34,7 +34,10 @@ export class FindingsController {
     private readonly workflow: FindingWorkflowService,
   ) {}
 
-  /** Highest risk first by default. A foreman sees only findings on their scaffolds or assigned to them. */
+  /**
+   * Highest risk first by default. A foreman sees only findings on their scaffolds or assigned to them.
+   * Items carry the estimate summary unless `estimate=full`.
+   */
   @Get()
   @ApiOkResponse({ type: FindingListDto })
   list(@CurrentUser() user: AuthUser, @Query() query: FindingListQueryDto) {

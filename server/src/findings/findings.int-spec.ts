@@ -267,6 +267,21 @@ describe('listing findings', () => {
     expect(seen.slice(dated.length).every((d) => d === null)).toBe(true);
   });
 
+  it('carries the estimate figures in the list and the explanations only in the detail', async () => {
+    const list = await api.call('demo:manager', 'GET', '/findings?limit=1');
+    const item = list.body.items[0];
+    expect(item.estimate).toMatchObject({ impactEnergyJ: expect.any(Number), severity: { level: item.severity, label: expect.any(String) } });
+    expect(item.estimate.resolved).toBeUndefined();
+    expect(item.estimate.severity.basis).toBeUndefined();
+    const detail = await api.call('demo:manager', 'GET', `/findings/${item.id}`);
+    expect(detail.body.estimate.severity.basis).toEqual(expect.any(String));
+    expect(detail.body.estimate.resolved.massKg).toBe(item.item.massKg);
+    const { resolved: _r, ...figures } = detail.body.estimate;
+    expect({ ...figures, severity: { level: figures.severity.level, label: figures.severity.label }, likelihood: { level: figures.likelihood.level, label: figures.likelihood.label } }).toEqual(item.estimate);
+    const full = await api.call('demo:manager', 'GET', '/findings?limit=1&estimate=full');
+    expect(full.body.items[0]).toEqual(detail.body);
+  });
+
   it('refuses unknown filters values and sorts with 400', async () => {
     for (const q of ['state=closed', 'riskBand=Extreme', 'sort=notes', 'overdue=maybe', 'limit=0', 'siteId=nope']) {
       expect((await api.call('demo:manager', 'GET', `/findings?${q}`)).status, q).toBe(400);

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, inArray, type SQL, sql } from 'drizzle-orm';
+import { and, eq, getTableColumns, inArray, type SQL, sql } from 'drizzle-orm';
 import type { FindingListQuery } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
@@ -17,6 +17,12 @@ const SORTS: Record<FindingListQuery['sort'], SortKey> = {
 
 export type FindingInsert = Omit<typeof findings.$inferInsert, 'createdAt' | 'updatedAt' | 'version'>;
 export type FindingChanges = Partial<Omit<FindingInsert, 'id' | 'organisationId' | 'createdBy'>>;
+
+/** Lists carry the estimate without its long explanations (FindingEstimateSummarySchema); PostgreSQL trims it. */
+const LIST_COLUMNS = {
+  ...getTableColumns(findings),
+  estimate: sql<unknown>`${findings.estimate} - 'resolved' #- '{severity,basis}' #- '{likelihood,reasons}'`,
+};
 
 /** A finding with the foreman responsible for its scaffold (for a foreman's scope). */
 export interface FindingWithScope {
@@ -45,7 +51,7 @@ export class FindingsRepository {
     if (query.overdue === true) where.push(overdue);
     if (query.overdue === false) where.push(sql`not coalesce(${overdue}, false)`);
     return executor
-      .select({ row: findings, sortKey: page.sortKey })
+      .select({ row: query.estimate === 'full' ? getTableColumns(findings) : LIST_COLUMNS, sortKey: page.sortKey })
       .from(findings)
       .where(and(...where))
       .orderBy(...page.orderBy)

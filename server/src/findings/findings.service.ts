@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { Finding, FindingCreate, FindingListQuery, FindingUpdate, ListResponse } from '@plummet/shared';
+import type { Finding, FindingCreate, FindingListItem, FindingListQuery, FindingUpdate, ListResponse } from '@plummet/shared';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
@@ -9,7 +9,7 @@ import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { InspectionsRepository } from '../inspections/inspections.repository.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { checkPosition, type FindingFields, findingColumns, resolveItem } from './finding-input.js';
-import { type FindingRow, toFinding } from './finding.mapper.js';
+import { type FindingRow, toFinding, toFindingListItem } from './finding.mapper.js';
 import { FindingsRepository, type FindingWithScope } from './findings.repository.js';
 
 /** Whether the caller may see the finding: everyone in the organisation but a foreman outside their scope. */
@@ -61,13 +61,13 @@ export class FindingsService {
   ) {}
 
   /** Managers, inspectors and admins see all; a foreman sees findings on their scaffolds or assigned to them. */
-  async list(user: AuthUser, query: FindingListQuery): Promise<ListResponse<Finding>> {
+  async list(user: AuthUser, query: FindingListQuery): Promise<ListResponse<FindingListItem | Finding>> {
     const rows = await this.findings.list(user.organisationId, query, user.role === 'foreman' ? user.userId : undefined);
     const now = Date.now();
     return toPage(
       rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
       query,
-      (row) => toFinding(row, now),
+      (row) => (query.estimate === 'full' ? toFinding(row, now) : toFindingListItem(row, now)),
     );
   }
 

@@ -1,7 +1,10 @@
 import { randomUUID } from 'node:crypto';
+import { eq } from 'drizzle-orm';
 import { startOfNextDay } from '@plummet/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { describeAccessMatrix } from '../../test/access-matrix.js';
+import { api as apiCall } from '../../test/request.js';
+import { memberships, organisations, users } from '../db/schema/index.js';
 import { created, DEMO, type DataApi, finishBody, inspectionBody, scaffoldBody, siteBody, startDataApi } from '../../test/data-api.js';
 
 let api: DataApi;
@@ -119,6 +122,21 @@ describe('finishing an inspection', () => {
     await created(api, 'demo:inspector', 'POST', `/inspections/${older}/finish`, finishBody({ finishedAt: '2099-02-03T10:00:00Z' }));
     const after = await api.call('demo:inspector', 'GET', `/scaffolds/${scaffold.id}`);
     expect(after.body.lastInspectedAt).toBe('2099-02-10T10:00:00.000Z');
+  });
+});
+
+describe('an inspection of another inspector', () => {
+  it('can be read by the organisation but changed only by the inspector who carries it out (403)', async () => {
+    const [user] = await api.t.drizzle.insert(users).values({ email: 'second-inspector@demo.test', name: 'Second Inspector' }).returning();
+    const [org] = await api.t.drizzle.select().from(organisations).where(eq(organisations.slug, 'harrow-span'));
+    await api.t.drizzle.insert(memberships).values({ userId: user.id, organisationId: org.id, role: 'inspector' });
+    const token = await api.t.tokenFor('second-inspector@demo.test');
+    const id = await openInspection(api);
+    const as2 = (method: string, path: string, body?: unknown) => apiCall(api.t.baseUrl, method, path, { token, body });
+    expect((await as2('GET', `/inspections/${id}`)).status).toBe(200);
+    expect((await as2('PATCH', `/inspections/${id}`, { location: 'Elsewhere' })).status).toBe(403);
+    expect((await as2('POST', `/inspections/${id}/finish`, finishBody())).status).toBe(403);
+    expect((await as2('PUT', `/inspections/${id}/control-checks/toe-boards`, { result: 'pass' })).status).toBe(403);
   });
 });
 

@@ -1,4 +1,5 @@
 import argon2 from 'argon2';
+import { ARGON2_OPTIONS } from '../auth/password-hasher.js';
 import { sql } from 'drizzle-orm';
 import type { Db } from '../db/db.tokens.js';
 import { memberships, organisations, users } from '../db/schema/index.js';
@@ -11,7 +12,7 @@ export async function seedDemo(db: Db): Promise<{ users: number }> {
   if (process.env.NODE_ENV === 'production') {
     throw new Error('Refusing to seed demo data with NODE_ENV=production.');
   }
-  const passwordHash = await argon2.hash(DEMO_PASSWORD);
+  const passwordHash = await argon2.hash(DEMO_PASSWORD, ARGON2_OPTIONS);
   await db.transaction(async (tx) => {
     const orgIds = new Map<string, string>();
     for (const org of DEMO_ORGANISATIONS) {

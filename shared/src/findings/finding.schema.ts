@@ -154,6 +154,20 @@ export const FindingAssignSchema = z.object({
 });
 export type FindingAssign = z.infer<typeof FindingAssignSchema>;
 
+/**
+ * The estimate as lists carry it: every figure, the severity and likelihood levels with their
+ * words, but not the long explanations (basis, reasons, resolved inputs) that only the detail
+ * (GET /findings/:id) shows. Keeps a page of 50 findings small for phones and fast under load.
+ */
+export const FindingEstimateSummarySchema = FindingEstimateSchema.omit({ resolved: true }).extend({
+  severity: z.object({ level: z.number().int(), label: z.string() }),
+  likelihood: z.object({ level: z.number().int(), label: z.string() }),
+});
+export type FindingEstimateSummary = z.infer<typeof FindingEstimateSummarySchema>;
+
+export const FindingListItemSchema = FindingSchema.extend({ estimate: FindingEstimateSummarySchema });
+export type FindingListItem = z.infer<typeof FindingListItemSchema>;
+
 export const FindingListQuerySchema = z.object({
   ...listQueryShape(['riskScore', 'dueAt', 'createdAt', 'updatedAt', 'heightM'], 'riskScore', 'desc'),
   siteId: IdSchema.optional(),
@@ -164,7 +178,11 @@ export const FindingListQuerySchema = z.object({
   assigneeId: IdSchema.optional(),
   /** Open or made safe and past the due time. */
   overdue: QueryBooleanSchema.optional(),
+  /** `summary` (default): FindingListItemSchema; `full`: every item as GET /findings/:id answers it (FindingFullListResponseSchema). */
+  estimate: z.enum(['summary', 'full']).default('summary'),
 });
 export type FindingListQuery = z.infer<typeof FindingListQuerySchema>;
 
-export const FindingListResponseSchema = listResponseSchema(FindingSchema);
+export const FindingListResponseSchema = listResponseSchema(FindingListItemSchema);
+/** The answer of GET /findings?estimate=full (parse with this one: the summary schema would drop the explanations). */
+export const FindingFullListResponseSchema = listResponseSchema(FindingSchema);

@@ -3,5 +3,5 @@ import { fetchAllPages } from '../../api/all-pages';
 
 /** `GET /api/catalogue`: built-in items and the organisation's own. */
 export function fetchCatalogue(signal?: AbortSignal): Promise<CatalogueItem[]> {
-  return fetchAllPages('/catalogue', {}, CatalogueListResponseSchema, signal);
+  return fetchAllPages<CatalogueItem>('/catalogue', {}, CatalogueListResponseSchema, signal);
 }

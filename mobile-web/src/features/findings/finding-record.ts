@@ -7,6 +7,8 @@ import {
   estimateFinding,
   FindingSchema,
   IdSchema,
+  PHYSICS_EXPOSURE,
+  type DropInput,
   type FindingCreate,
   type FindingEstimateInput,
   type FindingEstimateResult,
@@ -33,6 +35,17 @@ export function tryEstimate(input: FindingEstimateInput | undefined): { result?:
   } catch (error) {
     return { problem: error instanceof Error ? error.message : 'The estimate could not be computed.' };
   }
+}
+
+/** The physics input behind a finding's estimate, as estimateFinding builds it (for "how this was computed"). */
+export function dropInputOf(input: FindingEstimateInput): DropInput {
+  return {
+    massKg: input.massKg,
+    heightM: input.heightM,
+    ...(input.shape ? { shape: input.shape } : {}),
+    ...(input.windSpeedMps != null && input.windSpeedMps > 0 ? { windSpeedMps: input.windSpeedMps } : {}),
+    exposure: PHYSICS_EXPOSURE[input.exposure],
+  };
 }
 
 export function buildFindingRecord(

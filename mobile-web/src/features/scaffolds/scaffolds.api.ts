@@ -3,5 +3,5 @@ import { fetchAllPages } from '../../api/all-pages';
 
 /** `GET /api/scaffolds?siteId=`: the scaffolds of one site. */
 export function fetchScaffoldsOfSite(siteId: string, signal?: AbortSignal): Promise<Scaffold[]> {
-  return fetchAllPages('/scaffolds', { siteId }, ScaffoldListResponseSchema, signal);
+  return fetchAllPages<Scaffold>('/scaffolds', { siteId }, ScaffoldListResponseSchema, signal);
 }

@@ -3,5 +3,5 @@ import { fetchAllPages } from '../../api/all-pages';
 
 /** `GET /api/sites`: every site of the user's organisation, by name. */
 export function fetchSites(signal?: AbortSignal): Promise<Site[]> {
-  return fetchAllPages('/sites', { sort: 'name', order: 'asc' }, SiteListResponseSchema, signal);
+  return fetchAllPages<Site>('/sites', { sort: 'name', order: 'asc' }, SiteListResponseSchema, signal);
 }

@@ -1,4 +1,5 @@
-import { IonButton, IonSpinner } from '@ionic/react';
+import { IonButton } from '@ionic/react';
+import { Spinner } from '../../../components/Spinner';
 import type { ReactNode } from 'react';
 import { formatDateTime } from '../../../app/format-date';
 import type { StoredSession } from '../session';
@@ -13,7 +14,7 @@ export function RequireSession({ children }: { children: (session: StoredSession
   if (status === 'loading') {
     return (
       <div className="loading-note" role="status">
-        <IonSpinner name="crescent" aria-hidden="true" /> Opening…
+        <Spinner /> Opening…
       </div>
     );
   }

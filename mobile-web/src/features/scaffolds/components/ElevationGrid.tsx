@@ -13,6 +13,7 @@ import {
   type PinnedFinding,
 } from '../elevation-grid';
 import { ScaffoldDrawing } from './ScaffoldDrawing';
+import '../../../components/RiskBadge.css';
 import './ElevationGrid.css';
 
 interface ElevationGridProps {

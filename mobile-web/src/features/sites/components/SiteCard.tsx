@@ -1,7 +1,8 @@
-import { IonButton, IonIcon, IonSpinner } from '@ionic/react';
+import { IonButton, IonIcon } from '@ionic/react';
 import type { Site } from '@plummet/shared';
 import { checkmarkCircle, cloudDownloadOutline } from 'ionicons/icons';
 import { formatDateTime } from '../../../app/format-date';
+import { Spinner } from '../../../components/Spinner';
 import type { SiteRecord } from '../../../local-db/records';
 import { describeStorage } from '../../../sync/storage';
 import { useMakeSiteOfflineMutation } from '../sites.mutations';
@@ -54,7 +55,7 @@ export function SiteCard({ site, local, organisationId, online }: SiteCardProps)
             onClick={() => makeOffline.mutate({ site, organisationId })}
             data-testid="make-offline"
           >
-            {makeOffline.isPending ? <IonSpinner name="crescent" aria-hidden="true" /> : <IonIcon slot="start" icon={cloudDownloadOutline} aria-hidden="true" />}
+            {makeOffline.isPending ? <Spinner /> : <IonIcon slot="start" icon={cloudDownloadOutline} aria-hidden="true" />}
             {makeOffline.isPending ? 'Downloading…' : local?.offline ? 'Update offline copy' : 'Make available offline'}
           </IonButton>
         )}

@@ -1,0 +1,41 @@
+import { IonIcon } from '@ionic/react';
+import { chevronForward, shieldCheckmarkOutline } from 'ionicons/icons';
+import { Link } from 'react-router-dom';
+import { RiskBadge } from '../../../components/RiskBadge';
+import type { FindingRecord } from '../../../local-db/records';
+import { formatQuantity, type Units } from '../../settings/units';
+import './FindingRow.css';
+
+const STATE_WORDS: Record<FindingRecord['state'], string> = {
+  open: 'Open',
+  'made-safe': 'Made safe',
+  fixed: 'Fixed',
+  verified: 'Verified',
+};
+
+/** One finding as a row: risk in words, the item, where, and its energy. 88 px tall (virtual lists rely on it). */
+export function FindingRow({ finding, units, showScaffold }: { finding: FindingRecord; units: Units; showScaffold?: string }) {
+  return (
+    <Link to={`/findings/${finding.id}`} className="finding-row" data-testid="finding-row" data-finding-id={finding.id}>
+      <span className="finding-row__risk">
+        <RiskBadge band={finding.riskBand} score={finding.riskScore} />
+      </span>
+      <span className="finding-row__body">
+        <span className="finding-row__item">{finding.item.name}</span>
+        <span className="finding-row__where">
+          {showScaffold ? `${showScaffold} · ` : ''}
+          {finding.elevation} · lift {finding.lift} · bay {finding.bay} · {formatQuantity('height', finding.heightM, units)} up
+        </span>
+        <span className="finding-row__figures">
+          {formatQuantity('energy', finding.estimate.impactEnergyJ, units)} · {finding.estimate.severity.label}
+          {finding.state !== 'open' && (
+            <span className="finding-row__state">
+              <IonIcon icon={shieldCheckmarkOutline} aria-hidden="true" /> {STATE_WORDS[finding.state]}
+            </span>
+          )}
+        </span>
+      </span>
+      <IonIcon className="finding-row__chevron" icon={chevronForward} aria-hidden="true" />
+    </Link>
+  );
+}

@@ -1,0 +1,19 @@
+import type { Control, InspectionReason } from '@plummet/shared';
+
+export const REASON_WORDS: Record<InspectionReason, { label: string; hint: string }> = {
+  scheduled: { label: 'Scheduled', hint: 'The regular inspection of the site’s regime' },
+  'after-alteration': { label: 'After an alteration', hint: 'Something was added, removed or changed' },
+  'after-bad-weather': { label: 'After bad weather', hint: 'Storm, high wind or heavy snow' },
+  handover: { label: 'Handover', hint: 'Before first use, or taking over from another firm' },
+};
+
+/** The seven falling-object controls, in the trade's words with what to look for. */
+export const CONTROL_WORDS: Record<Control, { label: string; lookFor: string }> = {
+  'toe-boards': { label: 'Toe boards', lookFor: 'Fitted on every working lift, no gaps, secured' },
+  'brick-guards': { label: 'Brick guards', lookFor: 'Where materials are stacked above the toe board' },
+  'netting-or-sheeting': { label: 'Netting or sheeting', lookFor: 'Intact, tied in, no tears or open laps' },
+  'fans-or-canopies': { label: 'Fans or canopies', lookFor: 'Over walkways and entrances, boarded and clear' },
+  'exclusion-zone-barriers': { label: 'Exclusion-zone barriers', lookFor: 'Barriers and signs keep people out below' },
+  'tool-tethering': { label: 'Tool tethering', lookFor: 'Hand tools at height are tethered' },
+  'material-storage': { label: 'Material storage', lookFor: 'Stacked low, away from the edge, within guards' },
+};

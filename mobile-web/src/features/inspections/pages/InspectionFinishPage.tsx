@@ -1,0 +1,164 @@
+import { IonButton, IonContent, IonFooter, IonInput, IonNote, IonPage, useIonRouter } from '@ionic/react';
+import { InspectionFinishSchema } from '@plummet/shared';
+import { useEffect, useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { AppHeader } from '../../../components/AppHeader';
+import { CautionNote } from '../../../components/CautionNote';
+import { FormSection } from '../../../components/FormSection';
+import { db, readMeta, writeMeta } from '../../../local-db/db';
+import { RequireSession } from '../../auth/components/RequireSession';
+import { useSession, useUnits } from '../../auth/session.queries';
+import { useFindingsOfInspection } from '../../findings/findings.queries';
+import { useScaffold } from '../../scaffolds/scaffolds.queries';
+import { useLocalSite } from '../../sites/sites.queries';
+import { SignaturePad } from '../components/SignaturePad';
+import { CONTROL_WORDS } from '../inspection-words';
+import { useControlChecks, useInspection } from '../inspections.queries';
+import { useFinishInspectionMutation } from '../inspections.mutations';
+import { unansweredControls } from '../inspections.store';
+import { draftReport, REPORT_FIELD_LABELS, type ReportFields } from '../report-draft';
+
+const draftKey = (inspectionId: string) => `report-draft:${inspectionId}`;
+const LONG_FIELDS = ['location', 'equipment', 'mattersGivingRisk', 'actionTaken', 'furtherAction'] as const;
+
+export function InspectionFinishPage() {
+  const { inspectionId } = useParams();
+  const router = useIonRouter();
+  const units = useUnits();
+  const { session } = useSession();
+  const inspection = useInspection(inspectionId);
+  const scaffold = useScaffold(inspection?.scaffoldId);
+  const site = useLocalSite(inspection?.siteId);
+  const findings = useFindingsOfInspection(inspectionId);
+  const checks = useControlChecks(inspectionId);
+  const finish = useFinishInspectionMutation();
+  const [fields, setFields] = useState<ReportFields>();
+  const [signature, setSignature] = useState<string | null>(null);
+  const [issues, setIssues] = useState<Partial<Record<string, string>>>({});
+
+  const ready = inspection && scaffold && site !== undefined && findings && checks && session;
+  useEffect(() => {
+    if (!ready || fields || !inspectionId) return;
+    void readMeta<ReportFields>(db, draftKey(inspectionId)).then((saved) =>
+      setFields(saved ?? draftReport({ site: site ?? undefined, scaffold, findings, checks, user: session.user, units })),
+    );
+  }, [ready, fields, inspectionId, site, scaffold, findings, checks, session, units]);
+
+  const missing = checks ? unansweredControls(checks) : [];
+
+  function update(name: keyof ReportFields, value: string) {
+    setFields((current) => (current ? { ...current, [name]: value } : current));
+  }
+
+  function keepDraft() {
+    if (fields && inspectionId) void writeMeta(db, draftKey(inspectionId), fields);
+  }
+
+  function submit() {
+    if (!fields || !inspection) return;
+    const parsed = InspectionFinishSchema.safeParse({ ...fields, signature });
+    if (!parsed.success) {
+      setIssues(Object.fromEntries(parsed.error.issues.map((issue) => [String(issue.path[0]), 'Fill this in.'])));
+      return;
+    }
+    setIssues({});
+    finish.mutate(
+      { inspectionId: inspection.id, report: parsed.data },
+      {
+        onSuccess: () => {
+          void db.meta.delete(draftKey(inspection.id));
+          router.push(`/scaffolds/${inspection.scaffoldId}`, 'root', 'replace');
+        },
+      },
+    );
+  }
+
+  return (
+    <IonPage>
+      <AppHeader title="Finish and sign" backHref={inspectionId ? `/inspections/${inspectionId}` : '/'} />
+      <IonContent className="ion-padding" data-testid="finish-page">
+        <RequireSession>
+          {() => (
+            <div className="page-body">
+              {inspection?.status === 'finished' && <p className="empty-note">This inspection is already finished and signed.</p>}
+              {missing.length > 0 && (
+                <p className="empty-note" role="alert" data-testid="controls-missing">
+                  Answer every control check before signing. Still to answer: {missing.map((control) => CONTROL_WORDS[control].label).join(', ')}.
+                </p>
+              )}
+              {fields && (
+                <>
+                  <FormSection title="The report">
+                    <p className="muted">Drafted from your walk: read every line and change what needs changing. The date and time are set when you sign.</p>
+                    <IonInput
+                      label={REPORT_FIELD_LABELS.reportFor}
+                      labelPlacement="stacked"
+                      fill="outline"
+                      value={fields.reportFor}
+                      onIonInput={(event) => update('reportFor', String(event.detail.value ?? ''))}
+                      onIonBlur={keepDraft}
+                      data-testid="report-reportFor"
+                    />
+                    {issues.reportFor && <IonNote color="danger" className="field-error">{issues.reportFor}</IonNote>}
+                    {LONG_FIELDS.map((name) => (
+                      <label key={name} className="report-field">
+                        <span className="select-field__label">{REPORT_FIELD_LABELS[name]}</span>
+                        <textarea
+                          className="plain-textarea"
+                          rows={name === 'mattersGivingRisk' || name === 'furtherAction' ? 6 : 3}
+                          value={fields[name]}
+                          onChange={(event) => update(name, event.target.value)}
+                          onBlur={keepDraft}
+                          data-testid={`report-${name}`}
+                        />
+                        {issues[name] && <IonNote color="danger" className="field-error">{issues[name]}</IonNote>}
+                      </label>
+                    ))}
+                  </FormSection>
+                  <FormSection title="Signed by">
+                    <IonInput
+                      label={REPORT_FIELD_LABELS.reporterName}
+                      labelPlacement="stacked"
+                      fill="outline"
+                      value={fields.reporterName}
+                      onIonInput={(event) => update('reporterName', String(event.detail.value ?? ''))}
+                      onIonBlur={keepDraft}
+                      data-testid="report-reporterName"
+                    />
+                    {issues.reporterName && <IonNote color="danger" className="field-error">{issues.reporterName}</IonNote>}
+                    <IonInput
+                      className="report-field"
+                      label={REPORT_FIELD_LABELS.reporterPosition}
+                      labelPlacement="stacked"
+                      fill="outline"
+                      value={fields.reporterPosition}
+                      onIonInput={(event) => update('reporterPosition', String(event.detail.value ?? ''))}
+                      onIonBlur={keepDraft}
+                      data-testid="report-reporterPosition"
+                    />
+                    {issues.reporterPosition && <IonNote color="danger" className="field-error">{issues.reporterPosition}</IonNote>}
+                    <p className="select-field__label report-field">Drawn signature (optional)</p>
+                    <SignaturePad value={signature} onChange={setSignature} />
+                  </FormSection>
+                  <CautionNote />
+                </>
+              )}
+            </div>
+          )}
+        </RequireSession>
+      </IonContent>
+      <IonFooter>
+        <div className="bottom-actions">
+          <IonButton disabled={!fields || missing.length > 0 || finish.isPending || inspection?.status === 'finished'} onClick={submit} data-testid="sign-and-finish">
+            Sign and finish
+          </IonButton>
+        </div>
+        {finish.isError && (
+          <IonNote color="danger" className="field-error ion-padding-horizontal" role="alert">
+            {finish.error.message}
+          </IonNote>
+        )}
+      </IonFooter>
+    </IonPage>
+  );
+}

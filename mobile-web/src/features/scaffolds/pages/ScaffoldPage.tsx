@@ -1,0 +1,95 @@
+import { IonButton, IonContent, IonFooter, IonPage, useIonRouter } from '@ionic/react';
+import { useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { formatDate, formatDateTime, isPast } from '../../../app/format-date';
+import { AppHeader } from '../../../components/AppHeader';
+import { CautionNote } from '../../../components/CautionNote';
+import { RequireSession } from '../../auth/components/RequireSession';
+import { useUnits } from '../../auth/session.queries';
+import { useFindingsOfScaffold } from '../../findings/findings.queries';
+import { StartInspectionSheet } from '../../inspections/components/StartInspectionSheet';
+import { useInspectionInProgress } from '../../inspections/inspections.queries';
+import { useStartInspectionMutation } from '../../inspections/inspections.mutations';
+import { ScaffoldElevations } from '../components/ScaffoldElevations';
+import { ScaffoldStatusTag } from '../components/ScaffoldStatusTag';
+import { useScaffold } from '../scaffolds.queries';
+import './ScaffoldPage.css';
+
+export function ScaffoldPage() {
+  const { scaffoldId } = useParams();
+  const router = useIonRouter();
+  const units = useUnits();
+  const scaffold = useScaffold(scaffoldId);
+  const findings = useFindingsOfScaffold(scaffoldId);
+  const walk = useInspectionInProgress(scaffoldId);
+  const start = useStartInspectionMutation();
+  const [starting, setStarting] = useState(false);
+
+  return (
+    <IonPage>
+      <AppHeader title={scaffold ? `Scaffold ${scaffold.reference}` : 'Scaffold'} backHref={scaffold ? `/sites/${scaffold.siteId}` : '/'} />
+      <IonContent className="ion-padding" data-testid="scaffold-page">
+        <RequireSession>
+          {(session) => (
+            <div className="page-body">
+              {scaffold === null && <p className="empty-note">This scaffold is not on this phone.</p>}
+              {scaffold && (
+                <>
+                  <div className="scaffold-summary">
+                    <ScaffoldStatusTag status={scaffold.status} />
+                    <dl className="data-list">
+                      <dt>Last inspected</dt>
+                      <dd data-testid="last-inspected">{formatDateTime(scaffold.lastInspectedAt)}</dd>
+                      <dt>Next due</dt>
+                      <dd className={isPast(scaffold.nextDueAt) ? 'scaffold-summary__overdue' : undefined} data-testid="next-due">
+                        {formatDate(scaffold.nextDueAt)}
+                        {isPast(scaffold.nextDueAt) ? ' (overdue)' : ''}
+                      </dd>
+                      <dt>Open findings</dt>
+                      <dd>{findings?.filter((f) => f.state === 'open' || f.state === 'made-safe').length ?? '…'}</dd>
+                    </dl>
+                    <p className="muted scaffold-summary__description">{scaffold.description}</p>
+                  </div>
+                  <ScaffoldElevations scaffold={scaffold} findings={findings ?? []} units={units} />
+                  <CautionNote />
+                  <StartInspectionSheet
+                    isOpen={starting}
+                    scaffoldReference={scaffold.reference}
+                    units={units}
+                    onCancel={() => setStarting(false)}
+                    onStart={({ reason, windSpeedMps }) =>
+                      start.mutate(
+                        { scaffold, inspectorId: session.user.id, reason, windSpeedMps },
+                        {
+                          onSuccess: (inspection) => {
+                            setStarting(false);
+                            router.push(`/inspections/${inspection.id}`, 'forward');
+                          },
+                        },
+                      )
+                    }
+                  />
+                </>
+              )}
+            </div>
+          )}
+        </RequireSession>
+      </IonContent>
+      {scaffold && walk !== undefined && (
+        <IonFooter>
+          <div className="bottom-actions">
+            {walk ? (
+              <IonButton routerLink={`/inspections/${walk.id}`} data-testid="continue-inspection">
+                Continue the walk
+              </IonButton>
+            ) : (
+              <IonButton onClick={() => setStarting(true)} data-testid="start-inspection">
+                Start an inspection
+              </IonButton>
+            )}
+          </div>
+        </IonFooter>
+      )}
+    </IonPage>
+  );
+}

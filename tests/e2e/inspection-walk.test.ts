@@ -1,0 +1,309 @@
+import sharp from 'sharp';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { artifactPath, launchPhone } from '../support/browser.js';
+import { choose, onScreen, readTable, typeInto } from '../support/phone-page.js';
+import { type RunningServer, startBuiltServer } from '../support/server.js';
+
+/** A camera-sized JPEG (2400 × 1800, larger than the phone keeps) with some structure in it. */
+async function cameraJpeg(hue: { r: number; g: number; b: number }): Promise<Buffer> {
+  const stripes = Buffer.from(
+    `<svg xmlns="http://www.w3.org/2000/svg" width="2400" height="1800"><rect width="2400" height="1800" fill="rgb(${hue.r},${hue.g},${hue.b})"/>` +
+      Array.from({ length: 24 }, (_, i) => `<rect x="${i * 100}" y="0" width="40" height="1800" fill="#ffffff" opacity="0.35"/>`).join('') +
+      `<circle cx="1200" cy="900" r="400" fill="#1c1424"/></svg>`,
+  );
+  return sharp(stripes).jpeg({ quality: 90 }).toBuffer();
+}
+
+interface FindingSnapshot {
+  id: string;
+  text: string;
+}
+
+async function findingRows(page: Page): Promise<FindingSnapshot[]> {
+  const rows = onScreen(page, 'inspection-findings').getByTestId('finding-row');
+  const count = await rows.count();
+  const out: FindingSnapshot[] = [];
+  for (let i = 0; i < count; i++) {
+    out.push({ id: (await rows.nth(i).getAttribute('data-finding-id')) ?? '', text: (await rows.nth(i).innerText()).replace(/\s+/g, ' ') });
+  }
+  return out.sort((a, b) => a.id.localeCompare(b.id));
+}
+
+async function addFindingAt(page: Page, lift: number, bay: number): Promise<void> {
+  await onScreen(page, 'tab-walk').click();
+  await onScreen(page, `cell-${lift}-${bay}`).click();
+  await onScreen(page, 'add-finding-here').click();
+  await onScreen(page, 'finding-editor').waitFor();
+}
+
+async function pickCatalogueItem(page: Page, search: string): Promise<void> {
+  await typeInto(page, 'item-search', search);
+  await onScreen(page, 'item-hit').first().click();
+  await onScreen(page, 'chosen-item').waitFor();
+}
+
+async function attachPhoto(page: Page, inputTestId: string, jpeg: Buffer): Promise<void> {
+  const editor = page.locator('.ion-page:not(.ion-page-hidden)').last();
+  await editor.getByTestId(inputTestId).setInputFiles({ name: 'camera.jpg', mimeType: 'image/jpeg', buffer: jpeg });
+}
+
+describe('the inspector’s walk with no signal', () => {
+  let server: RunningServer;
+  let phone: Awaited<ReturnType<typeof launchPhone>>;
+  const pageErrors: string[] = [];
+  /** One phone tab through the whole file: each test carries on where the last left off. */
+  let page: Page;
+
+  beforeAll(async () => {
+    server = await startBuiltServer();
+    phone = await launchPhone();
+  });
+  afterAll(async () => {
+    await phone?.close();
+    await server?.dispose();
+  });
+
+  it('records an inspection offline with three findings and photos, and keeps all of it through a reload', async () => {
+    page = await phone.context.newPage();
+    page.on('pageerror', (error) => pageErrors.push(error.message));
+    const [jpegA, jpegB, jpegC] = await Promise.all([cameraJpeg({ r: 190, g: 110, b: 40 }), cameraJpeg({ r: 60, g: 120, b: 170 }), cameraJpeg({ r: 150, g: 40, b: 40 })]);
+
+    // Online: install the app, sign in, make the site available offline.
+    await page.goto(server.url);
+    await page.getByTestId('app-shell').waitFor();
+    await page.waitForFunction(() => navigator.serviceWorker.controller !== null, undefined, { timeout: 30_000 });
+    await onScreen(page, 'home-sign-in').click();
+    await typeInto(page, 'sign-in-email', 'inspector@demo.test');
+    await typeInto(page, 'sign-in-password', 'plummet-demo');
+    await onScreen(page, 'sign-in-submit').click();
+    await expect.poll(() => onScreen(page, 'session-expiry').textContent(), { timeout: 15_000 }).toMatch(/Works offline until/);
+
+    const quayside = onScreen(page, 'site-card').filter({ hasText: 'Quayside Library' });
+    await quayside.getByTestId('make-offline').click();
+    await quayside.getByTestId('storage-report').waitFor({ timeout: 30_000 });
+    expect(await quayside.getByTestId('storage-report').innerText()).toMatch(/Plummet uses .+ on this phone/);
+    expect(['granted', 'best-effort', 'unsupported']).toContain(await quayside.getByTestId('storage-persistence').getAttribute('data-persistence'));
+    await expect.poll(() => quayside.getAttribute('data-offline')).toBe('true');
+    await page.screenshot({ path: artifactPath('sites.png') });
+
+    // No signal from here on.
+    await server.stop();
+    await phone.context.setOffline(true);
+    await expect.poll(() => onScreen(page, 'online-status').first().getAttribute('data-online')).toBe('false');
+
+    await quayside.getByTestId('open-site').click();
+    await onScreen(page, 'scaffold-card').filter({ hasText: 'QL-A' }).getByTestId('open-scaffold').click();
+    await onScreen(page, 'elevation-grid').waitFor();
+    await expect.poll(() => onScreen(page, 'cell-6-3').getAttribute('data-count')).toBe('1'); // a downloaded finding, pinned
+    await page.getByTestId('offline-ready').waitFor({ state: 'detached', timeout: 15_000 });
+    await page.screenshot({ path: artifactPath('scaffold-page.png') });
+
+    // Start the walk.
+    await onScreen(page, 'start-inspection').click();
+    await choose(page, 'inspection-reason', 'after-bad-weather');
+    await typeInto(page, 'inspection-wind', '6');
+    await onScreen(page, 'start-walk').click();
+    await onScreen(page, 'inspection-page').waitFor();
+    const inspectionUrl = page.url();
+
+    // Finding 1: a catalogue item, with a photo.
+    await addFindingAt(page, 5, 4);
+    await pickCatalogueItem(page, 'hammer');
+    await choose(page, 'exposure', 'public');
+    await choose(page, 'likelihood-edgeDistance', 'at-edge');
+    await attachPhoto(page, 'finding-photos-input', jpegA);
+    await onScreen(page, 'finding-photos').getByTestId('photo-thumb').waitFor();
+    await expect.poll(() => onScreen(page, 'estimate-energy').textContent()).toMatch(/\d+(\.\d+)? J$/);
+    const energyBefore = await onScreen(page, 'estimate-energy').textContent();
+    await onScreen(page, 'finding-editor').evaluate((content) => (content as HTMLElement & { scrollToTop(): Promise<void> }).scrollToTop());
+    await page.screenshot({ path: artifactPath('finding-editor.png') });
+    await onScreen(page, 'estimate-panel').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: artifactPath('finding-editor-estimate.png') });
+    await onScreen(page, 'save-finding').click();
+    await onScreen(page, 'inspection-page').waitFor();
+
+    // Finding 2: described by hand, measured height, made safe now, with a photo; the estimate follows typing.
+    await addFindingAt(page, 3, 7);
+    await choose(page, 'item-mode', 'custom');
+    await typeInto(page, 'custom-name', 'Brick offcut');
+    await typeInto(page, 'custom-mass', '2.3');
+    await typeInto(page, 'dimension-lengthM', '21.5');
+    await typeInto(page, 'dimension-widthM', '10');
+    await typeInto(page, 'dimension-heightM', '6.5');
+    await choose(page, 'height-mode', 'measured');
+    await typeInto(page, 'measured-height', '5.5');
+    const lowEnergy = await onScreen(page, 'estimate-energy').textContent();
+    await typeInto(page, 'measured-height', '11');
+    await expect.poll(() => onScreen(page, 'estimate-energy').textContent()).not.toBe(lowEnergy);
+    await attachPhoto(page, 'finding-photos-input', jpegB);
+    await onScreen(page, 'finding-photos').getByTestId('photo-thumb').waitFor();
+    await onScreen(page, 'made-safe').check();
+    await typeInto(page, 'made-safe-note', 'Bagged and lowered to the ground');
+    await onScreen(page, 'save-finding').click();
+    await onScreen(page, 'inspection-page').waitFor();
+
+    // Finding 3: a catalogue item, no photo.
+    await addFindingAt(page, 6, 10);
+    await pickCatalogueItem(page, 'coupler');
+    await choose(page, 'exposure', 'hard-hats');
+    await onScreen(page, 'save-finding').click();
+    await onScreen(page, 'inspection-page').waitFor();
+
+    // The seven control checks; toe boards fail, with a note and a photo.
+    await onScreen(page, 'tab-checks').click();
+    for (const control of ['brick-guards', 'netting-or-sheeting', 'fans-or-canopies', 'exclusion-zone-barriers', 'tool-tethering', 'material-storage']) {
+      await choose(page, `control-${control}-result`, control === 'fans-or-canopies' ? 'not-applicable' : 'pass');
+    }
+    await choose(page, 'control-toe-boards-result', 'fail');
+    await typeInto(page, 'control-toe-boards-note', 'Missing at North bay 7, lift 5');
+    await onScreen(page, 'tab-checks').click(); // leave the note: it is saved on blur
+    await attachPhoto(page, 'control-toe-boards-photo-input', jpegC);
+    await expect.poll(() => onScreen(page, 'control-toe-boards-photo').getAttribute('data-count')).toBe('1');
+    await expect.poll(() => onScreen(page, 'tab-checks').textContent()).toBe('Checks 7/7');
+    await onScreen(page, 'control-toe-boards').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: artifactPath('control-checks.png') });
+
+    await onScreen(page, 'tab-findings').click();
+    await expect.poll(async () => (await findingRows(page)).length).toBe(3);
+    const before = await findingRows(page);
+    await onScreen(page, 'tab-walk').click();
+    await onScreen(page, 'cell-5-4').click();
+    await onScreen(page, 'cell-panel').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: artifactPath('inspection-walk.png') });
+    await onScreen(page, 'tab-findings').click();
+    expect(before.map((row) => row.text).join('\n')).toContain('Brick offcut');
+
+    // Finish and sign, with a drawn signature.
+    await onScreen(page, 'go-finish').click();
+    await onScreen(page, 'finish-page').waitFor();
+    await expect.poll(() => onScreen(page, 'report-mattersGivingRisk').inputValue()).toContain('Brick offcut');
+    const pad = await onScreen(page, 'signature-pad').boundingBox();
+    if (pad) {
+      await page.mouse.move(pad.x + 30, pad.y + pad.height * 0.6);
+      await page.mouse.down();
+      await page.mouse.move(pad.x + pad.width * 0.4, pad.y + pad.height * 0.3, { steps: 8 });
+      await page.mouse.move(pad.x + pad.width * 0.8, pad.y + pad.height * 0.7, { steps: 8 });
+      await page.mouse.up();
+    }
+    await page.screenshot({ path: artifactPath('finish-and-sign.png') });
+    await onScreen(page, 'sign-and-finish').click();
+    await onScreen(page, 'scaffold-page').waitFor();
+    await expect.poll(() => onScreen(page, 'cell-5-4').getAttribute('data-count')).toBe('1');
+
+    // The calculator, for a what-if with no record.
+    await page.goto(`${server.url}/calculator`);
+    await onScreen(page, 'calculator-page').waitFor();
+    await choose(page, 'item-mode', 'custom');
+    await typeInto(page, 'custom-name', 'Podger spanner');
+    await typeInto(page, 'custom-mass', '0.45');
+    await choose(page, 'custom-shape', 'rod');
+    await typeInto(page, 'dimension-lengthM', '30');
+    await typeInto(page, 'dimension-diameterM', '2');
+    await typeInto(page, 'calc-height', '12');
+    await typeInto(page, 'calc-wind', '8');
+    await onScreen(page, 'what-if').waitFor();
+    await onScreen(page, 'what-if-section').scrollIntoViewIfNeeded();
+    const now = Number(await onScreen(page, 'what-if-now').getAttribute('data-score'));
+    expect(Number(await onScreen(page, 'what-if-tethered').getAttribute('data-score'))).toBeLessThan(now);
+    expect(Number(await onScreen(page, 'what-if-all').getAttribute('data-score'))).toBeLessThan(now);
+    await page.screenshot({ path: artifactPath('calculator.png') });
+
+    // Reload while still offline: everything is still on the phone.
+    const waitingBefore = await readTable<{ entity: string; action: string }>(page, 'outbox');
+    await page.goto(inspectionUrl);
+    await page.reload();
+    await onScreen(page, 'inspection-page').waitFor();
+    expect(await onScreen(page, 'online-status').first().getAttribute('data-online')).toBe('false');
+    await onScreen(page, 'tab-findings').click();
+    await expect.poll(async () => (await findingRows(page)).length).toBe(3);
+    expect(await findingRows(page)).toEqual(before);
+
+    const outbox = await readTable<{ entity: string; action: string }>(page, 'outbox');
+    expect(outbox).toEqual(waitingBefore);
+    const tally = outbox.reduce<Record<string, number>>((all, entry) => ({ ...all, [`${entry.entity}:${entry.action}`]: (all[`${entry.entity}:${entry.action}`] ?? 0) + 1 }), {});
+    expect(tally).toEqual({
+      'inspection:create': 1,
+      'finding:create': 3,
+      'finding:state': 1,
+      'photo:upload': 3,
+      'control-check:put': 7,
+      'inspection:finish': 1,
+    });
+    expect(await onScreen(page, 'outbox-count').getAttribute('data-count')).toBe(String(outbox.length));
+
+    const photos = await readTable<{ ownerType: string; width: number; height: number; data: { blobType?: string; bufferSize?: number } }>(page, 'photos');
+    expect(photos.filter((photo) => photo.ownerType === 'finding')).toHaveLength(2);
+    for (const photo of photos) {
+      expect(Math.max(photo.width, photo.height)).toBe(1600); // shrunk from 2400 px on the phone
+      expect(photo.data.blobType ?? 'image/jpeg').toBe('image/jpeg');
+    }
+
+    // Each finding still shows its estimate, and its photo where it has one.
+    for (const row of before) {
+      await onScreen(page, 'inspection-findings').locator(`[data-finding-id="${row.id}"]`).click();
+      await onScreen(page, 'finding-editor').waitFor();
+      expect(await onScreen(page, 'estimate-energy').textContent()).toMatch(/ J$/);
+      if (/Scaffold hammer|Brick offcut/.test(row.text)) {
+        const image = onScreen(page, 'finding-photos').getByTestId('photo-thumb').locator('img');
+        await expect.poll(() => image.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(1600);
+      }
+      if (/Scaffold hammer/.test(row.text)) expect(await onScreen(page, 'estimate-energy').textContent()).toBe(energyBefore);
+      await page.goBack();
+      await onScreen(page, 'inspection-page').waitFor();
+      await onScreen(page, 'tab-findings').click();
+    }
+
+    expect(pageErrors).toEqual([]);
+  });
+
+  it('scrolls a list of 2,000 findings with only the rows in view in the page', async () => {
+    const siteId = await page.evaluate(
+      () =>
+        new Promise<string>((resolve, reject) => {
+          const open = indexedDB.open('plummet');
+          open.onerror = () => reject(open.error);
+          open.onsuccess = () => {
+            const tx = open.result.transaction('findings', 'readwrite');
+            const store = tx.objectStore('findings');
+            const all = store.getAll();
+            all.onsuccess = () => {
+              const template = all.result[0] as Record<string, unknown> & { siteId: string };
+              for (let i = 0; i < 2000; i++) {
+                store.put({ ...template, id: `00000000-0000-4000-8000-${String(i).padStart(12, '0')}`, riskScore: (i % 25) + 1, notes: `bulk ${i}` });
+              }
+              tx.oncomplete = () => {
+                open.result.close();
+                resolve(template.siteId);
+              };
+            };
+          };
+        }),
+    );
+    await page.goto(`${server.url}/sites/${siteId}/findings`);
+    const list = onScreen(page, 'finding-list');
+    await list.waitFor();
+    expect(Number(await list.locator('[role="list"]').getAttribute('aria-rowcount'))).toBeGreaterThanOrEqual(2000);
+    expect(await list.getByTestId('finding-row').count()).toBeLessThan(40);
+    await page.screenshot({ path: artifactPath('finding-list.png') });
+    await list.evaluate((element) => element.scrollTo(0, element.scrollHeight));
+    await expect.poll(() => list.getByTestId('finding-row').last().getAttribute('data-finding-id')).not.toBeNull();
+    expect(await list.getByTestId('finding-row').count()).toBeLessThan(40);
+  });
+
+  it('switches to imperial units and, on sign-out, warns about unsent changes before clearing the phone', async () => {
+    await page.goto(`${server.url}/settings`);
+    await onScreen(page, 'settings-page').waitFor();
+    const waiting = Number(await onScreen(page, 'outbox-count').getAttribute('data-count'));
+    await choose(page, 'units', 'imperial');
+    await expect.poll(() => onScreen(page, 'outbox-count').getAttribute('data-count')).toBe(String(waiting + 1));
+
+    await onScreen(page, 'sign-out').click();
+    expect(await onScreen(page, 'sign-out-warning').innerText()).toContain(`${waiting + 1} changes have not reached the server yet`);
+    await onScreen(page, 'confirm-sign-out').click();
+    await onScreen(page, 'home-sign-in').waitFor();
+    expect(await readTable(page, 'outbox')).toEqual([]);
+    expect(await readTable(page, 'photos')).toEqual([]);
+    expect(await readTable(page, 'meta')).toEqual([]);
+  });
+});

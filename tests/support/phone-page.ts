@@ -1,0 +1,48 @@
+import type { Locator, Page } from 'playwright-core';
+
+/**
+ * Ionic keeps earlier pages of the stack in the DOM (hidden), so the same test id can exist more
+ * than once: these helpers pick the one on screen.
+ */
+export function onScreen(page: Page | Locator, testId: string): Locator {
+  return page.getByTestId(testId).filter({ visible: true });
+}
+
+/** Types into a field: a native input or textarea, or an Ionic input (its native input sits inside the host). */
+export async function typeInto(page: Page | Locator, testId: string, text: string): Promise<void> {
+  const field = onScreen(page, testId);
+  const tag = await field.evaluate((element) => element.tagName);
+  await (tag === 'INPUT' || tag === 'TEXTAREA' ? field : field.locator('input, textarea').first()).fill(text);
+}
+
+/** Chooses an option of a ChoiceGroup by its value. */
+export async function choose(page: Page | Locator, groupTestId: string, value: string): Promise<void> {
+  await onScreen(page, groupTestId).locator(`label[data-value="${value}"]`).click();
+}
+
+/** Reads the phone's IndexedDB table straight from the browser (no app code involved). */
+export async function readTable<T = Record<string, unknown>>(page: Page, table: string): Promise<T[]> {
+  return page.evaluate(
+    (name) =>
+      new Promise<T[]>((resolve, reject) => {
+        const open = indexedDB.open('plummet');
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const request = open.result.transaction(name, 'readonly').objectStore(name).getAll();
+          request.onsuccess = () => {
+            const rows = request.result.map((row: Record<string, unknown>) => {
+              // Blobs do not cross into the test: describe them instead.
+              const copy: Record<string, unknown> = { ...row };
+              if (row.data instanceof Blob) copy.data = { blobType: row.data.type, blobSize: row.data.size };
+              else if (row.data instanceof ArrayBuffer) copy.data = { bufferSize: row.data.byteLength };
+              return copy as T;
+            });
+            open.result.close();
+            resolve(rows);
+          };
+          request.onerror = () => reject(request.error);
+        };
+      }),
+    table,
+  );
+}
