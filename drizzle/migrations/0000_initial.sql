@@ -11,6 +11,9 @@ CREATE TYPE "public"."finding_state" AS ENUM('open', 'made-safe', 'fixed', 'veri
 CREATE TYPE "public"."risk_band" AS ENUM('Low', 'Medium', 'High');--> statement-breakpoint
 CREATE TYPE "public"."verification_outcome" AS ENUM('verified', 'reopened');--> statement-breakpoint
 CREATE TYPE "public"."photo_owner" AS ENUM('finding', 'control-check', 'fix', 'verification');--> statement-breakpoint
+CREATE TYPE "public"."sync_conflict_status" AS ENUM('open', 'resolved');--> statement-breakpoint
+CREATE TYPE "public"."sync_outcome" AS ENUM('applied', 'conflict', 'rejected');--> statement-breakpoint
+CREATE SEQUENCE "public"."sync_change_seq" INCREMENT BY 1 MINVALUE 1 MAXVALUE 9223372036854775807 START WITH 1 CACHE 1;--> statement-breakpoint
 CREATE TABLE "organisations" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"name" text NOT NULL,
@@ -195,7 +198,10 @@ CREATE TABLE "findings" (
 	"created_by" uuid NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
-	"version" integer DEFAULT 1 NOT NULL
+	"version" integer DEFAULT 1 NOT NULL,
+	"sync_xid" "xid8" DEFAULT pg_current_xact_id() NOT NULL,
+	"sync_seq" bigint DEFAULT nextval('sync_change_seq') NOT NULL,
+	"sync_fields" jsonb DEFAULT '{}'::jsonb NOT NULL
 );
 --> statement-breakpoint
 CREATE TABLE "fixes" (
@@ -236,6 +242,50 @@ CREATE TABLE "photos" (
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "sync_clients" (
+	"id" uuid PRIMARY KEY NOT NULL,
+	"organisation_id" uuid NOT NULL,
+	"user_id" uuid NOT NULL,
+	"last_mutation_id" bigint DEFAULT 0 NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"last_push_at" timestamp with time zone
+);
+--> statement-breakpoint
+CREATE TABLE "sync_conflicts" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"organisation_id" uuid NOT NULL,
+	"entity" text NOT NULL,
+	"entity_id" uuid NOT NULL,
+	"field" text NOT NULL,
+	"current_value" jsonb,
+	"replaced_value" jsonb,
+	"replaced_version" integer NOT NULL,
+	"replaced_client_id" uuid,
+	"winner_client_id" uuid NOT NULL,
+	"winner_user_id" uuid,
+	"mutation_id" bigint NOT NULL,
+	"status" "sync_conflict_status" DEFAULT 'open' NOT NULL,
+	"resolution" text,
+	"resolved_by" uuid,
+	"resolved_at" timestamp with time zone,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"sync_xid" "xid8" DEFAULT pg_current_xact_id() NOT NULL,
+	"sync_seq" bigint DEFAULT nextval('sync_change_seq') NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "sync_mutations" (
+	"client_id" uuid NOT NULL,
+	"mutation_id" bigint NOT NULL,
+	"organisation_id" uuid NOT NULL,
+	"entity" text NOT NULL,
+	"entity_id" uuid NOT NULL,
+	"action" text NOT NULL,
+	"outcome" "sync_outcome" NOT NULL,
+	"reason" text,
+	"applied_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "sync_mutations_client_id_mutation_id_pk" PRIMARY KEY("client_id","mutation_id")
+);
+--> statement-breakpoint
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "email_tokens" ADD CONSTRAINT "email_tokens_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -268,6 +318,13 @@ ALTER TABLE "verifications" ADD CONSTRAINT "verifications_finding_id_findings_id
 ALTER TABLE "verifications" ADD CONSTRAINT "verifications_verified_by_users_id_fk" FOREIGN KEY ("verified_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "photos" ADD CONSTRAINT "photos_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "photos" ADD CONSTRAINT "photos_uploaded_by_users_id_fk" FOREIGN KEY ("uploaded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_clients" ADD CONSTRAINT "sync_clients_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_clients" ADD CONSTRAINT "sync_clients_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_conflicts" ADD CONSTRAINT "sync_conflicts_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_conflicts" ADD CONSTRAINT "sync_conflicts_winner_user_id_users_id_fk" FOREIGN KEY ("winner_user_id") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_conflicts" ADD CONSTRAINT "sync_conflicts_resolved_by_users_id_fk" FOREIGN KEY ("resolved_by") REFERENCES "public"."users"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_mutations" ADD CONSTRAINT "sync_mutations_client_id_sync_clients_id_fk" FOREIGN KEY ("client_id") REFERENCES "public"."sync_clients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "sync_mutations" ADD CONSTRAINT "sync_mutations_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "refresh_tokens_family_idx" ON "refresh_tokens" USING btree ("family_id");--> statement-breakpoint
 CREATE INDEX "scaffolds_org_site_idx" ON "scaffolds" USING btree ("organisation_id","site_id");--> statement-breakpoint
 CREATE INDEX "scaffolds_foreman_idx" ON "scaffolds" USING btree ("foreman_id");--> statement-breakpoint
@@ -275,9 +332,12 @@ CREATE INDEX "sites_org_idx" ON "sites" USING btree ("organisation_id");--> stat
 CREATE INDEX "inspections_org_scaffold_idx" ON "inspections" USING btree ("organisation_id","scaffold_id");--> statement-breakpoint
 CREATE INDEX "catalogue_items_org_idx" ON "catalogue_items" USING btree ("organisation_id");--> statement-breakpoint
 CREATE INDEX "audit_events_org_entity_idx" ON "audit_events" USING btree ("organisation_id","entity_type","entity_id");--> statement-breakpoint
+CREATE INDEX "findings_feed_idx" ON "findings" USING btree ("organisation_id","sync_xid","sync_seq");--> statement-breakpoint
 CREATE INDEX "findings_org_scaffold_idx" ON "findings" USING btree ("organisation_id","scaffold_id");--> statement-breakpoint
 CREATE INDEX "findings_org_state_risk_idx" ON "findings" USING btree ("organisation_id","state","risk_score");--> statement-breakpoint
 CREATE INDEX "findings_org_risk_id_idx" ON "findings" USING btree ("organisation_id","risk_score","id");--> statement-breakpoint
 CREATE INDEX "findings_assignee_idx" ON "findings" USING btree ("assignee_id");--> statement-breakpoint
 CREATE INDEX "photos_owner_idx" ON "photos" USING btree ("owner_type","owner_id");--> statement-breakpoint
-CREATE INDEX "photos_hash_idx" ON "photos" USING btree ("content_hash");
+CREATE INDEX "photos_hash_idx" ON "photos" USING btree ("content_hash");--> statement-breakpoint
+CREATE INDEX "sync_conflicts_org_status_idx" ON "sync_conflicts" USING btree ("organisation_id","status");--> statement-breakpoint
+CREATE INDEX "sync_conflicts_feed_idx" ON "sync_conflicts" USING btree ("organisation_id","sync_xid","sync_seq");

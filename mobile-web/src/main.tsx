@@ -17,6 +17,7 @@ import '@fontsource/open-sans/latin-700.css';
 
 import './theme/variables.css';
 import './theme/global.css';
+import './theme/screens.css';
 
 // One look on every phone: Material Design mode (48 px targets fit it best).
 setupIonicReact({ mode: 'md' });

@@ -19,9 +19,10 @@ import { ScaffoldsModule } from './scaffolds/scaffolds.module.js';
 import { InspectionsModule } from './inspections/inspections.module.js';
 import { FindingsModule } from './findings/findings.module.js';
 import { CatalogueModule } from './catalogue/catalogue.module.js';
+import { SyncModule } from './sync/sync.module.js';
 
 /** Feature modules are listed here once each. */
-const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule];
+const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule];
 
 @Module({})
 export class AppModule {

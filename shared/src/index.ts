@@ -24,3 +24,5 @@ export * from './catalogue/builtin-items.js';
 export * from './findings/finding-state.js';
 export * from './findings/finding-estimate.js';
 export * from './findings/finding.schema.js';
+export * from './sync/sync.schema.js';
+export * from './sync/merge-rules.js';

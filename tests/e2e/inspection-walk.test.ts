@@ -120,6 +120,13 @@ describe('the inspector’s walk with no signal', () => {
     await page.screenshot({ path: artifactPath('finding-editor.png') });
     await onScreen(page, 'estimate-panel').scrollIntoViewIfNeeded();
     await page.screenshot({ path: artifactPath('finding-editor-estimate.png') });
+    await onScreen(page, 'explain-estimate').click();
+    const sheet = onScreen(page, 'how-computed');
+    await sheet.getByText('Terminal speed').first().waitFor();
+    expect(await sheet.innerText()).toMatch(/ICAO Doc 7488[\s\S]*competent person prevail/);
+    await page.screenshot({ path: artifactPath('how-computed.png') });
+    await sheet.getByRole('button', { name: 'Close' }).click();
+    await sheet.waitFor({ state: 'hidden' });
     await onScreen(page, 'save-finding').click();
     await onScreen(page, 'inspection-page').waitFor();
 

@@ -15,6 +15,11 @@ async function refresh(database: PlummetDb, session: StoredSession, fetchImpl?: 
       const renewed = sessionFromResponse(response, new Date(), session.signedInAt);
       await saveSession(database, renewed);
       return renewed;
+    } catch (error) {
+      // The server ended the session (expired, revoked, renewed elsewhere): say so on every screen.
+      // The phone's records stay; signing in again as the same user carries on with them.
+      if (error instanceof ApiError && error.status === 401) await saveSession(database, { ...session, refreshExpiresAt: new Date().toISOString() });
+      throw error;
     } finally {
       refreshInFlight = null;
     }

@@ -26,7 +26,8 @@ export type FindingComputedColumns = Required<
   >
 >;
 
-export interface FindingFields {
+// A type literal (not an interface) so it also fits Record<string, unknown> (the sync merge reads it field by field).
+export type FindingFields = {
   elevation: string;
   lift: number;
   bay: number;
@@ -34,7 +35,7 @@ export interface FindingFields {
   item: { catalogueItemId: string | null; name: string; massKg: number; shape: ShapeSpec | null };
   exposure: FindingExposure;
   likelihoodAnswers: LikelihoodAnswers;
-}
+};
 
 const invalid = (issues: ErrorIssue[]) => new AppError(ErrorCode.ValidationFailed, 'The request is not valid', issues);
 

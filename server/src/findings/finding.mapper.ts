@@ -1,13 +1,22 @@
 import { type Finding, type FindingListItem, type LikelihoodAnswers, type ShapeSpec, UNFIXED_STATES } from '@plummet/shared';
 import type { findings } from '../db/schema/index.js';
 
-export type FindingRow = typeof findings.$inferSelect;
+/** The columns a finding's API answer is made from (sync bookkeeping and the like stay out of reads of lists). */
+export const FINDING_API_COLUMNS = [
+  'id', 'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName',
+  'massKg', 'shape', 'exposure', 'likelihoodAnswers', 'likelihood', 'estimate', 'severity', 'riskScore', 'riskBand', 'state',
+  'assigneeId', 'dueAt', 'notes', 'madeSafeNote', 'createdBy', 'createdAt', 'updatedAt', 'version',
+] as const;
 
-export function isOverdue(row: Pick<FindingRow, 'state' | 'dueAt'>, now = Date.now()): boolean {
+export type FindingRow = typeof findings.$inferSelect;
+/** What the mapper reads: any row with the API columns (a full row or a list row). */
+export type FindingApiRow = Pick<FindingRow, (typeof FINDING_API_COLUMNS)[number]>;
+
+export function isOverdue(row: Pick<FindingApiRow, 'state' | 'dueAt'>, now = Date.now()): boolean {
   return row.dueAt !== null && row.dueAt.getTime() < now && UNFIXED_STATES.includes(row.state);
 }
 
-export function toFinding(row: FindingRow, now = Date.now()): Finding {
+export function toFinding(row: FindingApiRow, now = Date.now()): Finding {
   return {
     id: row.id,
     inspectionId: row.inspectionId,
@@ -43,6 +52,6 @@ export function toFinding(row: FindingRow, now = Date.now()): Finding {
 }
 
 /** A row read by the list query, whose estimate PostgreSQL already trimmed to the summary. */
-export function toFindingListItem(row: FindingRow, now = Date.now()): FindingListItem {
+export function toFindingListItem(row: FindingApiRow, now = Date.now()): FindingListItem {
   return toFinding(row, now) as unknown as FindingListItem;
 }

@@ -1,10 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, getTableColumns, inArray, type SQL, sql } from 'drizzle-orm';
+import { and, eq, inArray, type SQL, sql } from 'drizzle-orm';
 import type { FindingListQuery } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, fixes, scaffolds, verifications } from '../db/schema/index.js';
-import type { FindingRow } from './finding.mapper.js';
+import { FINDING_API_COLUMNS, type FindingRow } from './finding.mapper.js';
 
 const SORTS: Record<FindingListQuery['sort'], SortKey> = {
   riskScore: { expr: findings.riskScore, cast: 'integer' },
@@ -18,9 +18,12 @@ const SORTS: Record<FindingListQuery['sort'], SortKey> = {
 export type FindingInsert = Omit<typeof findings.$inferInsert, 'createdAt' | 'updatedAt' | 'version'>;
 export type FindingChanges = Partial<Omit<FindingInsert, 'id' | 'organisationId' | 'createdBy'>>;
 
+type ApiColumns = { [K in (typeof FINDING_API_COLUMNS)[number]]: (typeof findings)[K] };
+const API_COLUMNS = Object.fromEntries(FINDING_API_COLUMNS.map((k) => [k, findings[k]])) as ApiColumns;
+
 /** Lists carry the estimate without its long explanations (FindingEstimateSummarySchema); PostgreSQL trims it. */
 const LIST_COLUMNS = {
-  ...getTableColumns(findings),
+  ...API_COLUMNS,
   estimate: sql<unknown>`${findings.estimate} - 'resolved' #- '{severity,basis}' #- '{likelihood,reasons}'`,
 };
 
@@ -51,7 +54,7 @@ export class FindingsRepository {
     if (query.overdue === true) where.push(overdue);
     if (query.overdue === false) where.push(sql`not coalesce(${overdue}, false)`);
     return executor
-      .select({ row: query.estimate === 'full' ? getTableColumns(findings) : LIST_COLUMNS, sortKey: page.sortKey })
+      .select({ row: query.estimate === 'full' ? API_COLUMNS : LIST_COLUMNS, sortKey: page.sortKey })
       .from(findings)
       .where(and(...where))
       .orderBy(...page.orderBy)

@@ -165,8 +165,3 @@ export async function inspectionInProgress(database: PlummetDb, scaffoldId: stri
   const rows = await database.inspections.where('scaffoldId').equals(scaffoldId).toArray();
   return rows.filter((row) => row.status === 'in-progress').sort((a, b) => b.startedAt.localeCompare(a.startedAt))[0];
 }
-
-export async function latestInspection(database: PlummetDb, scaffoldId: string): Promise<InspectionRecord | undefined> {
-  const rows = await database.inspections.where('scaffoldId').equals(scaffoldId).toArray();
-  return rows.sort((a, b) => b.startedAt.localeCompare(a.startedAt))[0];
-}

@@ -5,6 +5,7 @@ import { inspections } from './inspections.table.js';
 import { organisations } from './organisations.table.js';
 import { scaffolds } from './sites.table.js';
 import { users } from './users.table.js';
+import { syncFieldsColumn, syncStampColumns } from './sync.table.js';
 
 export const findingStateEnum = pgEnum('finding_state', ['open', 'made-safe', 'fixed', 'verified']);
 export const exposureEnum = pgEnum('exposure', ['public', 'hard-hats', 'zone-closed']);
@@ -47,8 +48,12 @@ export const findings = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    // Sync (issue 6): change-feed stamp and per-field write history.
+    ...syncStampColumns(),
+    syncFields: syncFieldsColumn(),
   },
   (t) => [
+    index('findings_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
     index('findings_org_scaffold_idx').on(t.organisationId, t.scaffoldId),
     index('findings_org_state_risk_idx').on(t.organisationId, t.state, t.riskScore),
     // The default list (highest risk first) and its keyset pages: ORDER BY risk_score DESC, id DESC.

@@ -6,3 +6,4 @@ export * from './inspections.table.js';
 export * from './catalogue.table.js';
 export * from './findings.table.js';
 export * from './photos.table.js';
+export * from './sync.table.js';

@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { IonButton, IonIcon } from '@ionic/react';
 import { keyOutline } from 'ionicons/icons';
 import { formatDateTime } from '../../../app/format-date';
 import type { StoredSession } from '../session';
@@ -7,6 +7,22 @@ const SOON_MS = 3 * 86_400_000;
 
 /** Who is signed in, and until when the phone can work offline without signing in again. */
 export function SessionNote({ session, now = new Date() }: { session: StoredSession; now?: Date }) {
+  if (Date.parse(session.refreshExpiresAt) <= now.getTime()) {
+    return (
+      <div className="session-note session-note--soon" role="alert" data-testid="session-expiry" data-expired="true">
+        <IonIcon icon={keyOutline} aria-hidden="true" />
+        <div>
+          <p className="session-note__text">
+            Your sign-in on this phone ended on <strong>{formatDateTime(session.refreshExpiresAt)}</strong>. Everything recorded here is kept;
+            connect and sign in again as {session.user.email} to carry on and send it.
+          </p>
+          <IonButton routerLink="/sign-in" size="default">
+            Sign in again
+          </IonButton>
+        </div>
+      </div>
+    );
+  }
   const soon = Date.parse(session.refreshExpiresAt) - now.getTime() < SOON_MS;
   return (
     <p className={`session-note ${soon ? 'session-note--soon' : ''}`} data-testid="session-expiry">

@@ -11,9 +11,10 @@ import {
   IonToolbar,
   useIonRouter,
 } from '@ionic/react';
-import { useState, type FormEvent } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { describeSignInError } from '../auth.api';
 import { useSignInMutation } from '../auth.mutations';
+import { useSession } from '../session.queries';
 import './SignInPage.css';
 
 export function SignInPage() {
@@ -22,6 +23,12 @@ export function SignInPage() {
   const [email, setEmail] = useState('');
   const [password, setPassword] = useState('');
   const [formError, setFormError] = useState<string | null>(null);
+  const { session } = useSession();
+
+  // Signing in again after the session ran out: the same account, so the phone's records carry on.
+  useEffect(() => {
+    if (session) setEmail((typed) => typed || session.user.email);
+  }, [session]);
 
   function submit(event: FormEvent) {
     event.preventDefault();

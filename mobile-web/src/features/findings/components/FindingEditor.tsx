@@ -75,6 +75,11 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
       </AppHeader>
       <IonContent className="ion-padding" data-testid="finding-editor">
         <div className="page-body">
+          {readOnly && (
+            <p className="empty-note" data-testid="finding-read-only">
+              This finding belongs to a signed inspection, so it cannot be changed here; its fix goes through the fix list.
+            </p>
+          )}
           <FormSection title="Photos">
             <PhotoPicker
               stored={storedPhotos}

@@ -13,8 +13,17 @@ interface HowComputedSheetProps {
   result?: FindingEstimateResult;
 }
 
+/** Words for the physics' option values. */
+const VALUE_WORDS: Record<string, string> = {
+  'bare-head': 'bare head (the public, or anyone in a closed zone: the worst case)',
+  helmet: 'head in an industrial helmet',
+  'half-sine': 'half-sine',
+  rectangular: 'rectangular',
+  triangular: 'triangular',
+};
+
 function shown(value: number | string): string {
-  return typeof value === 'number' ? formatNumber(value) : value;
+  return typeof value === 'number' ? formatNumber(value) : (VALUE_WORDS[value] ?? value);
 }
 
 /** The formulas, every input with its default and source, the assumptions and the caution. */

@@ -39,7 +39,8 @@ export function FindingEditorPage() {
     storedPhotos === undefined ||
     !session;
   const missing = !loading && (!scaffold || (findingId && !existing) || (routeInspectionId && !inspection));
-  const backHref = inspectionId ? `/inspections/${inspectionId}` : scaffold ? `/scaffolds/${scaffold.id}` : '/';
+  // A downloaded finding may belong to a walk that is not on this phone: then back leads to its scaffold.
+  const backHref = inspection ? `/inspections/${inspection.id}` : routeInspectionId ? `/inspections/${routeInspectionId}` : scaffold ? `/scaffolds/${scaffold.id}` : '/';
   const windSpeedMps = inspection?.windSpeedMps ?? null;
 
   if (loading || missing || !scaffold || !session || !catalogue || !storedPhotos) {

@@ -11,7 +11,6 @@ import { useScaffoldsOfSite } from '../../scaffolds/scaffolds.queries';
 import { useLocalSite } from '../../sites/sites.queries';
 import { FindingRow } from '../components/FindingRow';
 import { useFindingsOfSite } from '../findings.queries';
-import './FindingListPage.css';
 
 const ROW_HEIGHT = 88;
 type Filter = 'all' | RiskBand;

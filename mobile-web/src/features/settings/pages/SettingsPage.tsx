@@ -13,23 +13,8 @@ import { RequireSession } from '../../auth/components/RequireSession';
 import { SessionNote } from '../../auth/components/SessionNote';
 import { STORAGE_REPORT_KEY } from '../../sites/sites.mutations';
 import { useChangeUnitsMutation } from '../settings.mutations';
+import { signOutWarning } from '../sign-out-warning';
 import type { Units } from '../units';
-
-/** The sign-out warning: what would be lost, in plain numbers. */
-export function signOutWarning(waiting: number): { header: string; message: string; confirm: string } {
-  if (waiting === 0) {
-    return {
-      header: 'Sign out?',
-      message: 'Every change has been sent. Signing out removes the sites, findings and photos kept on this phone; download them again next time.',
-      confirm: 'Sign out',
-    };
-  }
-  return {
-    header: `${waiting} change${waiting === 1 ? '' : 's'} not sent`,
-    message: `${waiting} change${waiting === 1 ? ' has' : 's have'} not reached the server yet. Signing out now deletes ${waiting === 1 ? 'it' : 'them'} from this phone, photos included, for good. Connect and let them send first unless you are sure.`,
-    confirm: 'Delete them and sign out',
-  };
-}
 
 export function SettingsPage() {
   const router = useIonRouter();

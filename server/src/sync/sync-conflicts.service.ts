@@ -1,0 +1,77 @@
+import { Inject, Injectable } from '@nestjs/common';
+import {
+  FindingUpdateSchema,
+  settleConflict,
+  type SyncConflict,
+  type SyncConflictListQuery,
+  type SyncConflictResolve,
+} from '@plummet/shared';
+import type { AuthUser } from '../auth/auth.types.js';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { resolveItem } from '../findings/finding-input.js';
+import { FindingsRepository } from '../findings/findings.repository.js';
+import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
+import { FindingSyncService } from './finding-sync.service.js';
+import { MutationRejected } from './mutation-rejected.js';
+import { toSyncConflict } from './sync.mapper.js';
+import { SyncRepository } from './sync.repository.js';
+
+/** Conflicts kept by sync, listed and settled by inspectors and managers. */
+@Injectable()
+export class SyncConflictsService {
+  constructor(
+    @Inject(DRIZZLE) private readonly db: Db,
+    private readonly sync: SyncRepository,
+    private readonly findings: FindingsRepository,
+    private readonly catalogue: CatalogueRepository,
+    private readonly findingSync: FindingSyncService,
+  ) {}
+
+  async list(user: AuthUser, query: SyncConflictListQuery): Promise<{ items: SyncConflict[] }> {
+    const rows = await this.sync.listConflicts(user.organisationId, { ...query, foremanId: user.role === 'foreman' ? user.userId : undefined });
+    return { items: rows.map(toSyncConflict) };
+  }
+
+  /**
+   * Keep the current value (nothing written), put the replaced one back, or write a typed value
+   * (checked like any edit: 400 naming the field). The write goes through the same per-field merge
+   * as the server's own change (seen by definition, so it never opens a new conflict).
+   */
+  async resolve(user: AuthUser, id: string, input: SyncConflictResolve): Promise<SyncConflict> {
+    return this.db.transaction(async (tx) => {
+      const conflict = await this.sync.findConflict(user.organisationId, id, tx, true);
+      if (!conflict) throw AppError.notFound('Conflict');
+      if (conflict.status !== 'open') throw new AppError(ErrorCode.Conflict, 'The conflict is already settled');
+      const settled = settleConflict(input.keep, conflict.replacedValue, input.value);
+      if (settled.write) {
+        const scoped = await this.findings.findWithScope(user.organisationId, conflict.entityId, tx, true);
+        if (!scoped) throw AppError.notFound('Finding');
+        let value = settled.value;
+        if (conflict.field === 'item' && input.keep === 'custom') {
+          const parsed = FindingUpdateSchema.safeParse({ item: value });
+          if (!parsed.success || !parsed.data.item) throw this.invalid(parsed.success ? 'An item is needed' : parsed.error.issues[0]!.message);
+          const itemInput = parsed.data.item;
+          const found = itemInput.catalogueItemId ? await this.catalogue.findVisible(user.organisationId, itemInput.catalogueItemId, tx) : undefined;
+          value = resolveItem(itemInput, found);
+        } else if (conflict.field !== 'item') {
+          const parsed = FindingUpdateSchema.safeParse({ [conflict.field]: value });
+          if (!parsed.success) throw this.invalid(parsed.error.issues[0]!.message);
+          value = (parsed.data as Record<string, unknown>)[conflict.field];
+        }
+        try {
+          const ctx = { user, clientId: `00000000-0000-0000-0000-000000000000`, mutationId: 0 };
+          await this.findingSync.writeFields(tx, ctx, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
+        } catch (error) {
+          if (error instanceof MutationRejected) throw new AppError(ErrorCode.ValidationFailed, error.reason);
+          throw error;
+        }
+      }
+      return toSyncConflict(await this.sync.markResolved(id, { resolution: input.keep, resolvedBy: user.userId }, tx));
+    });
+  }
+
+  private invalid(message: string): AppError {
+    return new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [{ path: ['value'], code: 'invalid_value', message }]);
+  }
+}

@@ -1,0 +1,44 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { SYNC_CURSOR_START, type SyncChange, type SyncPullQuery, type SyncPullResponse } from '@plummet/shared';
+import type { AuthUser } from '../auth/auth.types.js';
+import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { SyncPullRepository } from './sync-pull.repository.js';
+import { toSyncConflict, toSyncFinding } from './sync.mapper.js';
+
+/**
+ * GET /api/sync/pull: the caller's changes after a cursor, oldest first, a page at a time. Scoped
+ * to the organisation; a foreman gets findings on their scaffolds or assigned to them.
+ */
+@Injectable()
+export class SyncPullService {
+  constructor(
+    @Inject(DRIZZLE) private readonly db: Db,
+    private readonly pull: SyncPullRepository,
+  ) {}
+
+  async changes(user: AuthUser, query: SyncPullQuery): Promise<SyncPullResponse> {
+    const [xid, seq] = (query.cursor ?? SYNC_CURSOR_START).split('.') as [string, string];
+    const foremanId = user.role === 'foreman' ? user.userId : undefined;
+    // One read-only snapshot: the feed and the rows it names agree.
+    return this.db.transaction(
+      async (tx) => {
+        const feed = await this.pull.feed(user.organisationId, { xid, seq: Number(seq) }, query.limit + 1, foremanId, tx);
+        const page = feed.slice(0, query.limit);
+        const ids = (type: 'finding' | 'conflict') => page.filter((e) => e.type === type).map((e) => e.id);
+        const findings = new Map((await this.pull.findingsWithSite(ids('finding'), tx)).map((r) => [r.finding.id, r]));
+        const conflicts = new Map((await this.pull.conflicts(ids('conflict'), tx)).map((r) => [r.id, r]));
+        const changes: SyncChange[] = page.flatMap((entry): SyncChange[] => {
+          if (entry.type === 'finding') {
+            const r = findings.get(entry.id);
+            return r ? [{ type: 'finding', record: toSyncFinding(r.finding, r.siteId) }] : [];
+          }
+          const c = conflicts.get(entry.id);
+          return c ? [{ type: 'conflict', record: toSyncConflict(c) }] : [];
+        });
+        const last = page.at(-1);
+        return { changes, cursor: last ? `${last.xid}.${last.seq}` : `${xid}.${seq}`, hasMore: feed.length > query.limit };
+      },
+      { isolationLevel: 'repeatable read', accessMode: 'read only' },
+    );
+  }
+}

@@ -1,0 +1,68 @@
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import {
+  SyncConflictListQuerySchema,
+  SyncConflictListResponseSchema,
+  SyncConflictResolveSchema,
+  SyncConflictSchema,
+  SyncPullQuerySchema,
+  SyncPullResponseSchema,
+  SyncPushResponseSchema,
+  SyncPushSchema,
+} from '@plummet/shared';
+import { createZodDto } from 'nestjs-zod';
+import { CurrentUser, Roles } from '../auth/auth.decorators.js';
+import type { AuthUser } from '../auth/auth.types.js';
+import { IdParamPipe } from '../common/id-param.pipe.js';
+import { SyncConflictsService } from './sync-conflicts.service.js';
+import { SyncPullService } from './sync-pull.service.js';
+import { SyncPushService } from './sync-push.service.js';
+
+class SyncPushDto extends createZodDto(SyncPushSchema) {}
+class SyncPushResponseDto extends createZodDto(SyncPushResponseSchema) {}
+class SyncPullQueryDto extends createZodDto(SyncPullQuerySchema) {}
+class SyncPullResponseDto extends createZodDto(SyncPullResponseSchema) {}
+class SyncConflictDto extends createZodDto(SyncConflictSchema) {}
+class SyncConflictListQueryDto extends createZodDto(SyncConflictListQuerySchema) {}
+class SyncConflictListDto extends createZodDto(SyncConflictListResponseSchema) {}
+class SyncConflictResolveDto extends createZodDto(SyncConflictResolveSchema) {}
+
+@ApiTags('sync')
+@ApiBearerAuth()
+@Controller('sync')
+export class SyncController {
+  constructor(
+    private readonly pushes: SyncPushService,
+    private readonly pulls: SyncPullService,
+    private readonly conflicts: SyncConflictsService,
+  ) {}
+
+  /** Every role: what a mutation may do is checked per mutation (rejected with a reason). */
+  @Post('push')
+  @HttpCode(200)
+  @ApiOkResponse({ type: SyncPushResponseDto })
+  push(@CurrentUser() user: AuthUser, @Body() body: SyncPushDto) {
+    return this.pushes.push(user, body);
+  }
+
+  @Get('pull')
+  @ApiOkResponse({ type: SyncPullResponseDto })
+  pull(@CurrentUser() user: AuthUser, @Query() query: SyncPullQueryDto) {
+    return this.pulls.changes(user, query);
+  }
+
+  @Get('conflicts')
+  @Roles('inspector', 'manager', 'admin')
+  @ApiOkResponse({ type: SyncConflictListDto })
+  listConflicts(@CurrentUser() user: AuthUser, @Query() query: SyncConflictListQueryDto) {
+    return this.conflicts.list(user, query);
+  }
+
+  @Post('conflicts/:id/resolve')
+  @Roles('inspector', 'manager', 'admin')
+  @HttpCode(200)
+  @ApiOkResponse({ type: SyncConflictDto })
+  resolve(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: SyncConflictResolveDto) {
+    return this.conflicts.resolve(user, id, body);
+  }
+}

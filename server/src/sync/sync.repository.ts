@@ -1,0 +1,82 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
+import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { scaffolds, findings, syncClients, syncConflicts, syncMutations } from '../db/schema/index.js';
+
+export type SyncClientRow = typeof syncClients.$inferSelect;
+export type SyncMutationLogRow = typeof syncMutations.$inferInsert;
+export type SyncConflictRow = typeof syncConflicts.$inferSelect;
+export type SyncConflictInsert = typeof syncConflicts.$inferInsert;
+
+/** Sync's own tables: clients and their counters, the outcome log, conflicts. */
+@Injectable()
+export class SyncRepository {
+  constructor(@Inject(DRIZZLE) private readonly db: Db) {}
+
+  /**
+   * The client's row, locked until the push's transaction ends (made on its first push), so two
+   * replicas handling pushes from one phone apply its mutations one batch after the other.
+   */
+  async lockClient(id: string, organisationId: string, userId: string, tx: DbExecutor): Promise<SyncClientRow> {
+    await tx.insert(syncClients).values({ id, organisationId, userId }).onConflictDoNothing({ target: syncClients.id });
+    const [row] = await tx.select().from(syncClients).where(eq(syncClients.id, id)).for('update');
+    return row!;
+  }
+
+  async advanceClient(id: string, lastMutationId: number, tx: DbExecutor): Promise<void> {
+    await tx.update(syncClients).set({ lastMutationId, lastPushAt: sql`now()` }).where(eq(syncClients.id, id));
+  }
+
+  async loggedOutcomes(clientId: string, mutationIds: number[], tx: DbExecutor) {
+    if (!mutationIds.length) return [];
+    return tx
+      .select()
+      .from(syncMutations)
+      .where(and(eq(syncMutations.clientId, clientId), inArray(syncMutations.mutationId, mutationIds)));
+  }
+
+  async logOutcomes(rows: SyncMutationLogRow[], tx: DbExecutor): Promise<void> {
+    if (rows.length) await tx.insert(syncMutations).values(rows);
+  }
+
+  async insertConflicts(rows: SyncConflictInsert[], tx: DbExecutor): Promise<SyncConflictRow[]> {
+    return rows.length ? tx.insert(syncConflicts).values(rows).returning() : [];
+  }
+
+  async conflictIdsOfMutation(clientId: string, mutationId: number, tx: DbExecutor): Promise<string[]> {
+    const rows = await tx
+      .select({ id: syncConflicts.id })
+      .from(syncConflicts)
+      .where(and(eq(syncConflicts.winnerClientId, clientId), eq(syncConflicts.mutationId, mutationId)));
+    return rows.map((r) => r.id);
+  }
+
+  /** Conflicts of the organisation, newest first; a foreman's list holds only findings in their scope. */
+  async listConflicts(organisationId: string, filter: { status?: 'open' | 'resolved'; entityId?: string; limit: number; foremanId?: string }, executor: DbExecutor = this.db) {
+    const where = [eq(syncConflicts.organisationId, organisationId)];
+    if (filter.status) where.push(eq(syncConflicts.status, filter.status));
+    if (filter.entityId) where.push(eq(syncConflicts.entityId, filter.entityId));
+    if (filter.foremanId) {
+      where.push(
+        sql`${syncConflicts.entityId} in (select ${findings.id} from ${findings} join ${scaffolds} on ${scaffolds.id} = ${findings.scaffoldId}
+          where ${scaffolds.foremanId} = ${filter.foremanId} or ${findings.assigneeId} = ${filter.foremanId})`,
+      );
+    }
+    return executor.select().from(syncConflicts).where(and(...where)).orderBy(desc(syncConflicts.createdAt), desc(syncConflicts.id)).limit(filter.limit);
+  }
+
+  async findConflict(organisationId: string, id: string, tx: DbExecutor, forUpdate = false): Promise<SyncConflictRow | undefined> {
+    const q = tx.select().from(syncConflicts).where(and(eq(syncConflicts.id, id), eq(syncConflicts.organisationId, organisationId)));
+    const [row] = forUpdate ? await q.for('update') : await q;
+    return row;
+  }
+
+  async markResolved(id: string, values: { resolution: string; resolvedBy: string }, tx: DbExecutor): Promise<SyncConflictRow> {
+    const [row] = await tx
+      .update(syncConflicts)
+      .set({ status: 'resolved', resolution: values.resolution, resolvedBy: values.resolvedBy, resolvedAt: sql`now()` })
+      .where(eq(syncConflicts.id, id))
+      .returning();
+    return row!;
+  }
+}

@@ -1,0 +1,158 @@
+/**
+ * The pure rules of sync (issue 6), shared by the server and the tests: how a batch's mutation ids
+ * line up with what the server applied, how field patches merge, when a replaced value becomes a
+ * conflict, how a state command resolves, and what settling a conflict writes.
+ */
+import type { Role } from '../auth/roles.js';
+import { checkFindingTransition, type FindingState, type FindingTransition } from '../findings/finding-state.js';
+
+/** The fields of a finding a phone may patch; `item` is one field (name, mass and shape travel together). */
+export const FINDING_SYNC_FIELDS = ['elevation', 'lift', 'bay', 'heightM', 'item', 'exposure', 'likelihoodAnswers', 'notes'] as const;
+export type FindingSyncField = (typeof FINDING_SYNC_FIELDS)[number];
+
+/** Who last wrote a field: the record version after that write and the writing client (null: not through sync). */
+export interface FieldStamp {
+  v: number;
+  c: string | null;
+}
+export type FieldStamps = Record<string, FieldStamp>;
+
+/** A field never written through sync was last written when the record was made (version 1). */
+export const UNSTAMPED: FieldStamp = { v: 1, c: null };
+
+export type MutationOrder =
+  | { kind: 'replay' }
+  | { kind: 'next' }
+  | { kind: 'gap'; expected: number };
+
+/** Where mutation `id` stands after `lastApplied`: already applied, the next one, or past a gap. */
+export function orderOfMutation(id: number, lastApplied: number): MutationOrder {
+  if (id <= lastApplied) return { kind: 'replay' };
+  if (id === lastApplied + 1) return { kind: 'next' };
+  return { kind: 'gap', expected: lastApplied + 1 };
+}
+
+/** The batch's ids must rise by one each: a client never reorders or skips its own mutations. */
+export function batchIsConsecutive(ids: readonly number[]): boolean {
+  return ids.every((id, i) => i === 0 || id === ids[i - 1]! + 1);
+}
+
+/** JSON with sorted object keys, so values from jsonb (which reorders keys) compare equal. */
+export function canonicalJson(value: unknown): string {
+  return JSON.stringify(value ?? null, (_key, v: unknown) =>
+    v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) : v,
+  );
+}
+
+export function sameValue(a: unknown, b: unknown): boolean {
+  return canonicalJson(a) === canonicalJson(b);
+}
+
+export interface FieldConflict {
+  field: string;
+  /** The value the patch left in place. */
+  currentValue: unknown;
+  /** The value it replaced, which its writer had not seen. */
+  replacedValue: unknown;
+  replacedStamp: FieldStamp;
+}
+
+export interface FieldMergeInput {
+  /** The record's current field values. */
+  current: Readonly<Record<string, unknown>>;
+  stamps: Readonly<FieldStamps>;
+  /** The fields the mutation sets. */
+  patch: Readonly<Record<string, unknown>>;
+  /** The record version the writer last saw. */
+  baseVersion: number;
+  clientId: string;
+  /** The record's version after this write. */
+  nextVersion: number;
+}
+
+export interface FieldMergeResult {
+  /** Fields whose value changes. */
+  changes: Record<string, unknown>;
+  stamps: FieldStamps;
+  conflicts: FieldConflict[];
+}
+
+/**
+ * Per-field merge: a patch changes only the fields it names (so edits of different fields on
+ * different devices both survive). On the same field the later arrival wins; when its writer had
+ * not seen the value it replaces (the field was written after the writer's base version, by
+ * another client), the replaced value is returned as a conflict so nothing is lost. Setting a
+ * field to the value it already has changes nothing and is never a conflict.
+ */
+export function mergeFieldPatch(input: FieldMergeInput): FieldMergeResult {
+  const changes: Record<string, unknown> = {};
+  const stamps: FieldStamps = { ...input.stamps };
+  const conflicts: FieldConflict[] = [];
+  for (const [field, value] of Object.entries(input.patch)) {
+    if (value === undefined || sameValue(input.current[field], value)) continue;
+    const stamp = input.stamps[field] ?? UNSTAMPED;
+    const unseen = stamp.v > input.baseVersion && stamp.c !== input.clientId;
+    if (unseen) conflicts.push({ field, currentValue: value, replacedValue: input.current[field] ?? null, replacedStamp: stamp });
+    changes[field] = value;
+    stamps[field] = { v: input.nextVersion, c: input.clientId };
+  }
+  return { changes, stamps, conflicts };
+}
+
+/** Stamps for a record made by `clientId`: every given field written at version 1. */
+export function stampsOfCreate(fields: readonly string[], clientId: string): FieldStamps {
+  return Object.fromEntries(fields.map((field) => [field, { v: 1, c: clientId }]));
+}
+
+export type StateCommandDecision =
+  | { kind: 'noop' }
+  | { kind: 'apply'; transition: FindingTransition }
+  | { kind: 'reject'; reason: string; code: 'illegal' | 'role' | 'scope' };
+
+/**
+ * A state change is a command, checked by the one state machine: asking for the state the finding
+ * is already in (two phones marking it fixed) changes nothing; an illegal or forbidden move is
+ * rejected with a reason the phone shows.
+ */
+export function decideStateCommand(from: FindingState, to: FindingState, role: Role, foremanInScope: boolean): StateCommandDecision {
+  if (from === to) return { kind: 'noop' };
+  const check = checkFindingTransition(from, to, role, foremanInScope);
+  if (check.ok) return { kind: 'apply', transition: check.transition };
+  const reason = {
+    illegal: `A finding cannot move from ${from} to ${to}`,
+    role: `Your role cannot move a finding from ${from} to ${to}`,
+    scope: 'The finding is not on your scaffolds or assigned to you',
+  }[check.reason];
+  return { kind: 'reject', reason, code: check.reason };
+}
+
+export type ConflictKeep = 'current' | 'replaced' | 'custom';
+
+/** What settling a conflict writes to the field: nothing (keep current), the replaced value, or the typed one. */
+export function settleConflict(keep: ConflictKeep, replacedValue: unknown, customValue?: unknown): { write: false } | { write: true; value: unknown } {
+  if (keep === 'current') return { write: false };
+  if (keep === 'replaced') return { write: true, value: replacedValue };
+  return { write: true, value: customValue };
+}
+
+/** Unsynced changes older than this get a warning: some mobile browsers evict storage after a week unused. */
+export const UNSYNCED_WARNING_MS = 3 * 24 * 60 * 60 * 1000;
+
+export function unsyncedTooOld(oldestPendingAt: string | null | undefined, now: Date): boolean {
+  if (!oldestPendingAt) return false;
+  const at = Date.parse(oldestPendingAt);
+  return Number.isFinite(at) && now.getTime() - at > UNSYNCED_WARNING_MS;
+}
+
+/** Retry delay after `attempts` failures: 1 s doubling to 5 minutes, with up to 20 % jitter (random in [0,1)). */
+export function backoffMs(attempts: number, random: number): number {
+  const base = Math.min(300_000, 1000 * 2 ** Math.max(0, attempts - 1));
+  return Math.round(base * (1 + 0.2 * random));
+}
+
+/** Cursor order: `<xid>.<seq>` compared as numbers (bigint: xids pass 2^53 on long-lived clusters). */
+export function compareCursors(a: string, b: string): number {
+  const [ax, as] = a.split('.').map(BigInt) as [bigint, bigint];
+  const [bx, bs] = b.split('.').map(BigInt) as [bigint, bigint];
+  return ax === bx ? (as === bs ? 0 : as < bs ? -1 : 1) : ax < bx ? -1 : 1;
+}

@@ -1,0 +1,134 @@
+/**
+ * The sync protocol (issue 6): a phone pushes batches of mutations with per-client increasing ids
+ * and pulls changes after a server-side cursor. One schema per API shape; the server wraps them,
+ * the phone parses answers with them.
+ */
+import { z } from 'zod';
+import { DateTimeSchema, IdSchema } from '../common/fields.schema.js';
+import { FindingSchema } from '../findings/finding.schema.js';
+
+/** Most mutations one push may carry (a phone back from a long walk sends several batches). */
+export const SYNC_PUSH_MAX = 1000;
+/** Most changes one pull page holds. */
+export const SYNC_PULL_MAX = 1000;
+
+export const SYNC_ENTITIES = ['finding'] as const;
+export const SyncEntitySchema = z.enum(SYNC_ENTITIES);
+export type SyncEntity = z.infer<typeof SyncEntitySchema>;
+
+export const SyncActionSchema = z.enum(['create', 'update', 'state']);
+export type SyncAction = z.infer<typeof SyncActionSchema>;
+
+/**
+ * One mutation. The envelope is checked for the whole batch; the payload is checked per mutation by
+ * the server (FindingCreateSchema, FindingUpdateSchema, FindingStateChangeSchema), so one invalid
+ * payload is rejected with its reason instead of blocking every later mutation.
+ */
+export const SyncMutationSchema = z.object({
+  /** Per-client mutation id: 1, 2, 3… with no gaps. */
+  id: z.number().int().min(1).max(Number.MAX_SAFE_INTEGER),
+  entity: SyncEntitySchema,
+  entityId: IdSchema,
+  action: SyncActionSchema,
+  /** The record version the client last saw when it made the change (0: it made the record). */
+  baseVersion: z.number().int().min(0).default(0),
+  payload: z.record(z.string(), z.unknown()),
+});
+export type SyncMutation = z.infer<typeof SyncMutationSchema>;
+export type SyncMutationInput = z.input<typeof SyncMutationSchema>;
+
+export const SyncPushSchema = z.object({
+  /** The phone's id (one per browser database), made on the phone. */
+  clientId: IdSchema,
+  mutations: z.array(SyncMutationSchema).min(1).max(SYNC_PUSH_MAX),
+});
+export type SyncPush = z.infer<typeof SyncPushSchema>;
+
+export const SyncOutcomeSchema = z.enum(['applied', 'conflict', 'rejected']);
+export type SyncOutcome = z.infer<typeof SyncOutcomeSchema>;
+
+export const SyncMutationResultSchema = z.object({
+  id: z.number().int(),
+  outcome: SyncOutcomeSchema,
+  /** Why a mutation was rejected (or why it changed nothing). */
+  reason: z.string().nullable(),
+  /** True when this mutation had been applied by an earlier push (a retry): its first outcome is repeated. */
+  replayed: z.boolean(),
+  /** Conflicts this mutation opened (values it replaced that its writer had not seen). */
+  conflictIds: z.array(IdSchema),
+});
+export type SyncMutationResult = z.infer<typeof SyncMutationResultSchema>;
+
+/** A finding as the change feed carries it: the API shape plus the organisation and site the phone files it under. */
+export const SyncFindingSchema = FindingSchema.extend({ organisationId: IdSchema, siteId: IdSchema });
+export type SyncFinding = z.infer<typeof SyncFindingSchema>;
+
+export const SyncPushResponseSchema = z.object({
+  /** The last mutation id the server has applied from this client. */
+  lastMutationId: z.number().int(),
+  results: z.array(SyncMutationResultSchema),
+  /** The records the batch touched, as they now are (so a phone learns the outcome of a rejected change too). */
+  records: z.array(SyncFindingSchema),
+});
+export type SyncPushResponse = z.infer<typeof SyncPushResponseSchema>;
+
+export const SyncConflictStatusSchema = z.enum(['open', 'resolved']);
+export const SyncConflictKeepSchema = z.enum(['current', 'replaced', 'custom']);
+
+export const SyncConflictSchema = z.object({
+  id: IdSchema,
+  entity: SyncEntitySchema,
+  entityId: IdSchema,
+  field: z.string(),
+  /** The value the later write left in place. */
+  currentValue: z.unknown(),
+  /** The value it replaced without its writer having seen it. */
+  replacedValue: z.unknown(),
+  winnerUserId: IdSchema.nullable(),
+  status: SyncConflictStatusSchema,
+  resolution: SyncConflictKeepSchema.nullable(),
+  resolvedBy: IdSchema.nullable(),
+  resolvedAt: DateTimeSchema.nullable(),
+  createdAt: DateTimeSchema,
+});
+export type SyncConflict = z.infer<typeof SyncConflictSchema>;
+
+export const SyncConflictListQuerySchema = z.object({
+  status: SyncConflictStatusSchema.optional(),
+  entityId: IdSchema.optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});
+export type SyncConflictListQuery = z.infer<typeof SyncConflictListQuerySchema>;
+
+export const SyncConflictListResponseSchema = z.object({ items: z.array(SyncConflictSchema) });
+
+/** Settles a conflict: keep the current value, put the replaced one back, or type another. */
+export const SyncConflictResolveSchema = z
+  .object({ keep: SyncConflictKeepSchema, value: z.unknown().optional() })
+  .refine((v) => v.keep !== 'custom' || v.value !== undefined, { path: ['value'], message: 'A custom value is needed' });
+export type SyncConflictResolve = z.infer<typeof SyncConflictResolveSchema>;
+
+/** Position in the change feed: `<transaction id>.<sequence>`; absent from the start. */
+export const SyncCursorSchema = z.string().regex(/^\d{1,20}\.\d{1,20}$/, 'A cursor from an earlier pull');
+
+export const SyncPullQuerySchema = z.object({
+  cursor: SyncCursorSchema.optional(),
+  limit: z.coerce.number().int().min(1).max(SYNC_PULL_MAX).default(500),
+});
+export type SyncPullQuery = z.infer<typeof SyncPullQuerySchema>;
+
+export const SyncChangeSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('finding'), record: SyncFindingSchema }),
+  z.object({ type: z.literal('conflict'), record: SyncConflictSchema }),
+]);
+export type SyncChange = z.infer<typeof SyncChangeSchema>;
+
+export const SyncPullResponseSchema = z.object({
+  changes: z.array(SyncChangeSchema),
+  /** Pass it to the next pull; unchanged when nothing new. */
+  cursor: SyncCursorSchema,
+  hasMore: z.boolean(),
+});
+export type SyncPullResponse = z.infer<typeof SyncPullResponseSchema>;
+
+export const SYNC_CURSOR_START = '0.0';
