@@ -16,6 +16,10 @@ const BENCHES = {
   api: async () => {
     await run('node', ['tests/bench/api.bench.mjs'], { cwd: ROOT, label: 'API benchmark' });
   },
+  // Sync push and pull: tests/bench/sync.bench.mjs sets up its own database and server.
+  sync: async () => {
+    await run('node', ['tests/bench/sync.bench.mjs'], { cwd: ROOT, label: 'sync benchmark' });
+  },
 };
 
 const name = process.argv[2];

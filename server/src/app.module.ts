@@ -35,6 +35,11 @@ export class AppModule {
           pinoHttp: {
             level: config.LOG_LEVEL,
             redact: ['req.headers.authorization', 'req.headers.cookie'],
+            // One compact line per request: no headers, bodies or tokens in the log.
+            serializers: {
+              req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+              res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+            },
             autoLogging: { ignore: (req) => req.url === '/api/health' },
           },
         }),

@@ -1,0 +1,170 @@
+/**
+ * Simulated phones for the sync tests: each runs the real client sync engine
+ * (mobile-web/src/sync) over its own fake-indexeddb database, through a fetch that can be offline,
+ * drop a request (the server never saw it: "killed before commit"), drop a response (the server
+ * committed but the phone heard nothing: "killed after commit"), deliver twice, or deliver a copy
+ * late (after newer requests), against one or more server instances.
+ */
+import 'fake-indexeddb/auto';
+import { fileURLToPath } from 'node:url';
+import type { Finding, SyncMutationResult } from '@plummet/shared';
+
+/*
+ * The phone's code is bundler-resolved (extensionless imports), which `tsc -p tests` (NodeNext)
+ * cannot follow; it is loaded at run time through Vite, with the parts these tests use typed here.
+ */
+export type PhoneFinding = Finding & { organisationId: string; siteId: string };
+type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
+interface Table<T, K> {
+  get(key: K): Promise<T | undefined>;
+  bulkGet(keys: K[]): Promise<(T | undefined)[]>;
+  put(value: T): Promise<unknown>;
+  count(): Promise<number>;
+}
+export interface MobileDb {
+  findings: Table<PhoneFinding, string>;
+  outbox: Table<unknown, number>;
+  meta: Table<{ key: string; value: unknown }, string>;
+  transaction<R>(mode: 'rw', ...args: [...unknown[], () => Promise<R>]): Promise<R>;
+  close(): void;
+}
+export type OutboxChange = { entity: 'finding'; action: 'update' | 'state' | 'create'; payload: Record<string, unknown> };
+interface Engine {
+  sync(): Promise<'done' | 'offline' | 'error'>;
+}
+interface MobileModules {
+  PlummetDb: new (name: string) => MobileDb;
+  enqueueChange(db: MobileDb, entityId: string, change: OutboxChange, now?: Date): Promise<number>;
+  SyncEngine: new (db: MobileDb, transport: unknown, options: Record<string, unknown>) => Engine;
+  httpSyncTransport(fetchImpl: FetchLike): unknown;
+  saveFinding(db: MobileDb, finding: PhoneFinding): Promise<void>;
+  sampleFinding(overrides: Partial<PhoneFinding>): PhoneFinding;
+  SYNC_META: { cursor: string };
+}
+
+const load = (path: string) =>
+  import(/* @vite-ignore */ fileURLToPath(new URL(`../../mobile-web/src/${path}.ts`, import.meta.url))) as Promise<Record<string, unknown>>;
+
+let mobile: MobileModules | undefined;
+
+/** The real phone modules (local database, outbox, stores, sync engine). */
+export async function loadMobile(): Promise<MobileModules> {
+  if (!mobile) {
+    const modules = await Promise.all(
+      ['local-db/db', 'local-db/outbox', 'sync/sync-engine', 'sync/sync-transport', 'features/findings/findings.store', 'local-db/testing', 'sync/sync-state'].map(load),
+    );
+    mobile = Object.assign({}, ...modules) as MobileModules;
+  }
+  return mobile;
+}
+
+export type Delivery = 'ok' | 'drop-request' | 'drop-response' | 'duplicate' | 'late-copy';
+
+/** A small deterministic PRNG (mulberry32), so a failing schedule replays exactly. */
+export function prng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+export interface Network {
+  servers: string[];
+  /** Requests held back to be delivered after newer ones. */
+  late: (() => Promise<void>)[];
+  requests: number;
+}
+
+export interface PhoneOptions {
+  name: string;
+  token: string;
+  network: Network;
+  random: () => number;
+  /** Device clock offset, ms (±24 h in the tests: the server must not care). */
+  clockSkewMs?: number;
+  onResult: (clientId: string, result: SyncMutationResult) => void;
+}
+
+export class Phone {
+  readonly db: MobileDb;
+  readonly engine: Engine;
+  online = true;
+  flaky = false;
+  clientId = '';
+
+  constructor(
+    private readonly m: MobileModules,
+    private readonly options: PhoneOptions,
+  ) {
+    this.db = new m.PlummetDb(options.name);
+    const now = () => new Date(Date.now() + (options.clockSkewMs ?? 0));
+    this.engine = new m.SyncEngine(this.db, m.httpSyncTransport((path, init) => this.fetch(path, init)), {
+      now,
+      random: options.random,
+      batchSize: 3,
+      pullLimit: 5,
+      onResult: (clientId: string, result: SyncMutationResult) => {
+        this.clientId = clientId;
+        options.onResult(clientId, result);
+      },
+    });
+  }
+
+  private pickDelivery(): Delivery {
+    if (!this.flaky) return 'ok';
+    const r = this.options.random();
+    return r < 0.55 ? 'ok' : r < 0.67 ? 'drop-request' : r < 0.79 ? 'drop-response' : r < 0.9 ? 'duplicate' : 'late-copy';
+  }
+
+  private async fetch(path: string, init?: RequestInit): Promise<Response> {
+    if (!this.online) throw new TypeError('fetch failed: offline');
+    const { network } = this.options;
+    const server = network.servers[network.requests++ % network.servers.length]!;
+    const send = () =>
+      fetch(`${server}${path}`, { ...init, headers: { ...(init?.headers as Record<string, string>), Authorization: `Bearer ${this.options.token}` } });
+    const delivery = this.pickDelivery();
+    switch (delivery) {
+      case 'drop-request':
+        throw new TypeError('fetch failed: connection reset before the request was sent');
+      case 'drop-response': {
+        await (await send()).text();
+        throw new TypeError('fetch failed: connection reset before the answer');
+      }
+      case 'duplicate':
+        await (await send()).text();
+        return send();
+      case 'late-copy':
+        network.late.push(async () => void (await (await send()).text()));
+        return send();
+      case 'ok':
+        return send();
+    }
+  }
+
+  /** A local change the way the phone's stores make one: the record and its outbox entry in one transaction. */
+  async change(id: string, recordChange: Partial<PhoneFinding>, outbox: OutboxChange): Promise<void> {
+    const db = this.db;
+    const now = new Date(Date.now() + (this.options.clockSkewMs ?? 0));
+    await db.transaction('rw', db.findings, db.outbox, async () => {
+      const current = await db.findings.get(id);
+      if (current) await db.findings.put({ ...current, ...recordChange, updatedAt: now.toISOString() });
+      await this.m.enqueueChange(db, id, outbox, now);
+    });
+  }
+
+  /** Closes the database (fake-indexeddb keeps it in memory until the process ends). */
+  close(): void {
+    this.db.close();
+  }
+}
+
+/** Delivers the held-back copies, in random order. */
+export async function deliverLate(network: Network, random: () => number): Promise<void> {
+  const held = network.late.splice(0);
+  held.sort(() => random() - 0.5);
+  for (const deliver of held) await deliver().catch(() => undefined);
+}
