@@ -70,7 +70,9 @@ async function main() {
     S3_BUCKET: BUCKET,
     PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${PORT}`,
   };
-  await migrateAndSeed(env).catch((e) => fail(e.message));
+  const production = env.NODE_ENV === 'production';
+  if (production) say('NODE_ENV=production: migrating only; the demo data is never seeded in production');
+  await migrateAndSeed(env, { migrateOnly: production }).catch((e) => fail(e.message));
   server = await startServer(env);
   server.on('exit', (code) => {
     if (!stopping) {
