@@ -70,7 +70,7 @@ const stepArb: fc.Arbitrary<Step> = fc.oneof(
 const scheduleArb = fc.record({
   seed: fc.integer(),
   skews: fc.array(fc.constantFrom(-DAY_MS, 0, DAY_MS), { minLength: PHONES, maxLength: PHONES }),
-  steps: fc.array(stepArb, { minLength: 2, maxLength: 8 }),
+  steps: fc.array(stepArb, { minLength: 2, maxLength: 7 }),
 });
 
 const fieldValue = (field: 'notes' | 'heightM' | 'lift', value: number, phone: number) =>

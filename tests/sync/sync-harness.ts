@@ -106,7 +106,7 @@ export class Phone {
       now,
       random: options.random,
       batchSize: 3,
-      pullLimit: 5,
+      pullLimit: 10,
       onResult: (clientId: string, result: SyncMutationResult) => {
         this.clientId = clientId;
         options.onResult(clientId, result);

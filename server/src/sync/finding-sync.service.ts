@@ -23,6 +23,7 @@ import { type FindingRow, toFinding } from '../findings/finding.mapper.js';
 import { FindingsRepository } from '../findings/findings.repository.js';
 import { inScope } from '../findings/findings.service.js';
 import { InspectionsRepository } from '../inspections/inspections.repository.js';
+import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { MutationRejected } from './mutation-rejected.js';
 import { SyncRepository } from './sync.repository.js';
@@ -31,6 +32,8 @@ export interface SyncContext {
   user: AuthUser;
   clientId: string;
   mutationId: number;
+  /** Scaffolds read earlier in the same push (nothing in a push changes a scaffold). */
+  scaffolds?: Map<string, ScaffoldRow>;
 }
 
 export interface MutationApplied {
@@ -88,8 +91,7 @@ export class FindingSyncService {
     const parsed = FindingCreateSchema.safeParse({ ...mutation.payload, id: mutation.entityId });
     if (!parsed.success) throw new MutationRejected(`Invalid finding: ${issuesOf(parsed.error)}`);
     const input = parsed.data;
-    if (await this.findings.findAnyOrg(input.id, tx)) throw new MutationRejected('A finding with this id already exists');
-    const scaffold = await this.scaffolds.find(user.organisationId, input.scaffoldId, tx);
+    const scaffold = await this.scaffold(ctx, input.scaffoldId, tx);
     if (!scaffold) throw new MutationRejected('The scaffold does not exist');
     const wind = await this.inspectionWind(user, input.inspectionId, scaffold.id, tx, true);
     checkPosition(input, scaffold);
@@ -144,7 +146,7 @@ export class FindingSyncService {
     });
     if (!Object.keys(merge.changes).length) return { outcome: 'applied', reason: 'Nothing to change', conflictIds: [] };
     const fields = { ...before, ...merge.changes } as typeof before;
-    const scaffold = await this.scaffolds.find(ctx.user.organisationId, current.scaffoldId, tx);
+    const scaffold = await this.scaffold(ctx, current.scaffoldId, tx);
     if (!scaffold) throw new MutationRejected('The scaffold does not exist');
     checkPosition(fields, scaffold);
     const wind = await this.inspectionWind(ctx.user, current.inspectionId, scaffold.id, tx, false);
@@ -201,6 +203,14 @@ export class FindingSyncService {
     if (creating && inspection.scaffoldId !== scaffoldId) throw new MutationRejected('The inspection is of another scaffold');
     if (creating && inspection.finishedAt) throw new MutationRejected('The inspection is finished and signed; record the finding in a new inspection');
     return inspection.windSpeedMps;
+  }
+
+  private async scaffold(ctx: SyncContext, id: string, tx: DbExecutor): Promise<ScaffoldRow | undefined> {
+    const cached = ctx.scaffolds?.get(id);
+    if (cached) return cached;
+    const row = await this.scaffolds.find(ctx.user.organisationId, id, tx);
+    if (row) ctx.scaffolds?.set(id, row);
+    return row;
   }
 
   private async catalogueItem(user: AuthUser, id: string | undefined, tx: DbExecutor) {

@@ -4,6 +4,7 @@ import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { inScope } from '../findings/findings.service.js';
+import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { FindingSyncService } from './finding-sync.service.js';
 import { isRetryable, rejectionReason } from './mutation-rejected.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
@@ -65,8 +66,9 @@ export class SyncPushService {
     }
 
     const logRows: SyncMutationLogRow[] = [];
+    const scaffolds = new Map<string, ScaffoldRow>();
     for (const m of fresh) {
-      const ctx = { user, clientId: body.clientId, mutationId: m.id };
+      const ctx = { user, clientId: body.clientId, mutationId: m.id, scaffolds };
       let result: SyncMutationResult;
       try {
         // A savepoint per mutation: a rejected one leaves no trace but its log row.
