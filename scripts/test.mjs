@@ -2,7 +2,7 @@
 // `npm test`: sets up its own throwaway PostgreSQL cluster and fakes on loopback, type-checks
 // every workspace, builds, then runs vitest across all workspaces (unit, integration against the
 // real database, end-to-end in Debian's Chromium). Leaves nothing running; exit code says it all.
-import { chmodSync, existsSync, mkdtempSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { buildAll, migrateAndSeed } from './lib/app.mjs';
@@ -18,13 +18,12 @@ const started = Date.now();
 const vitestArgs = process.argv.slice(2);
 let pg;
 let fakes;
+let tmp;
 
 async function cleanup() {
   await fakes?.close();
-  if (pg) {
-    pg.stop();
-    pg.remove();
-  }
+  pg?.stop();
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
 }
 
 for (const signal of ['SIGINT', 'SIGTERM']) {
@@ -41,7 +40,7 @@ async function main() {
   }
   const bin = await ensurePostgresBinaries();
 
-  const tmp = mkdtempSync(join(tmpdir(), 'plummet-test-'));
+  tmp = mkdtempSync(join(tmpdir(), 'plummet-test-'));
   chmodSync(tmp, 0o755); // the postgres user must reach the cluster folder inside
   pg = new LocalPostgres({ bin, dir: join(tmp, 'pg'), port: await freePort(), durable: false });
   await pg.init();
