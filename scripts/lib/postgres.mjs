@@ -1,4 +1,4 @@
-import { chmodSync, existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, readdirSync } from 'node:fs';
 import { createConnection } from 'node:net';
 import { join } from 'node:path';
 import { aptInstall, isRoot, runQuiet } from './run.mjs';
@@ -95,9 +95,5 @@ export class LocalPostgres {
   async ensureDatabase(name) {
     const exists = this.psql(`SELECT 1 FROM pg_database WHERE datname = '${name}'`);
     if (exists !== '1') this.psql(`CREATE DATABASE "${name}"`);
-  }
-
-  remove() {
-    rmSync(this.dir, { recursive: true, force: true });
   }
 }
