@@ -52,6 +52,23 @@ export class AuditService {
     );
   }
 
+  /** Several changes by one actor in one statement, same transaction rule as record(). */
+  async recordMany(tx: DbExecutor, actor: AuthUser, changes: AuditChange[]): Promise<void> {
+    if (!changes.length) return;
+    await this.audit.insertMany(
+      changes.map((change) => ({
+        organisationId: actor.organisationId,
+        actorId: actor.userId,
+        entityType: change.entityType,
+        entityId: change.entityId,
+        action: change.action,
+        before: change.before ?? null,
+        after: change.after ?? null,
+      })),
+      tx,
+    );
+  }
+
   async list(user: AuthUser, query: AuditListQuery): Promise<ListResponse<AuditEvent>> {
     const rows = await this.audit.list(user.organisationId, query);
     return toPage(

@@ -26,14 +26,13 @@ import { InspectionsRepository } from '../inspections/inspections.repository.js'
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { MutationRejected } from './mutation-rejected.js';
+import { DbSyncStore, type SyncStore } from './sync-store.js';
 import { SyncRepository } from './sync.repository.js';
 
 export interface SyncContext {
   user: AuthUser;
   clientId: string;
   mutationId: number;
-  /** Scaffolds read earlier in the same push (nothing in a push changes a scaffold). */
-  scaffolds?: Map<string, ScaffoldRow>;
 }
 
 export interface MutationApplied {
@@ -74,7 +73,13 @@ export class FindingSyncService {
     private readonly sync: SyncRepository,
   ) {}
 
-  async apply(tx: DbExecutor, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
+  /** Statement by statement on `tx`; `scaffolds` caches scaffolds across the mutations of one push. */
+  dbStore(tx: DbExecutor, user: AuthUser, scaffolds?: Map<string, ScaffoldRow>): SyncStore {
+    const { findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit, sync } = this;
+    return new DbSyncStore({ findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit, sync }, tx, user, scaffolds);
+  }
+
+  async apply(tx: SyncStore, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
     switch (mutation.action) {
       case 'create':
         return this.create(tx, ctx, mutation);
@@ -85,18 +90,18 @@ export class FindingSyncService {
     }
   }
 
-  private async create(tx: DbExecutor, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
+  private async create(tx: SyncStore, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
     const { user } = ctx;
     if (user.role !== 'inspector') throw new MutationRejected('Only inspectors record findings');
     const parsed = FindingCreateSchema.safeParse({ ...mutation.payload, id: mutation.entityId });
     if (!parsed.success) throw new MutationRejected(`Invalid finding: ${issuesOf(parsed.error)}`);
     const input = parsed.data;
-    const scaffold = await this.scaffold(ctx, input.scaffoldId, tx);
+    const scaffold = await tx.scaffold(input.scaffoldId);
     if (!scaffold) throw new MutationRejected('The scaffold does not exist');
-    const wind = await this.inspectionWind(user, input.inspectionId, scaffold.id, tx, true);
+    const wind = await this.inspectionWind(input.inspectionId, scaffold.id, tx, true);
     checkPosition(input, scaffold);
-    const item = resolveItem(input.item, await this.catalogueItem(user, input.item.catalogueItemId, tx));
-    const row = await this.findings.insertIfAbsent(
+    const item = resolveItem(input.item, await this.catalogueItem(input.item.catalogueItemId, tx));
+    const row = await tx.insertFinding(
       {
         ...findingColumns({ ...input, item }, wind),
         id: input.id,
@@ -107,25 +112,24 @@ export class FindingSyncService {
         createdBy: user.userId,
         syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, ctx.clientId),
       },
-      tx,
     );
     if (!row) throw new MutationRejected('A finding with this id already exists');
-    await this.audit.record(tx, user, { entityType: 'finding', entityId: row.id, action: 'create', before: null, after: toFinding(row) });
+    await tx.audit({ entityType: 'finding', entityId: row.id, action: 'create', before: null, after: toFinding(row) });
     return { outcome: 'applied', reason: null, conflictIds: [] };
   }
 
-  private async update(tx: DbExecutor, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
+  private async update(tx: SyncStore, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
     const { user } = ctx;
     if (user.role !== 'inspector') throw new MutationRejected('Only inspectors edit findings');
     const parsed = FindingUpdateSchema.safeParse(mutation.payload);
     if (!parsed.success) throw new MutationRejected(`Invalid change: ${issuesOf(parsed.error)}`);
     const { version: _version, item: itemInput, ...rest } = parsed.data;
     void _version;
-    const scoped = await this.findings.findWithScope(user.organisationId, mutation.entityId, tx, true);
+    const scoped = await tx.finding(mutation.entityId);
     if (!scoped) throw new MutationRejected('The finding does not exist (deleted, or never reached the server)');
     const current = scoped.finding;
     const patch: Record<string, unknown> = { ...rest };
-    if (itemInput) patch.item = resolveItem(itemInput, await this.catalogueItem(user, itemInput.catalogueItemId, tx));
+    if (itemInput) patch.item = resolveItem(itemInput, await this.catalogueItem(itemInput.catalogueItemId, tx));
     return this.writeFields(tx, ctx, current, patch, mutation.baseVersion, 'update');
   }
 
@@ -134,7 +138,7 @@ export class FindingSyncService {
    * estimate from the merged fields and keeps every replaced-but-unseen value as a conflict.
    * `clientId` null: a write made on the server (settling a conflict), seen by definition.
    */
-  async writeFields(tx: DbExecutor, ctx: SyncContext, current: FindingRow, patch: Record<string, unknown>, baseVersion: number, action: string): Promise<MutationApplied> {
+  async writeFields(tx: SyncStore, ctx: SyncContext, current: FindingRow, patch: Record<string, unknown>, baseVersion: number, action: string): Promise<MutationApplied> {
     const before = findingFieldValues(current);
     const merge = mergeFieldPatch({
       current: before as unknown as Record<string, unknown>,
@@ -146,12 +150,12 @@ export class FindingSyncService {
     });
     if (!Object.keys(merge.changes).length) return { outcome: 'applied', reason: 'Nothing to change', conflictIds: [] };
     const fields = { ...before, ...merge.changes } as typeof before;
-    const scaffold = await this.scaffold(ctx, current.scaffoldId, tx);
+    const scaffold = await tx.scaffold(current.scaffoldId);
     if (!scaffold) throw new MutationRejected('The scaffold does not exist');
     checkPosition(fields, scaffold);
-    const wind = await this.inspectionWind(ctx.user, current.inspectionId, scaffold.id, tx, false);
-    const row = await this.findings.update(current.id, { ...findingColumns(fields, wind), notes: fields.notes, syncFields: merge.stamps }, tx);
-    const conflicts = await this.sync.insertConflicts(
+    const wind = await this.inspectionWind(current.inspectionId, scaffold.id, tx, false);
+    const row = await tx.updateFinding(current.id, { ...findingColumns(fields, wind), notes: fields.notes, syncFields: merge.stamps });
+    const conflicts = await tx.insertConflicts(
       merge.conflicts.map((c) => ({
         organisationId: ctx.user.organisationId,
         entity: 'finding',
@@ -165,20 +169,19 @@ export class FindingSyncService {
         winnerUserId: ctx.user.userId,
         mutationId: ctx.mutationId,
       })),
-      tx,
     );
-    await this.audit.record(tx, ctx.user, { entityType: 'finding', entityId: current.id, action, before: toFinding(current), after: toFinding(row) });
+    await tx.audit({ entityType: 'finding', entityId: current.id, action, before: toFinding(current), after: toFinding(row) });
     return conflicts.length
       ? { outcome: 'conflict', reason: `Replaced a value you had not seen: ${conflicts.map((c) => c.field).join(', ')}`, conflictIds: conflicts.map((c) => c.id) }
       : { outcome: 'applied', reason: null, conflictIds: [] };
   }
 
-  private async changeState(tx: DbExecutor, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
+  private async changeState(tx: SyncStore, ctx: SyncContext, mutation: SyncMutation): Promise<MutationApplied> {
     const { user } = ctx;
     const parsed = FindingStateChangeSchema.safeParse(mutation.payload);
     if (!parsed.success) throw new MutationRejected(`Invalid state change: ${issuesOf(parsed.error)}`);
     const input = parsed.data;
-    const scoped = await this.findings.findWithScope(user.organisationId, mutation.entityId, tx, true);
+    const scoped = await tx.finding(mutation.entityId);
     if (!scoped || !inScope(user, scoped)) throw new MutationRejected('The finding does not exist (deleted, or never reached the server)');
     const current = scoped.finding;
     const decision = decideStateCommand(current.state, input.to, user.role, inScope(user, scoped));
@@ -187,33 +190,25 @@ export class FindingSyncService {
     const now = new Date();
     const base = { id: input.recordId ?? randomUUID(), organisationId: user.organisationId, findingId: current.id, note: input.note };
     const kind = decision.transition.kind;
-    if (kind === 'fix') await this.findings.insertFix({ ...base, fixedBy: user.userId, fixedAt: now }, tx);
+    if (kind === 'fix') await tx.insertFix({ ...base, fixedBy: user.userId, fixedAt: now });
     if (kind === 'verify' || kind === 'reopen') {
-      await this.findings.insertVerification({ ...base, verifiedBy: user.userId, verifiedAt: now, outcome: kind === 'verify' ? 'verified' : 'reopened' }, tx);
+      await tx.insertVerification({ ...base, verifiedBy: user.userId, verifiedAt: now, outcome: kind === 'verify' ? 'verified' : 'reopened' });
     }
-    const row = await this.findings.update(current.id, { state: input.to, ...(kind === 'make-safe' ? { madeSafeNote: input.note } : {}) }, tx);
-    await this.audit.record(tx, user, { entityType: 'finding', entityId: current.id, action: `state:${input.to}`, before: toFinding(current), after: toFinding(row) });
+    const row = await tx.updateFinding(current.id, { state: input.to, ...(kind === 'make-safe' ? { madeSafeNote: input.note } : {}) });
+    await tx.audit({ entityType: 'finding', entityId: current.id, action: `state:${input.to}`, before: toFinding(current), after: toFinding(row) });
     return { outcome: 'applied', reason: null, conflictIds: [] };
   }
 
-  private async inspectionWind(user: AuthUser, inspectionId: string | null, scaffoldId: string, tx: DbExecutor, creating: boolean): Promise<number | null> {
+  private async inspectionWind(inspectionId: string | null, scaffoldId: string, tx: SyncStore, creating: boolean): Promise<number | null> {
     if (!inspectionId) return null;
-    const inspection = await this.inspections.find(user.organisationId, inspectionId, tx);
+    const inspection = await tx.inspection(inspectionId);
     if (!inspection) throw new MutationRejected('The inspection does not exist');
     if (creating && inspection.scaffoldId !== scaffoldId) throw new MutationRejected('The inspection is of another scaffold');
     if (creating && inspection.finishedAt) throw new MutationRejected('The inspection is finished and signed; record the finding in a new inspection');
     return inspection.windSpeedMps;
   }
 
-  private async scaffold(ctx: SyncContext, id: string, tx: DbExecutor): Promise<ScaffoldRow | undefined> {
-    const cached = ctx.scaffolds?.get(id);
-    if (cached) return cached;
-    const row = await this.scaffolds.find(ctx.user.organisationId, id, tx);
-    if (row) ctx.scaffolds?.set(id, row);
-    return row;
-  }
-
-  private async catalogueItem(user: AuthUser, id: string | undefined, tx: DbExecutor) {
-    return id === undefined ? undefined : this.catalogue.findVisible(user.organisationId, id, tx);
+  private async catalogueItem(id: string | undefined, tx: SyncStore) {
+    return id === undefined ? undefined : tx.catalogueItem(id);
   }
 }

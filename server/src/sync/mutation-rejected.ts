@@ -11,7 +11,7 @@ export class MutationRejected extends Error {
 /** PostgreSQL classes of a bad value or a broken constraint: the mutation's fault, not the server's. */
 const MUTATION_FAULT_CLASSES = ['22', '23'];
 
-function pgCode(error: unknown): string | undefined {
+export function pgCode(error: unknown): string | undefined {
   const e = error as { code?: unknown; cause?: { code?: unknown } };
   const code = typeof e?.code === 'string' ? e.code : typeof e?.cause?.code === 'string' ? e.cause.code : undefined;
   return code && /^[0-9A-Z]{5}$/.test(code) ? code : undefined;
@@ -27,6 +27,11 @@ export function rejectionReason(error: unknown): string | undefined {
   const code = pgCode(error);
   if (code && MUTATION_FAULT_CLASSES.includes(code.slice(0, 2))) return `The change breaks a rule of the data (${code})`;
   return undefined;
+}
+
+/** An error PostgreSQL answered (it aborts the transaction or savepoint it happened in). */
+export function isDatabaseError(error: unknown): boolean {
+  return pgCode(error) !== undefined;
 }
 
 /** Deadlock or serialization failure: the push is safe to retry. */

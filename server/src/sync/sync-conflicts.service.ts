@@ -61,7 +61,7 @@ export class SyncConflictsService {
         }
         try {
           const ctx = { user, clientId: `00000000-0000-0000-0000-000000000000`, mutationId: 0 };
-          await this.findingSync.writeFields(tx, ctx, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
+          await this.findingSync.writeFields(this.findingSync.dbStore(tx, user), ctx, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
         } catch (error) {
           if (error instanceof MutationRejected) throw new AppError(ErrorCode.ValidationFailed, error.reason);
           throw error;

@@ -162,6 +162,25 @@ describe('per-field merge', () => {
   });
 });
 
+describe('a batch the database refuses part of', () => {
+  it('rejects only the mutation PostgreSQL refuses, applies the others, and audits each applied one once', async () => {
+    const p = phone('demo:inspector');
+    const good = create({ notes: 'kept' });
+    const bad = create({ notes: 'nul \u0000 inside' });
+    const res = await p.push([good, bad, update(good.entityId, 1, { notes: 'kept and edited' })]);
+    expect(res.status).toBe(200);
+    expect(res.body.lastMutationId).toBe(3);
+    expect(res.body.results.map((r: { outcome: string }) => r.outcome)).toEqual(['applied', 'rejected', 'applied']);
+    expect(res.body.results[1].reason).toMatch(/breaks a rule of the data/);
+    expect((await finding(good.entityId)).notes).toBe('kept and edited');
+    expect((await api.call('demo:manager', 'GET', `/findings/${bad.entityId}`)).status).toBe(404);
+    const audit = await api.t.drizzle.execute<{ action: string }>(sql`select action from audit_events where entity_id = ${good.entityId} order by id`);
+    expect(audit.rows.map((r) => r.action)).toEqual(['create', 'update']);
+    const log = await api.t.drizzle.execute<{ n: number }>(sql`select count(*)::int as n from sync_mutations where client_id = ${p.clientId}`);
+    expect(log.rows[0]!.n).toBe(3);
+  });
+});
+
 describe('state changes as commands', () => {
   it('makes two phones marking the same finding fixed one fix and a no-op', async () => {
     const a = phone('demo:inspector');

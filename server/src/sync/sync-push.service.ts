@@ -1,12 +1,15 @@
-import { Inject, Injectable } from '@nestjs/common';
-import { batchIsConsecutive, orderOfMutation, type SyncMutationResult, type SyncPush, type SyncPushResponse } from '@plummet/shared';
+import { Inject, Injectable, Logger } from '@nestjs/common';
+import { batchIsConsecutive, orderOfMutation, type SyncMutation, type SyncMutationResult, type SyncPush, type SyncPushResponse } from '@plummet/shared';
+import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { inScope } from '../findings/findings.service.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
-import { FindingSyncService } from './finding-sync.service.js';
-import { isRetryable, rejectionReason } from './mutation-rejected.js';
+import { BatchFallback, BatchSyncStore } from './batch-sync-store.js';
+import { FindingSyncService, type MutationApplied } from './finding-sync.service.js';
+import { SyncBatchRepository } from './sync-batch.repository.js';
+import { isDatabaseError, isRetryable, pgCode, rejectionReason } from './mutation-rejected.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
 import { toSyncFinding } from './sync.mapper.js';
 import { SyncRepository, type SyncMutationLogRow } from './sync.repository.js';
@@ -18,6 +21,12 @@ import { SyncRepository, type SyncMutationLogRow } from './sync.repository.js';
  * that can never apply is rejected with its reason inside a savepoint, and the counter moves on.
  * Nothing here reads a device clock.
  */
+interface FreshOutcome {
+  results: SyncMutationResult[];
+  /** The touched findings as read back inside the batch's savepoint (undefined: read them afterwards). */
+  stored?: Awaited<ReturnType<SyncPullRepository['findingsWithSite']>>;
+}
+
 @Injectable()
 export class SyncPushService {
   constructor(
@@ -25,7 +34,11 @@ export class SyncPushService {
     private readonly sync: SyncRepository,
     private readonly pull: SyncPullRepository,
     private readonly findingSync: FindingSyncService,
+    private readonly batch: SyncBatchRepository,
+    private readonly audit: AuditService,
   ) {}
+
+  private readonly logger = new Logger(SyncPushService.name);
 
   async push(user: AuthUser, body: SyncPush): Promise<SyncPushResponse> {
     const ids = body.mutations.map((m) => m.id);
@@ -59,47 +72,88 @@ export class SyncPushService {
     const fresh = body.mutations.filter((m) => m.id > client.lastMutationId);
     const results: SyncMutationResult[] = [];
     const logged = new Map((await this.sync.loggedOutcomes(body.clientId, replayed.map((m) => m.id), tx)).map((r) => [r.mutationId, r]));
+    const withConflicts = replayed.filter((m) => logged.get(m.id)?.outcome === 'conflict').map((m) => m.id);
+    const conflictIdsOf = await this.sync.conflictIdsOfMutations(body.clientId, withConflicts, tx);
     for (const m of replayed) {
       const log = logged.get(m.id);
-      const conflictIds = log?.outcome === 'conflict' ? await this.sync.conflictIdsOfMutation(body.clientId, m.id, tx) : [];
+      const conflictIds = conflictIdsOf.get(m.id) ?? [];
       results.push({ id: m.id, outcome: log?.outcome ?? 'applied', reason: log?.reason ?? null, replayed: true, conflictIds });
     }
 
-    const logRows: SyncMutationLogRow[] = [];
-    const scaffolds = new Map<string, ScaffoldRow>();
-    for (const m of fresh) {
-      const ctx = { user, clientId: body.clientId, mutationId: m.id, scaffolds };
-      let result: SyncMutationResult;
-      try {
-        // A savepoint per mutation: a rejected one leaves no trace but its log row.
-        const applied = await tx.transaction((sp) => this.findingSync.apply(sp, ctx, m));
-        result = { id: m.id, ...applied, replayed: false };
-      } catch (error) {
-        const reason = rejectionReason(error);
-        if (reason === undefined) throw error;
-        result = { id: m.id, outcome: 'rejected', reason, replayed: false, conflictIds: [] };
-      }
-      results.push(result);
-      logRows.push({
-        clientId: body.clientId,
-        mutationId: m.id,
-        organisationId: user.organisationId,
-        entity: m.entity,
-        entityId: m.entityId,
-        action: m.action,
-        outcome: result.outcome,
-        reason: result.reason,
-      });
-    }
+    const touched = [...new Set(body.mutations.map((m) => m.entityId))];
+    const applied = fresh.length ? await this.applyFresh(tx, user, body.clientId, fresh, touched) : { results: [], stored: undefined };
+    results.push(...applied.results);
+    const logRows: SyncMutationLogRow[] = fresh.map((m, i) => ({
+      clientId: body.clientId,
+      mutationId: m.id,
+      organisationId: user.organisationId,
+      entity: m.entity,
+      entityId: m.entityId,
+      action: m.action,
+      outcome: applied.results[i]!.outcome,
+      reason: applied.results[i]!.reason,
+    }));
     await this.sync.logOutcomes(logRows, tx);
     const lastMutationId = Math.max(client.lastMutationId, ...body.mutations.map((m) => m.id));
     if (lastMutationId !== client.lastMutationId) await this.sync.advanceClient(body.clientId, lastMutationId, tx);
 
-    const touched = [...new Set(body.mutations.map((m) => m.entityId))];
-    const records = (await this.pull.findingsWithSite(touched, tx))
+    const records = (applied.stored ?? (await this.pull.findingsWithSite(touched, tx)))
       .filter((r) => r.finding.organisationId === user.organisationId)
       .filter((r) => inScope(user, r))
       .map((r) => toSyncFinding(r.finding, r.siteId));
     return { lastMutationId, results, records };
+  }
+
+  /**
+   * The fresh mutations, in order. First in memory on the batch's findings loaded and locked up
+   * front, written with a few multi-row statements inside one savepoint; when the database refuses
+   * that write (a value it rejects, an id taken meanwhile) or reads it back differently, back to the
+   * savepoint and one savepoint per mutation instead, which records the offending one as rejected.
+   */
+  private async applyFresh(tx: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
+    try {
+      return await tx.transaction((sp) => this.applyInMemory(sp, user, clientId, fresh, touched));
+    } catch (error) {
+      if (!(error instanceof BatchFallback) && rejectionReason(error) === undefined) throw error;
+      const why = error instanceof BatchFallback ? error.message : `the database refused a value (${pgCode(error)})`;
+      this.logger.warn(`Push of ${fresh.length} mutations applied one by one: ${why}`);
+    }
+    const scaffolds = new Map<string, ScaffoldRow>();
+    const results: SyncMutationResult[] = [];
+    for (const m of fresh) {
+      const ctx = { user, clientId, mutationId: m.id };
+      // A savepoint per mutation: a rejected one leaves no trace but its log row.
+      results.push(await this.applyOne(m, () => tx.transaction((sp) => this.findingSync.apply(this.findingSync.dbStore(sp, user, scaffolds), ctx, m))));
+    }
+    return { results, stored: undefined };
+  }
+
+  /** Inside the batch's savepoint: every mutation in memory, then a few multi-row writes, then the rows read back. */
+  private async applyInMemory(sp: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
+    const loaded = await this.batch.lockFindings(fresh.map((m) => m.entityId), sp);
+    const store = new BatchSyncStore(this.findingSync.dbStore(sp, user, new Map()), user, loaded, await this.batch.now(sp));
+    const results: SyncMutationResult[] = [];
+    for (const m of fresh) {
+      store.begin();
+      // A database error here has aborted the savepoint: it propagates, and the batch goes one by one.
+      const result = await this.applyOne(m, () => this.findingSync.apply(store, { user, clientId, mutationId: m.id }, m), true);
+      if (result.outcome === 'rejected') store.rollback();
+      results.push(result);
+    }
+    await store.flush(sp, this.batch, this.audit);
+    const stored = await this.pull.findingsWithSite(touched, sp);
+    if (!store.matchesStored(stored.map((r) => r.finding))) throw new BatchFallback('a finding reads back differently');
+    return { results, stored };
+  }
+
+  /** The mutation's outcome; a mutation that can never apply is rejected with its reason. */
+  private async applyOne(m: SyncMutation, apply: () => Promise<MutationApplied>, inMemory = false): Promise<SyncMutationResult> {
+    try {
+      return { id: m.id, ...(await apply()), replayed: false };
+    } catch (error) {
+      const reason = inMemory && isDatabaseError(error) ? undefined : rejectionReason(error);
+      if (reason === undefined) throw error;
+      return { id: m.id, outcome: 'rejected', reason, replayed: false, conflictIds: [] };
+    }
   }
 }

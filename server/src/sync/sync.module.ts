@@ -6,6 +6,7 @@ import { InspectionsModule } from '../inspections/inspections.module.js';
 import { ScaffoldsModule } from '../scaffolds/scaffolds.module.js';
 import { FindingSyncService } from './finding-sync.service.js';
 import { SyncConflictsService } from './sync-conflicts.service.js';
+import { SyncBatchRepository } from './sync-batch.repository.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
 import { SyncPullService } from './sync-pull.service.js';
 import { SyncPushService } from './sync-push.service.js';
@@ -16,6 +17,6 @@ import { SyncRepository } from './sync.repository.js';
 @Module({
   imports: [AuditModule, FindingsModule, ScaffoldsModule, InspectionsModule, CatalogueModule],
   controllers: [SyncController],
-  providers: [SyncRepository, SyncPullRepository, FindingSyncService, SyncPushService, SyncPullService, SyncConflictsService],
+  providers: [SyncRepository, SyncBatchRepository, SyncPullRepository, FindingSyncService, SyncPushService, SyncPullService, SyncConflictsService],
 })
 export class SyncModule {}

@@ -43,12 +43,16 @@ export class SyncRepository {
     return rows.length ? tx.insert(syncConflicts).values(rows).returning() : [];
   }
 
-  async conflictIdsOfMutation(clientId: string, mutationId: number, tx: DbExecutor): Promise<string[]> {
+  /** The conflicts each of `mutationIds` opened, by mutation id (one query for a whole replayed batch). */
+  async conflictIdsOfMutations(clientId: string, mutationIds: number[], tx: DbExecutor): Promise<Map<number, string[]>> {
+    const byMutation = new Map<number, string[]>();
+    if (!mutationIds.length) return byMutation;
     const rows = await tx
-      .select({ id: syncConflicts.id })
+      .select({ id: syncConflicts.id, mutationId: syncConflicts.mutationId })
       .from(syncConflicts)
-      .where(and(eq(syncConflicts.winnerClientId, clientId), eq(syncConflicts.mutationId, mutationId)));
-    return rows.map((r) => r.id);
+      .where(and(eq(syncConflicts.winnerClientId, clientId), inArray(syncConflicts.mutationId, mutationIds)));
+    for (const r of rows) byMutation.set(r.mutationId, [...(byMutation.get(r.mutationId) ?? []), r.id]);
+    return byMutation;
   }
 
   /** Conflicts of the organisation, newest first; a foreman's list holds only findings in their scope. */

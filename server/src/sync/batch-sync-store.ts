@@ -1,0 +1,203 @@
+import { randomUUID } from 'node:crypto';
+import type { AuditChange, AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../auth/auth.types.js';
+import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
+import type { DbExecutor } from '../db/db.tokens.js';
+import type { FindingRow } from '../findings/finding.mapper.js';
+import type { FindingChanges, FindingInsert, FindingWithScope } from '../findings/findings.repository.js';
+import type { InspectionRow } from '../inspections/inspection.mapper.js';
+import type { SyncBatchRepository } from './sync-batch.repository.js';
+import type { FixInsert, SyncStore, VerificationInsert } from './sync-store.js';
+import type { SyncConflictInsert } from './sync.repository.js';
+
+/**
+ * The batch could not be written as computed (an id taken meanwhile, a value the database refuses):
+ * the push rolls back to its savepoint and applies the mutations one by one instead.
+ */
+export class BatchFallback extends Error {
+  constructor(reason: string) {
+    super(reason);
+    this.name = 'BatchFallback';
+  }
+}
+
+/** Keys given as undefined leave a column alone (as Drizzle's insert and set do). */
+function defined<T extends object>(values: T): Partial<T> {
+  return Object.fromEntries(Object.entries(values).filter(([, v]) => v !== undefined)) as Partial<T>;
+}
+
+/**
+ * A `real` as it reads back: PostgreSQL stores the nearest single-precision float and prints the
+ * shortest decimal that identifies it (1.1, not 1.100000023841858), which the driver parses.
+ */
+export function realAsRead(value: number): number {
+  const single = Math.fround(value);
+  if (!Number.isFinite(single)) return single;
+  for (let digits = 1; digits < 9; digits += 1) {
+    const shortest = Number(single.toPrecision(digits));
+    if (Math.fround(shortest) === single) return shortest;
+  }
+  return Number(single.toPrecision(9));
+}
+
+/** The row as it reads back from PostgreSQL. */
+function asStored(row: FindingRow): FindingRow {
+  return { ...row, heightM: realAsRead(row.heightM), massKg: realAsRead(row.massKg) };
+}
+
+/** The API columns PostgreSQL might store differently from what was computed (jsonb is compared by the merge itself). */
+const CHECKED = [
+  'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg',
+  'exposure', 'likelihood', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'notes', 'madeSafeNote', 'createdBy', 'version',
+] as const;
+
+/**
+ * A push applied in memory: the findings of the batch are loaded (and locked) up front, each
+ * mutation reads and changes these rows with the same rules as the statement-by-statement path,
+ * and flush() writes the outcome with a few multi-row statements. begin()/rollback() undo what a
+ * rejected mutation did, as the per-mutation savepoint does in the database.
+ */
+export class BatchSyncStore implements SyncStore {
+  private readonly rows = new Map<string, FindingWithScope>();
+  private readonly created = new Set<string>();
+  private readonly changed = new Set<string>();
+  private readonly inspections = new Map<string, InspectionRow | undefined>();
+  private readonly catalogue = new Map<string, CatalogueItemRow | undefined>();
+  private conflicts: SyncConflictInsert[] = [];
+  private fixes: FixInsert[] = [];
+  private verifications: VerificationInsert[] = [];
+  private audits: AuditChange[] = [];
+  private undo: (() => void)[] = [];
+
+  constructor(
+    /** Reads of scaffolds, inspections and catalogue items go here (and are kept for the batch). */
+    private readonly reads: SyncStore,
+    private readonly user: AuthUser,
+    loaded: FindingWithScope[],
+    /** The transaction's now(): what created_at and updated_at get. */
+    private readonly now: Date,
+  ) {
+    for (const r of loaded) this.rows.set(r.finding.id, r);
+  }
+
+  begin(): void {
+    const lengths = [this.conflicts.length, this.fixes.length, this.verifications.length, this.audits.length] as const;
+    this.undo = [
+      () => {
+        this.conflicts.length = lengths[0];
+        this.fixes.length = lengths[1];
+        this.verifications.length = lengths[2];
+        this.audits.length = lengths[3];
+      },
+    ];
+  }
+
+  rollback(): void {
+    for (const step of this.undo.reverse()) step();
+    this.undo = [];
+  }
+
+  scaffold(id: string) {
+    return this.reads.scaffold(id);
+  }
+
+  async inspection(id: string) {
+    if (!this.inspections.has(id)) this.inspections.set(id, await this.reads.inspection(id));
+    return this.inspections.get(id);
+  }
+
+  async catalogueItem(id: string) {
+    if (!this.catalogue.has(id)) this.catalogue.set(id, await this.reads.catalogueItem(id));
+    return this.catalogue.get(id);
+  }
+
+  async finding(id: string) {
+    const r = this.rows.get(id);
+    return r && r.finding.organisationId === this.user.organisationId ? r : undefined;
+  }
+
+  async insertFinding(values: FindingInsert) {
+    if (this.rows.has(values.id)) return undefined;
+    const scaffold = await this.reads.scaffold(values.scaffoldId);
+    const finding = asStored({
+      inspectionId: null,
+      catalogueItemId: null,
+      shape: null,
+      state: 'open',
+      assigneeId: null,
+      dueAt: null,
+      notes: '',
+      madeSafeNote: null,
+      syncFields: {},
+      ...(defined(values) as FindingInsert),
+      createdAt: this.now,
+      updatedAt: this.now,
+      version: 1,
+      syncXid: '',
+      syncSeq: 0,
+    });
+    this.rows.set(finding.id, { finding, scaffoldForemanId: scaffold?.foremanId ?? null });
+    this.created.add(finding.id);
+    this.undo.push(() => {
+      this.rows.delete(finding.id);
+      this.created.delete(finding.id);
+    });
+    return finding;
+  }
+
+  async updateFinding(id: string, changes: FindingChanges) {
+    const before = this.rows.get(id)!;
+    const finding = asStored({ ...before.finding, ...(defined(changes) as Partial<FindingRow>), version: before.finding.version + 1, updatedAt: this.now });
+    const wasChanged = this.changed.has(id);
+    this.rows.set(id, { ...before, finding });
+    if (!this.created.has(id)) this.changed.add(id);
+    this.undo.push(() => {
+      this.rows.set(id, before);
+      if (!wasChanged) this.changed.delete(id);
+    });
+    return finding;
+  }
+
+  async insertConflicts(rows: SyncConflictInsert[]) {
+    const withIds = rows.map((r) => ({ ...r, id: randomUUID() }));
+    this.conflicts.push(...withIds);
+    return withIds;
+  }
+
+  async insertFix(values: FixInsert) {
+    this.fixes.push(values);
+  }
+
+  async insertVerification(values: VerificationInsert) {
+    this.verifications.push(values);
+  }
+
+  async audit(change: AuditChange) {
+    this.audits.push(change);
+  }
+
+  /** Writes everything; call inside a savepoint. Throws BatchFallback when the database would not take it as computed. */
+  async flush(tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
+    const created = [...this.created].map((id) => this.rows.get(id)!.finding);
+    const changed = [...this.changed].map((id) => this.rows.get(id)!.finding);
+    if ((await repo.insertFindings(created, tx)) !== created.length) throw new BatchFallback('a finding id was taken meanwhile');
+    if ((await repo.updateFindings(changed, tx)) !== changed.length) throw new BatchFallback('a finding changed meanwhile');
+    if ((await repo.insertFixes(this.fixes, tx)) !== this.fixes.length) throw new BatchFallback('a fix record id is taken');
+    if ((await repo.insertVerifications(this.verifications, tx)) !== this.verifications.length) throw new BatchFallback('a verification record id is taken');
+    await repo.insertConflicts(this.conflicts, tx);
+    await audit.recordMany(tx, this.user, this.audits);
+  }
+
+  /** True when every finding written reads back as it was computed (so every audit row told the truth). */
+  matchesStored(stored: FindingRow[]): boolean {
+    const byId = new Map(stored.map((r) => [r.id, r]));
+    return [...this.created, ...this.changed].every((id) => {
+      const mine = this.rows.get(id)!.finding;
+      const theirs = byId.get(id);
+      if (!theirs) return false;
+      if (mine.createdAt.getTime() !== theirs.createdAt.getTime() || mine.updatedAt.getTime() !== theirs.updatedAt.getTime()) return false;
+      if ((mine.dueAt?.getTime() ?? null) !== (theirs.dueAt?.getTime() ?? null)) return false;
+      return CHECKED.every((k) => mine[k] === theirs[k]);
+    });
+  }
+}

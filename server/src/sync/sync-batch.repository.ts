@@ -1,0 +1,99 @@
+import { Injectable } from '@nestjs/common';
+import { asc, eq, inArray, sql } from 'drizzle-orm';
+import type { DbExecutor } from '../db/db.tokens.js';
+import { findings, fixes, scaffolds, syncConflicts, verifications } from '../db/schema/index.js';
+import type { FindingRow } from '../findings/finding.mapper.js';
+import type { FindingWithScope } from '../findings/findings.repository.js';
+import type { FixInsert, VerificationInsert } from './sync-store.js';
+import type { SyncConflictInsert } from './sync.repository.js';
+
+/** Rows per statement: keeps every multi-row insert well under PostgreSQL's 65,535 parameters. */
+const CHUNK = 1000;
+
+function chunks<T>(rows: T[]): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < rows.length; i += CHUNK) out.push(rows.slice(i, i + CHUNK));
+  return out;
+}
+
+/** Columns a sync write may change on an existing finding (id, organisation, author and creation time never change). */
+const UPDATABLE = [
+  'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg', 'shape', 'exposure',
+  'likelihoodAnswers', 'likelihood', 'estimate', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt', 'notes',
+  'madeSafeNote', 'version', 'syncFields',
+] as const;
+
+/** A new finding's columns: the database sets the creation time and the change-feed stamp. */
+const INSERTED = ['id', 'organisationId', 'createdBy', ...UPDATABLE] as const;
+
+type FindingColumn = (typeof INSERTED)[number];
+
+/** Rows as a JSON array keyed by column name (timestamps as ISO text, jsonb columns as JSON). */
+function asJson(rows: FindingRow[], columns: readonly FindingColumn[]): string {
+  const names = columns.map((c) => [c, findings[c].name] as const);
+  return JSON.stringify(rows.map((row) => Object.fromEntries(names.map(([key, name]) => [name, row[key] ?? null]))));
+}
+
+/** The multi-row reads and writes of a push applied as one batch (BatchSyncStore). */
+@Injectable()
+export class SyncBatchRepository {
+  /** The transaction's clock (`now()`), read as a timestamp column is, so rows made in memory match stored ones. */
+  async now(tx: DbExecutor): Promise<Date> {
+    const [row] = await tx.select({ now: sql`now()`.mapWith(findings.updatedAt) }).from(sql`(select 1) one`);
+    return row!.now as Date;
+  }
+
+  /** Every finding with one of `ids` (any organisation), locked until the transaction ends, in id order (fewer deadlocks). */
+  async lockFindings(ids: string[], tx: DbExecutor): Promise<FindingWithScope[]> {
+    if (!ids.length) return [];
+    return tx
+      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId })
+      .from(findings)
+      .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
+      .where(inArray(findings.id, ids))
+      .orderBy(asc(findings.id))
+      .for('update', { of: findings });
+  }
+
+  /**
+   * Inserts new findings; returns how many were inserted (fewer when an id appeared meanwhile). The
+   * rows travel as one JSON parameter (json_populate_recordset): far cheaper to send and plan than
+   * thirty thousand bind parameters.
+   */
+  async insertFindings(rows: FindingRow[], tx: DbExecutor): Promise<number> {
+    if (!rows.length) return 0;
+    const cols = sql.raw(INSERTED.map((c) => findings[c].name).join(', '));
+    const result = await tx.execute(sql`
+      insert into findings (${cols}) select ${cols} from json_populate_recordset(null::findings, ${asJson(rows, INSERTED)}::json)
+      on conflict (id) do nothing returning id`);
+    return result.rows.length;
+  }
+
+  /** Writes the new state of existing (locked) findings, bumping version stamp and change-feed stamp; returns how many. */
+  async updateFindings(rows: FindingRow[], tx: DbExecutor): Promise<number> {
+    if (!rows.length) return 0;
+    const set = sql.raw(UPDATABLE.map((c) => `${findings[c].name} = r.${findings[c].name}`).join(', '));
+    const result = await tx.execute(sql`
+      update findings f set ${set}, updated_at = now(), sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq')
+      from json_populate_recordset(null::findings, ${asJson(rows, ['id', ...UPDATABLE])}::json) r
+      where f.id = r.id returning f.id`);
+    return result.rows.length;
+  }
+
+  async insertConflicts(rows: SyncConflictInsert[], tx: DbExecutor): Promise<void> {
+    for (const part of chunks(rows)) await tx.insert(syncConflicts).values(part);
+  }
+
+  /** Returns how many were inserted (fewer when a record id is taken). */
+  async insertFixes(rows: FixInsert[], tx: DbExecutor): Promise<number> {
+    let count = 0;
+    for (const part of chunks(rows)) count += (await tx.insert(fixes).values(part).onConflictDoNothing().returning({ id: fixes.id })).length;
+    return count;
+  }
+
+  async insertVerifications(rows: VerificationInsert[], tx: DbExecutor): Promise<number> {
+    let count = 0;
+    for (const part of chunks(rows)) count += (await tx.insert(verifications).values(part).onConflictDoNothing().returning({ id: verifications.id })).length;
+    return count;
+  }
+}
