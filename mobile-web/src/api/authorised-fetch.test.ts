@@ -2,7 +2,7 @@ import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
 import { readSession, saveSession } from '../features/auth/session.store';
 import { dropTestDatabases, freshDb, inspector } from '../local-db/testing';
-import { authorisedFetch } from './authorised-fetch';
+import { authorisedFetch, fetchWithAccessToken } from './authorised-fetch';
 
 afterEach(dropTestDatabases);
 
@@ -80,5 +80,23 @@ describe('a session the server has ended', () => {
     await expect(authorisedFetch('/sites', {}, database, refused)).rejects.toMatchObject({ status: 401 });
     const session = await readSession(database);
     expect(Date.parse(session!.refreshExpiresAt)).toBeLessThanOrEqual(Date.now());
+  });
+});
+
+describe('fetchWithAccessToken', () => {
+  it('adds the access token to a request it did not build, and renews once on a 401', async () => {
+    const database = freshDb();
+    let current = jwt(900_000);
+    const { fetchImpl, calls } = server(() => current);
+    await saveSession(database, { accessToken: jwt(900_000), refreshToken: 'r'.repeat(43), user: inspector, signedInAt, refreshExpiresAt });
+    const tracking = async (input: string, init?: RequestInit) => {
+      const response = await fetchImpl(input, init);
+      if (input === '/api/auth/refresh') current = ((await response.clone().json()) as { accessToken: string }).accessToken;
+      return response;
+    };
+    current = 'something-else';
+    const response = await fetchWithAccessToken(database, tracking)('/api/sync/pull', { method: 'GET', headers: { Accept: 'application/json' } });
+    expect(response.status).toBe(200);
+    expect(calls).toEqual(['/api/sync/pull', '/api/auth/refresh', '/api/sync/pull']);
   });
 });

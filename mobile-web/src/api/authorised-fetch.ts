@@ -1,6 +1,7 @@
 import { accessTokenNeedsRefresh, sessionFromResponse, type StoredSession } from '../features/auth/session';
 import { readSession, saveSession } from '../features/auth/session.store';
 import { db, type PlummetDb } from '../local-db/db';
+import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
 import { ApiError, apiFetch, type ApiRequest } from './http';
 
 type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
@@ -43,4 +44,39 @@ export async function authorisedFetch<T>(path: string, request: ApiRequest = {},
     const renewed = await refresh(database, session, fetchImpl);
     return apiFetch<T>(path, { ...request, accessToken: renewed.accessToken }, fetchImpl);
   }
+}
+
+/**
+ * A fetch for code that builds its own requests (the sync engine's transport): adds the access
+ * token (renewed first when it has nearly expired), and on a 401 renews once and sends again.
+ * With no session, or one that can no longer be renewed, it answers the server's 401 as it came.
+ */
+export function fetchWithAccessToken(database: PlummetDb = db, fetchImpl: FetchLike = (input, init) => fetch(input, init)): FetchLike {
+  const send = async (input: string, init: RequestInit | undefined, token: string) => {
+    const headers = new Headers(init?.headers);
+    headers.set('Authorization', `Bearer ${token}`);
+    // Answers and failures tell the online badge, as apiFetch's do.
+    try {
+      const response = await fetchImpl(input, { ...init, headers, credentials: 'same-origin' });
+      reportServerReachable(!isGatewayFailure(response.status));
+      return response;
+    } catch (error) {
+      reportServerReachable(false);
+      throw error;
+    }
+  };
+  return async (input, init) => {
+    let session = await readSession(database);
+    if (!session) return fetchImpl(input, init);
+    if (accessTokenNeedsRefresh(session.accessToken)) session = await refresh(database, session, fetchImpl).catch(() => session!);
+    const response = await send(input, init, session.accessToken);
+    if (response.status !== 401) return response;
+    let renewed: StoredSession;
+    try {
+      renewed = await refresh(database, session, fetchImpl);
+    } catch {
+      return response;
+    }
+    return send(input, init, renewed.accessToken);
+  };
 }

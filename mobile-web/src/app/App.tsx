@@ -1,6 +1,7 @@
 import { IonApp, IonRouterOutlet } from '@ionic/react';
 import { IonReactRouter } from '@ionic/react-router';
 import { QueryClientProvider } from '@tanstack/react-query';
+import { Suspense } from 'react';
 import { Navigate, Route, Routes } from 'react-router-dom';
 import {
   CalculatorPage,
@@ -12,8 +13,10 @@ import {
   Lazy,
   ScaffoldPage,
   SettingsPage,
+  SyncRunner,
   SignInPage,
   SitePage,
+  SyncStatusPage,
 } from './lazy-pages';
 import { MutationErrorToasts } from './MutationErrorToasts';
 import { queryClient } from './query-client';
@@ -37,10 +40,14 @@ export function App() {
               <Route path="/findings/:findingId" element={<Lazy page={FindingEditorPage} />} />
               <Route path="/calculator" element={<Lazy page={CalculatorPage} />} />
               <Route path="/settings" element={<Lazy page={SettingsPage} />} />
+              <Route path="/sync" element={<Lazy page={SyncStatusPage} />} />
               <Route path="*" element={<Navigate to="/" replace />} />
             </Routes>
           </IonRouterOutlet>
         </IonReactRouter>
+        <Suspense fallback={null}>
+          <SyncRunner />
+        </Suspense>
         <MutationErrorToasts />
         <ReloadPrompt />
       </IonApp>

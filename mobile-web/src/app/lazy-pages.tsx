@@ -19,6 +19,9 @@ export const InspectionFinishPage = page(() => import('../features/inspections/p
 export const FindingEditorPage = page(() => import('../features/findings/pages/FindingEditorPage'), 'FindingEditorPage');
 export const CalculatorPage = page(() => import('../features/calculator/pages/CalculatorPage'), 'CalculatorPage');
 export const SettingsPage = page(() => import('../features/settings/pages/SettingsPage'), 'SettingsPage');
+export const SyncStatusPage = page(() => import('../features/sync/pages/SyncStatusPage'), 'SyncStatusPage');
+/** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
+export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
 
 /** A route's element: the lazy page, rendering nothing until its chunk has loaded (Ionic waits for the IonPage). */
 export function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {

@@ -1,7 +1,7 @@
 import { IonBackButton, IonButtons, IonHeader, IonTitle, IonToolbar } from '@ionic/react';
 import type { ReactNode } from 'react';
 import { OnlineStatusBadge } from './OnlineStatusBadge';
-import { OutboxBadge } from './OutboxBadge';
+import { SyncBadge } from './SyncBadge';
 
 interface AppHeaderProps {
   title: string;
@@ -25,7 +25,7 @@ export function AppHeader({ title, backHref, children }: AppHeaderProps) {
       </IonToolbar>
       <div className="app-status">
         <OnlineStatusBadge />
-        <OutboxBadge />
+        <SyncBadge />
       </div>
       {children}
     </IonHeader>

@@ -138,4 +138,22 @@ describe('sync triggers', () => {
       vi.useRealTimers();
     }
   });
+
+  it('marks entries as tried before their push leaves, so an edit made while it is on its way waits as a new entry', async () => {
+    const db = freshDb();
+    const server = fakeServer();
+    const seenAttempts: number[] = [];
+    const watching: SyncTransport = {
+      ...server.transport,
+      async push(body) {
+        seenAttempts.push(...(await db.outbox.toArray()).map((entry) => entry.attempts));
+        if (seenAttempts.length === 1) await enqueueChange(db, finding(1).id, { entity: 'finding', action: 'update', payload: { exposure: 'public' } });
+        return server.transport.push(body);
+      },
+    };
+    await enqueueChange(db, finding(1).id, { entity: 'finding', action: 'update', payload: { notes: 'one' } });
+    await new SyncEngine(db, watching).sync();
+    expect(seenAttempts[0]).toBe(1);
+    expect(server.pushes.map((push) => push.mutations.map((m) => m.payload))).toEqual([[{ notes: 'one' }], [{ exposure: 'public' }]]);
+  });
 });

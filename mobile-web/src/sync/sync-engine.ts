@@ -71,6 +71,11 @@ export class SyncEngine {
     return this.running;
   }
 
+  /** Resolves once no run is in progress (sign-out waits for it before clearing the phone). */
+  async whenIdle(): Promise<void> {
+    while (this.running) await this.running.catch(() => undefined);
+  }
+
   subscribe(listener: () => void): () => void {
     this.listeners.add(listener);
     return () => this.listeners.delete(listener);

@@ -60,3 +60,12 @@ export async function dismissRejected(database: PlummetDb, index: number): Promi
     await writeMeta(database, SYNC_META.rejected, list);
   });
 }
+
+/** Drops a conflict the user has just settled (the next pull would drop it too). */
+export async function forgetConflict(database: PlummetDb, id: string): Promise<void> {
+  await database.transaction('rw', database.meta, async () => {
+    const conflicts = await readConflicts(database);
+    delete conflicts[id];
+    await writeMeta(database, SYNC_META.conflicts, conflicts);
+  });
+}

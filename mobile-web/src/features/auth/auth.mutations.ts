@@ -1,6 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { isOnline } from '../../app/connectivity';
 import { db } from '../../local-db/db';
+import { stopAppSync } from '../../sync/app-sync';
 import { signIn, signOutOnServer, type SignInCredentials } from './auth.api';
 import { sessionFromResponse } from './session';
 import { readSession, signOutLocally, startSession } from './session.store';
@@ -24,6 +25,8 @@ export function useSignInMutation() {
 export function useSignOutMutation() {
   return useMutation({
     mutationFn: async () => {
+      // Stop syncing first: a run still writing after the clear would leave records behind.
+      await stopAppSync();
       const session = await readSession(db);
       if (session && isOnline()) await signOutOnServer(session.refreshToken).catch(() => undefined);
       await signOutLocally(db);

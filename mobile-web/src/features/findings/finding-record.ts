@@ -8,6 +8,7 @@ import {
   FindingSchema,
   IdSchema,
   PHYSICS_EXPOSURE,
+  sameValue,
   type DropInput,
   type FindingCreate,
   type FindingEstimateInput,
@@ -106,10 +107,28 @@ export function findingCreateOf(finding: FindingRecord): FindingCreate {
   };
 }
 
-/** The body of `PATCH /api/findings/:id`: the editable fields, with the version the edit started from. */
-export function findingUpdateOf(finding: FindingRecord): FindingUpdate {
+type EditableFields = Omit<FindingCreate, 'id' | 'scaffoldId' | 'inspectionId'>;
+
+function editableFieldsOf(finding: FindingRecord): EditableFields {
   const { id: _id, scaffoldId: _scaffold, inspectionId: _inspection, ...fields } = findingCreateOf(finding);
-  return { ...fields, ...(finding.version > 0 ? { version: finding.version } : {}) };
+  return fields;
+}
+
+/**
+ * The body of an edit: ONLY the fields that differ from `previous` (the finding as it was before
+ * the edit), with the version the edit started from. The server merges field by field, so a field
+ * sent unchanged would overwrite another phone's edit of it. Without `previous`, every field.
+ * Undefined when nothing changed.
+ */
+export function findingUpdateOf(finding: FindingRecord, previous?: FindingRecord): FindingUpdate | undefined {
+  const fields = editableFieldsOf(finding);
+  const before = previous ? editableFieldsOf(previous) : undefined;
+  const changed = Object.fromEntries(
+    Object.entries(fields).filter(([field, value]) => !before || !sameValue(value, (before as Record<string, unknown>)[field])),
+  ) as Partial<EditableFields>;
+  if (!Object.keys(changed).length) return undefined;
+  const version = previous?.version ?? finding.version;
+  return { ...changed, ...(version > 0 ? { version } : {}) };
 }
 
 const FindingRecordSchema = FindingSchema.extend({ organisationId: IdSchema, siteId: IdSchema });

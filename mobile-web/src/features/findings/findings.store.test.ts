@@ -5,7 +5,7 @@ import type { PhotoRecord } from '../../local-db/records';
 import { dropTestDatabases, freshDb, ORG_ID, SCAFFOLD_ID, SITE_ID, USER_ID } from '../../local-db/testing';
 import { newFindingForm, readFindingForm, type FindingForm } from './finding-form';
 import { buildFindingRecord, tryEstimate, type FindingOwner } from './finding-record';
-import { findingsOfScaffold, getFinding, saveFinding } from './findings.store';
+import { changeFindingState, findingsOfScaffold, getFinding, markFindingFixed, markFindingVerified, reopenFinding, saveFinding } from './findings.store';
 
 afterEach(dropTestDatabases);
 
@@ -112,5 +112,63 @@ describe('saving a finding', () => {
     await saveFinding(database, high);
     expect((await findingsOfScaffold(database, SCAFFOLD_ID)).map((f) => f.id)).toEqual([high.id, low.id]);
     expect(high.riskScore).toBeGreaterThan(low.riskScore);
+  });
+
+  it('sends only the fields an edit changed, from the version it started from, so other phones’ edits of other fields survive', async () => {
+    const database = freshDb();
+    const synced = { ...recordOf(customBrick()), version: 3 };
+    await database.findings.put(synced);
+
+    await saveFinding(database, recordOf(customBrick({ notes: 'Wedged behind the toe board' }), synced));
+    const entries = await listWaitingChanges(database);
+    expect(entries).toHaveLength(1);
+    expect(entries[0]).toMatchObject({ action: 'update', attempts: 0 });
+    expect(entries[0]!.payload).toEqual({ notes: 'Wedged behind the toe board', version: 3 });
+  });
+
+  it('queues nothing when a save changes no field', async () => {
+    const database = freshDb();
+    const synced = { ...recordOf(customBrick()), version: 2 };
+    await database.findings.put(synced);
+    await saveFinding(database, recordOf(customBrick(), synced));
+    expect(await database.outbox.count()).toBe(0);
+  });
+
+  it('never folds an edit into one the sync has already tried: the later edit waits as its own entry with its own fields', async () => {
+    const database = freshDb();
+    const synced = { ...recordOf(customBrick()), version: 3 };
+    await database.findings.put(synced);
+    const notes = recordOf(customBrick({ notes: 'first' }), synced);
+    await saveFinding(database, notes);
+    const [sent] = await listWaitingChanges(database);
+    await database.outbox.update(sent!.id!, { attempts: 1 }); // what the engine does before it first sends an entry
+
+    await saveFinding(database, recordOf(customBrick({ notes: 'first', exposure: 'hard-hats' }), notes));
+    const entries = await listWaitingChanges(database);
+    expect(entries.map((entry) => entry.payload)).toEqual([
+      { notes: 'first', version: 3 },
+      { exposure: 'hard-hats', version: 3 },
+    ]);
+  });
+
+  it('queues fixed, verified and reopened as state commands the state machine allows, and refuses the others', async () => {
+    const database = freshDb();
+    await database.findings.put({ ...recordOf(customBrick()), version: 4 });
+
+    await expect(markFindingVerified(database, owner.id, 'inspector')).rejects.toThrow(/cannot move from open to verified/);
+    await markFindingFixed(database, owner.id, 'foreman', 'Removed', true);
+    await expect(reopenFinding(database, owner.id, 'foreman')).rejects.toThrow(/role/);
+    await markFindingVerified(database, owner.id, 'inspector', 'Checked');
+    await reopenFinding(database, owner.id, 'manager', 'Back again');
+    await changeFindingState(database, owner.id, { to: 'open', role: 'inspector' }); // already open: nothing queued
+
+    expect((await getFinding(database, owner.id))?.state).toBe('open');
+    const entries = await listWaitingChanges(database);
+    expect(entries.map((entry) => [entry.action, (entry.payload as { to: string; note: string }).to, (entry.payload as { note: string }).note])).toEqual([
+      ['state', 'fixed', 'Removed'],
+      ['state', 'verified', 'Checked'],
+      ['state', 'open', 'Back again'],
+    ]);
+    expect(entries.every((entry) => typeof (entry.payload as { recordId?: string }).recordId === 'string')).toBe(true);
   });
 });

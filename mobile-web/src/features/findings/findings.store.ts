@@ -1,4 +1,6 @@
+import { checkFindingTransition, type FindingState, type Role } from '@plummet/shared';
 import type { PlummetDb } from '../../local-db/db';
+import { newId } from '../../local-db/ids';
 import { enqueueChange } from '../../local-db/outbox';
 import type { FindingRecord, PhotoRecord } from '../../local-db/records';
 import { addPhotos } from '../photos/photos.store';
@@ -6,8 +8,9 @@ import { findingCreateOf, findingUpdateOf, looksLikeFinding, restoreFinding } fr
 
 /**
  * Saves a finding made or edited on the phone: the record, its new photos and their outbox
- * entries in one transaction. A new finding queues its create; an edit queues an update (folded
- * into a create that is still waiting); becoming "made safe" queues the state change with its note.
+ * entries in one transaction. A new finding queues its create; an edit queues an update of the
+ * fields that changed only (folded into a create or update still waiting and not yet tried);
+ * becoming "made safe" queues the state change with its note.
  */
 export async function saveFinding(database: PlummetDb, finding: FindingRecord, newPhotos: readonly PhotoRecord[] = []): Promise<void> {
   await database.transaction('rw', database.findings, database.photos, database.outbox, async () => {
@@ -16,7 +19,8 @@ export async function saveFinding(database: PlummetDb, finding: FindingRecord, n
     if (!previous) {
       await enqueueChange(database, finding.id, { entity: 'finding', action: 'create', payload: findingCreateOf(finding) });
     } else {
-      await enqueueChange(database, finding.id, { entity: 'finding', action: 'update', payload: findingUpdateOf(finding) });
+      const changed = findingUpdateOf(finding, previous);
+      if (changed) await enqueueChange(database, finding.id, { entity: 'finding', action: 'update', payload: changed });
     }
     if (finding.state === 'made-safe' && previous?.state !== 'made-safe') {
       await enqueueChange(database, finding.id, {
@@ -28,6 +32,42 @@ export async function saveFinding(database: PlummetDb, finding: FindingRecord, n
     await addPhotos(database, newPhotos);
   });
 }
+
+/**
+ * Moves a finding to another state on the phone (fixed, verified, reopened, made safe) and queues
+ * the command for the server, in one transaction. The shared state machine checks it here first so
+ * the phone never shows a state the server would refuse; the server checks again (it has the
+ * last word: a move another phone made meanwhile may make this one a no-op or a refusal).
+ */
+export async function changeFindingState(
+  database: PlummetDb,
+  findingId: string,
+  change: { to: FindingState; note?: string; role: Role; foremanInScope?: boolean },
+  now: Date = new Date(),
+): Promise<FindingRecord> {
+  return database.transaction('rw', database.findings, database.outbox, async () => {
+    const finding = await database.findings.get(findingId);
+    if (!finding) throw new Error('This finding is not on this phone.');
+    if (finding.state === change.to) return finding;
+    const check = checkFindingTransition(finding.state, change.to, change.role, change.foremanInScope ?? false);
+    if (!check.ok) throw new Error(`A finding cannot move from ${finding.state} to ${change.to} (${check.reason}).`);
+    const note = change.note?.trim() ?? '';
+    const updated: FindingRecord = {
+      ...finding,
+      state: change.to,
+      ...(check.transition.kind === 'make-safe' ? { madeSafeNote: note } : {}),
+      updatedAt: now.toISOString(),
+    };
+    await database.findings.put(updated);
+    await enqueueChange(database, findingId, { entity: 'finding', action: 'state', payload: { to: change.to, note, recordId: newId() } }, now);
+    return updated;
+  });
+}
+
+export const markFindingFixed = (database: PlummetDb, findingId: string, role: Role, note = '', foremanInScope = false) =>
+  changeFindingState(database, findingId, { to: 'fixed', note, role, foremanInScope });
+export const markFindingVerified = (database: PlummetDb, findingId: string, role: Role, note = '') => changeFindingState(database, findingId, { to: 'verified', note, role });
+export const reopenFinding = (database: PlummetDb, findingId: string, role: Role, note = '') => changeFindingState(database, findingId, { to: 'open', note, role });
 
 export async function getFinding(database: PlummetDb, id: string): Promise<FindingRecord | undefined> {
   return restoreFinding(await database.findings.get(id));

@@ -1,6 +1,7 @@
 import type { Site } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
 import { db, writeMeta } from '../../local-db/db';
+import { currentSyncEngine } from '../../sync/app-sync';
 import { downloadSite, type SiteDownloadResult } from '../../sync/download-site';
 import { requestPersistentStorage, type StorageReport } from '../../sync/storage';
 import { fetchCatalogue } from '../catalogue/catalogue.api';
@@ -18,6 +19,9 @@ export interface OfflineCopyResult {
 export function useMakeSiteOfflineMutation() {
   return useMutation({
     mutationFn: async ({ site, organisationId }: { site: Site; organisationId: string }): Promise<OfflineCopyResult> => {
+      // The change feed brings findings whole; the site's list route trims their estimate to a
+      // summary. Syncing first puts the whole records on the phone, and the download keeps them.
+      await currentSyncEngine()?.sync();
       const download = await downloadSite(db, site, organisationId, {
         scaffolds: fetchScaffoldsOfSite,
         openFindings: fetchOpenFindingsOfSite,

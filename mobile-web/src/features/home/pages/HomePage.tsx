@@ -1,7 +1,7 @@
 import { IonButton, IonButtons, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
-import { OutboxBadge } from '../../../components/OutboxBadge';
+import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
 import { SitesOverview } from '../../sites/components/SitesOverview';
 import './HomePage.css';
@@ -22,7 +22,7 @@ export function HomePage() {
         </IonToolbar>
         {signedIn && (
           <div className="app-status">
-            <OutboxBadge />
+            <SyncBadge />
           </div>
         )}
       </IonHeader>

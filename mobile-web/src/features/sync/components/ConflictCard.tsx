@@ -1,0 +1,103 @@
+import { IonButton } from '@ionic/react';
+import type { SyncConflict, SyncConflictResolve } from '@plummet/shared';
+import { useLiveQuery } from 'dexie-react-hooks';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { formatDateTime } from '../../../app/format-date';
+import { db } from '../../../local-db/db';
+import type { Units } from '../../settings/units';
+import { canTypeValue, fieldWords, parseTypedValue, valueWords } from '../conflict-words';
+import { describeResolveError, useResolveConflictMutation } from '../conflicts.mutations';
+
+interface ConflictCardProps {
+  conflict: SyncConflict;
+  userId: string;
+  units: Units;
+}
+
+/**
+ * One conflict: the finding, the field, the value in place now and the value it replaced, with
+ * who wrote each; settled by keeping one or typing another (on the server, so it needs a connection).
+ */
+export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
+  const finding = useLiveQuery(async () => {
+    const record = await db.findings.get(conflict.entityId);
+    const scaffold = record ? await db.scaffolds.get(record.scaffoldId) : undefined;
+    return { record, scaffold };
+  }, [conflict.entityId]);
+  const resolve = useResolveConflictMutation();
+  const [typing, setTyping] = useState(false);
+  const [text, setText] = useState(typeof conflict.currentValue === 'string' || typeof conflict.currentValue === 'number' ? String(conflict.currentValue) : '');
+  const [problem, setProblem] = useState<string>();
+
+  const record = finding?.record;
+  const where = record ? `${finding?.scaffold?.reference ?? 'Scaffold'} · ${record.elevation}, lift ${record.lift}, bay ${record.bay}` : 'A finding not on this phone';
+  const winner = conflict.winnerUserId === userId ? 'you' : 'another user';
+  const settle = (body: SyncConflictResolve) => {
+    setProblem(undefined);
+    resolve.mutate({ id: conflict.id, body });
+  };
+  const settleTyped = () => {
+    const parsed = parseTypedValue(conflict.field, text, units);
+    if ('problem' in parsed) setProblem(parsed.problem);
+    else settle({ keep: 'custom', value: parsed.value });
+  };
+
+  return (
+    <article className="conflict-card" data-testid="conflict-card" data-conflict-id={conflict.id} data-field={conflict.field}>
+      <h3 className="conflict-card__title">
+        {record ? (
+          <Link to={`/findings/${record.id}`} data-testid="conflict-finding">
+            {record.item.name}
+          </Link>
+        ) : (
+          'Finding'
+        )}
+        <span className="muted"> — {where}</span>
+      </h3>
+      <p>
+        <strong data-testid="conflict-field">{fieldWords(conflict.field)}</strong> was changed on two phones before either had seen the other’s change.
+      </p>
+      <dl className="conflict-card__values">
+        <dt>Now in place — written by {winner}, {formatDateTime(conflict.createdAt)}</dt>
+        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
+        <dt>Replaced — the earlier value, written on another phone</dt>
+        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
+      </dl>
+      <div className="conflict-card__actions">
+        <IonButton disabled={resolve.isPending} onClick={() => settle({ keep: 'current' })} data-testid="keep-current">
+          Keep the value in place
+        </IonButton>
+        <IonButton fill="outline" disabled={resolve.isPending} onClick={() => settle({ keep: 'replaced' })} data-testid="keep-replaced">
+          Put the replaced value back
+        </IonButton>
+        {canTypeValue(conflict.field) && !typing && (
+          <IonButton fill="clear" disabled={resolve.isPending} onClick={() => setTyping(true)} data-testid="type-another">
+            Type another value
+          </IonButton>
+        )}
+      </div>
+      {typing && (
+        <div className="conflict-card__typed">
+          <label>
+            {fieldWords(conflict.field)}
+            {conflict.field === 'notes' ? (
+              <textarea className="plain-textarea" value={text} onChange={(e) => setText(e.target.value)} data-testid="typed-value" />
+            ) : (
+              <input className="plain-textarea conflict-card__input" value={text} onChange={(e) => setText(e.target.value)} data-testid="typed-value" />
+            )}
+          </label>
+          <IonButton disabled={resolve.isPending} onClick={settleTyped} data-testid="keep-typed">
+            Keep this value
+          </IonButton>
+        </div>
+      )}
+      {!canTypeValue(conflict.field) && <p className="muted">To choose a third value, keep one here, then edit the finding.</p>}
+      {(problem || resolve.error) && (
+        <p className="field-error" role="alert" data-testid="conflict-problem">
+          {problem ?? describeResolveError(resolve.error)}
+        </p>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,21 @@
+import { describe, expect, it } from 'vitest';
+import { canTypeValue, fieldWords, parseTypedValue, valueWords } from './conflict-words';
+
+describe('conflict words', () => {
+  it('names fields and shows values in the user’s units', () => {
+    expect(fieldWords('notes')).toBe('Notes');
+    expect(valueWords('notes', '', 'si')).toBe('(empty)');
+    expect(valueWords('exposure', 'public', 'si')).toBe('Public, no head protection');
+    expect(valueWords('heightM', 3.048, 'imperial')).toMatch(/^10(\.0)? ft$/);
+    expect(valueWords('item', { name: 'Brick', massKg: 2.3 }, 'si')).toBe('Brick, 2.3 kg');
+  });
+
+  it('turns typed text into a value the server accepts, or says what is wrong', () => {
+    expect(parseTypedValue('notes', 'Bagged', 'si')).toEqual({ value: 'Bagged' });
+    expect(parseTypedValue('lift', '3', 'si')).toEqual({ value: 3 });
+    expect(parseTypedValue('bay', '0', 'si')).toHaveProperty('problem');
+    expect(parseTypedValue('heightM', '10', 'imperial')).toEqual({ value: expect.closeTo(3.048, 6) });
+    expect(canTypeValue('item')).toBe(false);
+    expect(parseTypedValue('item', 'x', 'si')).toHaveProperty('problem');
+  });
+});

@@ -1,0 +1,59 @@
+/**
+ * How a conflict's field and values read on screen, and how a typed value becomes one the server
+ * accepts. Values stay SI; units are applied only here, at the screen's edge.
+ */
+import type { FindingExposure } from '@plummet/shared';
+import { EXPOSURE_WORDS } from '../findings/finding-words';
+import { formatQuantity, parseQuantity, type Units } from '../settings/units';
+
+export const FIELD_WORDS: Record<string, string> = {
+  notes: 'Notes',
+  elevation: 'Elevation',
+  lift: 'Lift',
+  bay: 'Bay',
+  heightM: 'Height of the drop',
+  item: 'Item',
+  exposure: 'Who is below',
+  likelihoodAnswers: 'Likelihood answers',
+};
+
+export function fieldWords(field: string): string {
+  return FIELD_WORDS[field] ?? field;
+}
+
+/** A field's value as a person reads it. */
+export function valueWords(field: string, value: unknown, units: Units): string {
+  if (value === null || value === undefined || value === '') return '(empty)';
+  if (field === 'heightM' && typeof value === 'number') return formatQuantity('height', value, units);
+  if (field === 'exposure' && typeof value === 'string') return EXPOSURE_WORDS[value as FindingExposure]?.label ?? value;
+  if (field === 'item' && typeof value === 'object') {
+    const item = value as { name?: string; massKg?: number };
+    return [item.name ?? 'Item', typeof item.massKg === 'number' ? formatQuantity('mass', item.massKg, units) : ''].filter(Boolean).join(', ');
+  }
+  if (field === 'likelihoodAnswers' && typeof value === 'object') {
+    return Object.entries(value as Record<string, unknown>)
+      .map(([question, answer]) => `${question}: ${String(answer)}`)
+      .join('; ');
+  }
+  return typeof value === 'string' || typeof value === 'number' ? String(value) : JSON.stringify(value);
+}
+
+/** Whether a value for this field can be typed on the conflict screen (the others are chosen in the finding editor). */
+export function canTypeValue(field: string): boolean {
+  return field === 'notes' || field === 'elevation' || field === 'lift' || field === 'bay' || field === 'heightM';
+}
+
+/** A typed value for the field, or a problem to show. */
+export function parseTypedValue(field: string, text: string, units: Units): { value: unknown } | { problem: string } {
+  if (field === 'notes') return { value: text };
+  if (field === 'elevation') return text.trim() ? { value: text.trim() } : { problem: 'Type the elevation’s name.' };
+  if (field === 'lift' || field === 'bay') {
+    const n = Number(text.trim());
+    return Number.isInteger(n) && n >= 1 ? { value: n } : { problem: `Type a whole ${field} number, 1 or more.` };
+  }
+  if (field === 'heightM') {
+    const metres = parseQuantity('height', text, units);
+    return metres !== undefined && metres > 0 ? { value: metres } : { problem: 'Type a height above zero.' };
+  }
+  return { problem: 'Choose this value in the finding editor.' };
+}

@@ -1,0 +1,18 @@
+import { useEffect } from 'react';
+import { useSession } from '../features/auth/session.queries';
+import { startAppSync, stopAppSync } from './app-sync';
+
+/**
+ * Keeps the sync engine running while a session is active (loaded lazily by App, so the local
+ * database stays out of the first download). An expired sign-in stops it until the user signs in again.
+ */
+export function SyncRunner() {
+  const { status, session } = useSession();
+  const userId = status === 'active' ? session?.user.id : undefined;
+  useEffect(() => {
+    if (status === 'loading') return;
+    if (userId) startAppSync(userId);
+    else void stopAppSync();
+  }, [status, userId]);
+  return null;
+}

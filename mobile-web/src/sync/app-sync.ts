@@ -1,0 +1,80 @@
+/**
+ * The app's one sync engine: made when someone is signed in, stopped before sign-out clears the
+ * phone. Screens read it through useAppSyncEngine(); nothing else creates an engine.
+ */
+import { useSyncExternalStore } from 'react';
+import { fetchWithAccessToken } from '../api/authorised-fetch';
+import { db } from '../local-db/db';
+import { backoffMs } from '@plummet/shared';
+import { SyncEngine, type SyncRunOutcome } from './sync-engine';
+import { httpSyncTransport } from './sync-transport';
+import { startSyncTriggers } from './sync-triggers';
+
+interface Running {
+  userId: string;
+  engine: SyncEngine;
+  stopTriggers: () => void;
+}
+
+let running: Running | null = null;
+const listeners = new Set<() => void>();
+const notify = () => listeners.forEach((listener) => listener());
+
+/**
+ * Starts syncing for `userId` (again only when the user changed). The triggers skip a run while
+ * the browser says no network is attached: a run marks the entries it tries, and an entry tried
+ * for nothing would stop later edits folding into it.
+ */
+export function startAppSync(userId: string): SyncEngine {
+  if (running?.userId === userId) return running.engine;
+  void stopAppSync();
+  const engine = new SyncEngine(db, httpSyncTransport(fetchWithAccessToken(db)));
+  let retry: ReturnType<typeof setTimeout> | undefined;
+  let failures = 0;
+  const networkDown = () => typeof navigator !== 'undefined' && navigator.onLine === false;
+  // The `online` event often comes before the connection carries traffic: a run that found no
+  // server while the network is up tries again soon (1 s doubling, with jitter) instead of waiting for the timer.
+  const run = async (): Promise<SyncRunOutcome> => {
+    clearTimeout(retry);
+    if (networkDown()) return 'offline';
+    const outcome = await engine.sync();
+    failures = outcome === 'offline' ? failures + 1 : 0;
+    if (outcome === 'offline' && running?.engine === engine && !networkDown()) retry = setTimeout(() => void run(), backoffMs(failures, Math.random()));
+    return outcome;
+  };
+  const stopTriggers = startSyncTriggers({ sync: run });
+  running = {
+    userId,
+    engine,
+    stopTriggers: () => {
+      clearTimeout(retry);
+      stopTriggers();
+    },
+  };
+  notify();
+  return engine;
+}
+
+/** Stops the triggers and waits for a run in progress, so nothing writes after sign-out clears the phone. */
+export async function stopAppSync(): Promise<void> {
+  const current = running;
+  if (!current) return;
+  running = null;
+  current.stopTriggers();
+  notify();
+  await current.engine.whenIdle();
+}
+
+export function currentSyncEngine(): SyncEngine | undefined {
+  return running?.engine;
+}
+
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  return () => listeners.delete(listener);
+}
+
+/** The running engine, or undefined while nobody is signed in. */
+export function useAppSyncEngine(): SyncEngine | undefined {
+  return useSyncExternalStore(subscribe, currentSyncEngine, () => undefined);
+}

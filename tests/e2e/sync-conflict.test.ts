@@ -1,0 +1,151 @@
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { artifactPath, launchPhone } from '../support/browser.js';
+import { choose, onScreen, readTable, typeInto } from '../support/phone-page.js';
+import { type RunningServer, startBuiltServer } from '../support/server.js';
+
+type Phone = Awaited<ReturnType<typeof launchPhone>>;
+interface StoredFinding {
+  id: string;
+  notes: string;
+  exposure: string;
+  version: number;
+}
+interface StoredEntry {
+  entity: string;
+  action: string;
+  payload: Record<string, unknown>;
+}
+
+/** The seeded finding both phones edit (QL-A, North, lift 6, bay 3). */
+const SEEDED_NOTES = 'Podger left on the toe board above the library entrance';
+const NOTES_A = 'Podger taken down and tethered; toe board checked (phone A)';
+const NOTES_B = 'Podger still there at 10:40, foreman told (phone B)';
+
+async function signInAndKeepOffline(phone: Phone, url: string, errors: string[]): Promise<Page> {
+  const page = await phone.context.newPage();
+  page.on('pageerror', (error) => errors.push(error.message));
+  await page.goto(url);
+  await page.getByTestId('app-shell').waitFor();
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null, undefined, { timeout: 30_000 });
+  await onScreen(page, 'home-sign-in').click();
+  await typeInto(page, 'sign-in-email', 'inspector@demo.test');
+  await typeInto(page, 'sign-in-password', 'plummet-demo');
+  await onScreen(page, 'sign-in-submit').click();
+  await expect.poll(() => onScreen(page, 'session-expiry').textContent(), { timeout: 15_000 }).toMatch(/Works offline until/);
+  // The engine starts with the session and syncs at once.
+  await expect.poll(() => onScreen(page, 'last-sync').textContent(), { timeout: 15_000 }).toMatch(/^Synced \d\d:\d\d$/);
+  const quayside = onScreen(page, 'site-card').filter({ hasText: 'Quayside Library' });
+  await quayside.getByTestId('make-offline').click();
+  await expect.poll(() => quayside.getAttribute('data-offline'), { timeout: 30_000 }).toBe('true');
+  return page;
+}
+
+async function goOffline(phone: Phone, page: Page): Promise<void> {
+  await phone.context.setOffline(true);
+  await expect.poll(() => onScreen(page, 'online-status').first().getAttribute('data-online')).toBe('false');
+}
+
+async function editFinding(page: Page, url: string, id: string, edit: (page: Page) => Promise<void>): Promise<void> {
+  await page.goto(`${url}/findings/${id}`);
+  await onScreen(page, 'finding-editor').waitFor();
+  await expect.poll(() => onScreen(page, 'finding-notes').inputValue()).toBe(SEEDED_NOTES);
+  await edit(page);
+  await onScreen(page, 'save-finding').click();
+  await expect.poll(() => onScreen(page, 'outbox-count').getAttribute('data-count')).toBe('1');
+}
+
+async function storedFinding(page: Page, id: string): Promise<StoredFinding> {
+  return (await readTable<StoredFinding>(page, 'findings')).find((finding) => finding.id === id)!;
+}
+
+describe('two phones edit the same finding offline', () => {
+  let server: RunningServer;
+  let phoneA: Phone;
+  let phoneB: Phone;
+  const errors: string[] = [];
+
+  beforeAll(async () => {
+    server = await startBuiltServer();
+    [phoneA, phoneB] = await Promise.all([launchPhone(), launchPhone()]);
+  });
+  afterAll(async () => {
+    await phoneA?.close();
+    await phoneB?.close();
+    await server?.dispose();
+  });
+
+  it('merges different fields, keeps the same-field clash as a conflict, and settles it in the app', async () => {
+    const a = await signInAndKeepOffline(phoneA, server.url, errors);
+    const b = await signInAndKeepOffline(phoneB, server.url, errors);
+    const seeded = (await readTable<StoredFinding>(a, 'findings')).find((finding) => finding.notes === SEEDED_NOTES)!;
+    expect(seeded).toBeDefined();
+    expect((await storedFinding(b, seeded.id)).version).toBe(seeded.version);
+
+    // No signal on either phone; each edits the notes, and B also who is below.
+    await goOffline(phoneA, a);
+    await goOffline(phoneB, b);
+    await editFinding(a, server.url, seeded.id, (page) => typeInto(page, 'finding-notes', NOTES_A));
+    await editFinding(b, server.url, seeded.id, async (page) => {
+      await typeInto(page, 'finding-notes', NOTES_B);
+      await choose(page, 'exposure', 'hard-hats');
+    });
+    // Only the changed fields travel, with the version each edit started from.
+    expect((await readTable<StoredEntry>(a, 'outbox')).map((entry) => entry.payload)).toEqual([{ notes: NOTES_A, version: seeded.version }]);
+    expect((await readTable<StoredEntry>(b, 'outbox')).map((entry) => entry.payload)).toEqual([{ notes: NOTES_B, exposure: 'hard-hats', version: seeded.version }]);
+
+    // A reconnects first and syncs by itself when the connection returns.
+    await phoneA.context.setOffline(false);
+    await expect.poll(() => onScreen(a, 'outbox-count').getAttribute('data-count'), { timeout: 20_000 }).toBe('0');
+    expect(await storedFinding(a, seeded.id)).toMatchObject({ notes: NOTES_A, exposure: 'public' });
+
+    // Then B: its exposure merges; its notes replace A's, which B had not seen: a conflict.
+    await phoneB.context.setOffline(false);
+    await expect.poll(() => onScreen(b, 'outbox-count').getAttribute('data-count'), { timeout: 30_000 }).toBe('0');
+    await expect.poll(() => onScreen(b, 'sync-attention').textContent(), { timeout: 30_000 }).toBe('1 conflict to settle');
+    expect(await storedFinding(b, seeded.id)).toMatchObject({ notes: NOTES_B, exposure: 'hard-hats' });
+
+    // The conflict in the app: the finding, the field, both values and who wrote them.
+    await onScreen(b, 'sync-badge').click();
+    await onScreen(b, 'sync-page').waitFor();
+    const card = onScreen(b, 'conflict-card');
+    await card.waitFor();
+    expect(await card.getByTestId('conflict-field').textContent()).toBe('Notes');
+    expect(await card.innerText()).toMatch(/QL-A · North, lift 6, bay 3/);
+    expect(await card.getByTestId('conflict-current').textContent()).toBe(NOTES_B);
+    expect(await card.getByTestId('conflict-replaced').textContent()).toBe(NOTES_A);
+    expect(await card.innerText()).toMatch(/written by you/);
+    await expect.poll(() => onScreen(b, 'online-status').first().getAttribute('data-online')).toBe('true');
+    await card.getByTestId('keep-current').scrollIntoViewIfNeeded();
+    await b.screenshot({ path: artifactPath('sync-conflict.png') });
+
+    // Settling needs the server: with no signal the app says so and nothing changes.
+    await phoneB.context.setOffline(true);
+    await card.getByTestId('keep-replaced').click();
+    await expect.poll(() => card.getByTestId('conflict-problem').textContent()).toMatch(/needs a connection/);
+    await phoneB.context.setOffline(false);
+
+    // Settle it: keep A's notes.
+    await card.getByTestId('keep-replaced').click();
+    await onScreen(b, 'no-conflicts').waitFor({ timeout: 15_000 });
+    await expect.poll(async () => (await storedFinding(b, seeded.id)).notes, { timeout: 15_000 }).toBe(NOTES_A);
+
+    // A syncs again and gets the settled value and B's merged field.
+    await onScreen(a, 'sync-badge').click();
+    await onScreen(a, 'sync-page').waitFor();
+    await onScreen(a, 'sync-now').click();
+    await expect.poll(() => onScreen(a, 'sync-outcome').getAttribute('data-outcome'), { timeout: 15_000 }).toBe('done');
+    await onScreen(a, 'no-conflicts').waitFor();
+
+    for (const page of [a, b]) {
+      expect(await storedFinding(page, seeded.id)).toMatchObject({ notes: NOTES_A, exposure: 'hard-hats' });
+      await expect.poll(() => onScreen(page, 'sync-pending').getAttribute('data-count')).toBe('0');
+      expect(await onScreen(page, 'outbox-count').textContent()).toBe('All changes sent');
+      expect(await onScreen(page, 'no-rejected').count()).toBe(1);
+      await page.goto(`${server.url}/findings/${seeded.id}`);
+      await onScreen(page, 'finding-editor').waitFor();
+      await expect.poll(() => onScreen(page, 'finding-notes').inputValue()).toBe(NOTES_A);
+    }
+    expect(errors).toEqual([]);
+  });
+});
