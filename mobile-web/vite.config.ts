@@ -106,6 +106,8 @@ export default defineConfig({
         // Take control on the first install so the app works offline from the first visit;
         // later versions wait until the user taps Reload (registerType 'prompt', no skipWaiting).
         clientsClaim: true,
+        // Relays Background Sync wake-ups to the open windows (public/sw-background-sync.js).
+        importScripts: ['sw-background-sync.js'],
       },
       devOptions: { enabled: false },
     }),

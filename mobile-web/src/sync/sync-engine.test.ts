@@ -118,11 +118,12 @@ describe('sync triggers', () => {
   it('syncs at start, when the connection returns, when the app is visible again and on a timer', () => {
     vi.useFakeTimers();
     try {
-      const handlers: Record<string, () => void> = {};
-      const target = { addEventListener: (type: string, fn: () => void) => void (handlers[type] = fn), removeEventListener: vi.fn() };
+      const handlers: Record<string, (event?: unknown) => void> = {};
+      const target = { addEventListener: (type: string, fn: (event: never) => void) => void (handlers[type] = fn as never), removeEventListener: vi.fn() };
       const doc = { ...target, visibilityState: 'hidden' };
+      const noWorker = { addEventListener: vi.fn(), removeEventListener: vi.fn() };
       const engine = { sync: vi.fn(async () => 'done' as const) };
-      const stop = startSyncTriggers(engine, { window: target, document: doc, intervalMs: 1000 });
+      const stop = startSyncTriggers(engine, { window: target, document: doc, serviceWorker: noWorker, intervalMs: 1000 });
       expect(engine.sync).toHaveBeenCalledTimes(1);
       handlers.online!();
       handlers.visibilitychange!();
@@ -137,6 +138,21 @@ describe('sync triggers', () => {
     } finally {
       vi.useRealTimers();
     }
+  });
+
+  it('syncs when the service worker relays a Background Sync wake-up, and only for that message', () => {
+    const handlers: Record<string, (event: { data: unknown }) => void> = {};
+    const worker = { addEventListener: (type: string, fn: (event: never) => void) => void (handlers[type] = fn as never), removeEventListener: vi.fn() };
+    const quiet = { addEventListener: vi.fn(), removeEventListener: vi.fn() };
+    const engine = { sync: vi.fn(async () => 'done' as const) };
+    const stop = startSyncTriggers(engine, { window: quiet, document: quiet, serviceWorker: worker, intervalMs: 60_000 });
+    expect(engine.sync).toHaveBeenCalledTimes(1);
+    handlers.message!({ data: { type: 'something-else' } });
+    expect(engine.sync).toHaveBeenCalledTimes(1);
+    handlers.message!({ data: { type: 'plummet-sync' } });
+    expect(engine.sync).toHaveBeenCalledTimes(2);
+    stop();
+    expect(worker.removeEventListener).toHaveBeenCalledWith('message', expect.any(Function));
   });
 
   it('marks entries as tried before their push leaves, so an edit made while it is on its way waits as a new entry', async () => {

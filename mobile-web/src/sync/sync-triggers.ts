@@ -1,38 +1,50 @@
 /**
  * When the phone syncs: at start, when the connection returns, when the app comes back to the
- * foreground, and on a timer while open. Background Sync (where the browser has it) is registered
- * under SYNC_TAG for the service worker to act on. Returns a function that stops the triggers.
+ * foreground, on a timer while open, and when the service worker relays a Background Sync wake-up
+ * (registered under SYNC_TAG where the browser has it; see public/sw-background-sync.js).
+ * Returns a function that stops the triggers.
  */
 import type { SyncEngine } from './sync-engine';
 
 export const SYNC_TAG = 'plummet-sync';
 
 interface TriggerEnv {
-  addEventListener(type: string, listener: () => void): void;
-  removeEventListener(type: string, listener: () => void): void;
+  addEventListener(type: string, listener: (event: never) => void): void;
+  removeEventListener(type: string, listener: (event: never) => void): void;
 }
 
 export interface SyncTriggerOptions {
   window?: TriggerEnv;
   document?: TriggerEnv & { visibilityState?: string };
+  /** Where service-worker messages arrive (navigator.serviceWorker in a browser). */
+  serviceWorker?: TriggerEnv;
   intervalMs?: number;
 }
 
 export function startSyncTriggers(engine: Pick<SyncEngine, 'sync'>, options: SyncTriggerOptions = {}): () => void {
   const win = options.window ?? (typeof window === 'undefined' ? undefined : window);
   const doc = options.document ?? (typeof document === 'undefined' ? undefined : document);
-  const run = () => void engine.sync();
+  const sw = options.serviceWorker ?? (typeof navigator !== 'undefined' && 'serviceWorker' in navigator ? navigator.serviceWorker : undefined);
+  const run = () => {
+    // Ask for a wake-up when the connection returns, in case the app is in the background then.
+    void registerBackgroundSync();
+    void engine.sync();
+  };
   const onVisible = () => {
     if (doc?.visibilityState === 'visible') run();
+  };
+  const onWorkerMessage = (event: MessageEvent) => {
+    if ((event.data as { type?: string } | null)?.type === SYNC_TAG) run();
   };
   run();
   win?.addEventListener('online', run);
   doc?.addEventListener('visibilitychange', onVisible);
+  sw?.addEventListener('message', onWorkerMessage);
   const timer = setInterval(run, options.intervalMs ?? 60_000);
-  void registerBackgroundSync();
   return () => {
     win?.removeEventListener('online', run);
     doc?.removeEventListener('visibilitychange', onVisible);
+    sw?.removeEventListener('message', onWorkerMessage);
     clearInterval(timer);
   };
 }
