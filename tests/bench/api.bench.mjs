@@ -28,7 +28,6 @@ async function cleanup() {
   server = undefined;
   if (pg) {
     pg.stop();
-    pg.remove();
     pg = undefined;
   }
   if (tmp) rmSync(tmp, { recursive: true, force: true });

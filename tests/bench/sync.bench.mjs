@@ -27,7 +27,6 @@ async function cleanup() {
   server = undefined;
   if (postgres) {
     postgres.stop();
-    postgres.remove();
     postgres = undefined;
   }
   if (tmp) rmSync(tmp, { recursive: true, force: true });

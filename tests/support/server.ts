@@ -23,28 +23,44 @@ export interface RunningServer {
   db: TestDatabase;
   /** Stops the process (the database stays, so it can be started again). */
   stop(): Promise<void>;
-  start(): Promise<void>;
-  /** Stops the process and drops its database. */
+  /** Starts the process again; `env` replaces variables for this run only (undefined removes one). */
+  start(env?: Record<string, string | undefined>): Promise<void>;
+  /** Resolves with how the current process ended (exit code or signal), e.g. after an injected fault. */
+  exited(): Promise<number | NodeJS.Signals | null>;
+  /** Stops the process and drops its database (unless the database was given: its owner drops it). */
   dispose(): Promise<void>;
+}
+
+export interface BuiltServerOptions {
+  /** Seed the demo scenario (default: true for a new database, false for a given one). */
+  seed?: boolean;
+  env?: Record<string, string>;
+  /** Run against this database instead of a fresh one, so several processes share it. */
+  database?: TestDatabase;
 }
 
 /**
  * The built server (`server/dist/main.js`, serving the built PWA) as its own process, on a free
- * port, against a fresh database seeded with the demo scenario.
+ * port, against a fresh database seeded with the demo scenario (or against `options.database`).
  */
-export async function startBuiltServer(options: { seed?: boolean; env?: Record<string, string> } = {}): Promise<RunningServer> {
-  const db = await createTestDatabase();
+export async function startBuiltServer(options: BuiltServerOptions = {}): Promise<RunningServer> {
+  const db = options.database ?? (await createTestDatabase());
   const port = await freePort();
   const env = { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: db.url, ...options.env };
-  if (options.seed !== false) await runNode([resolve(ROOT, 'server/dist/seed/seed-cli.js')], env);
+  if (options.seed ?? !options.database) await runNode([resolve(ROOT, 'server/dist/seed/seed-cli.js')], env);
   let child: ChildProcess | null = null;
+  let exit: Promise<number | NodeJS.Signals | null> = Promise.resolve(null);
   const url = `http://127.0.0.1:${port}`;
+  const ended = (c: ChildProcess) => c.exitCode !== null || c.signalCode !== null;
 
-  async function start(): Promise<void> {
-    child = spawn('node', [resolve(ROOT, 'server/dist/main.js')], { cwd: ROOT, env, stdio: ['ignore', 'ignore', 'inherit'] });
+  async function start(runEnv: Record<string, string | undefined> = {}): Promise<void> {
+    const childEnv = Object.fromEntries(Object.entries({ ...env, ...runEnv }).filter(([, value]) => value !== undefined));
+    const c = spawn('node', [resolve(ROOT, 'server/dist/main.js')], { cwd: ROOT, env: childEnv, stdio: ['ignore', 'ignore', 'inherit'] });
+    child = c;
+    exit = new Promise((done) => c.once('exit', (code, signal) => done(signal ?? code)));
     const deadline = Date.now() + 30_000;
     while (Date.now() < deadline) {
-      if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}`);
+      if (ended(c)) throw new Error(`server exited with ${c.signalCode ?? c.exitCode}`);
       try {
         if ((await fetch(`${url}/api/health`)).ok) return;
       } catch {
@@ -58,7 +74,7 @@ export async function startBuiltServer(options: { seed?: boolean; env?: Record<s
   async function stop(): Promise<void> {
     const c = child;
     child = null;
-    if (!c || c.exitCode !== null) return;
+    if (!c || ended(c)) return;
     await new Promise<void>((done) => {
       c.once('exit', () => done());
       c.kill('SIGTERM');
@@ -73,9 +89,10 @@ export async function startBuiltServer(options: { seed?: boolean; env?: Record<s
     db,
     stop,
     start,
+    exited: () => exit,
     async dispose() {
       await stop();
-      await db.drop();
+      if (!options.database) await db.drop();
     },
   };
 }

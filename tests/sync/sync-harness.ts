@@ -27,6 +27,8 @@ export interface MobileDb {
   meta: Table<{ key: string; value: unknown }, string>;
   transaction<R>(mode: 'rw', ...args: [...unknown[], () => Promise<R>]): Promise<R>;
   close(): void;
+  /** Deletes the whole browser database (a wiped phone). */
+  delete(): Promise<void>;
 }
 export type OutboxChange = { entity: 'finding'; action: 'update' | 'state' | 'create'; payload: Record<string, unknown> };
 interface Engine {
@@ -39,7 +41,7 @@ interface MobileModules {
   httpSyncTransport(fetchImpl: FetchLike): unknown;
   saveFinding(db: MobileDb, finding: PhoneFinding): Promise<void>;
   sampleFinding(overrides: Partial<PhoneFinding>): PhoneFinding;
-  SYNC_META: { cursor: string };
+  SYNC_META: { cursor: string; clientId: string };
 }
 
 const load = (path: string) =>

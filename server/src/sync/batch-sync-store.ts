@@ -4,9 +4,9 @@ import type { AuthUser } from '../auth/auth.types.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import type { FindingRow } from '../findings/finding.mapper.js';
-import type { FindingChanges, FindingInsert, FindingWithScope } from '../findings/findings.repository.js';
+import type { FindingChanges, FindingInsert } from '../findings/findings.repository.js';
 import type { InspectionRow } from '../inspections/inspection.mapper.js';
-import type { SyncBatchRepository } from './sync-batch.repository.js';
+import { type BatchFinding, CHECKED, type CheckedFinding, type SyncBatchRepository } from './sync-batch.repository.js';
 import type { FixInsert, SyncStore, VerificationInsert } from './sync-store.js';
 import type { SyncConflictInsert } from './sync.repository.js';
 
@@ -23,7 +23,9 @@ export class BatchFallback extends Error {
 
 /** Keys given as undefined leave a column alone (as Drizzle's insert and set do). */
 function defined<T extends object>(values: T): Partial<T> {
-  return Object.fromEntries(Object.entries(values).filter(([, v]) => v !== undefined)) as Partial<T>;
+  const out: Record<string, unknown> = {};
+  for (const key in values) if (values[key] !== undefined) out[key] = values[key];
+  return out as Partial<T>;
 }
 
 /**
@@ -45,12 +47,6 @@ function asStored(row: FindingRow): FindingRow {
   return { ...row, heightM: realAsRead(row.heightM), massKg: realAsRead(row.massKg) };
 }
 
-/** The API columns PostgreSQL might store differently from what was computed (jsonb is compared by the merge itself). */
-const CHECKED = [
-  'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg',
-  'exposure', 'likelihood', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'notes', 'madeSafeNote', 'createdBy', 'version',
-] as const;
-
 /**
  * A push applied in memory: the findings of the batch are loaded (and locked) up front, each
  * mutation reads and changes these rows with the same rules as the statement-by-statement path,
@@ -58,7 +54,7 @@ const CHECKED = [
  * rejected mutation did, as the per-mutation savepoint does in the database.
  */
 export class BatchSyncStore implements SyncStore {
-  private readonly rows = new Map<string, FindingWithScope>();
+  private readonly rows = new Map<string, BatchFinding>();
   private readonly created = new Set<string>();
   private readonly changed = new Set<string>();
   private readonly inspections = new Map<string, InspectionRow | undefined>();
@@ -73,7 +69,7 @@ export class BatchSyncStore implements SyncStore {
     /** Reads of scaffolds, inspections and catalogue items go here (and are kept for the batch). */
     private readonly reads: SyncStore,
     private readonly user: AuthUser,
-    loaded: FindingWithScope[],
+    loaded: BatchFinding[],
     /** The transaction's now(): what created_at and updated_at get. */
     private readonly now: Date,
   ) {
@@ -119,6 +115,7 @@ export class BatchSyncStore implements SyncStore {
   async insertFinding(values: FindingInsert) {
     if (this.rows.has(values.id)) return undefined;
     const scaffold = await this.reads.scaffold(values.scaffoldId);
+    if (!scaffold) throw new BatchFallback('the scaffold of a new finding was not found');
     const finding = asStored({
       inspectionId: null,
       catalogueItemId: null,
@@ -136,7 +133,7 @@ export class BatchSyncStore implements SyncStore {
       syncXid: '',
       syncSeq: 0,
     });
-    this.rows.set(finding.id, { finding, scaffoldForemanId: scaffold?.foremanId ?? null });
+    this.rows.set(finding.id, { finding, scaffoldForemanId: scaffold.foremanId, siteId: scaffold.siteId });
     this.created.add(finding.id);
     this.undo.push(() => {
       this.rows.delete(finding.id);
@@ -188,10 +185,30 @@ export class BatchSyncStore implements SyncStore {
     await audit.recordMany(tx, this.user, this.audits);
   }
 
-  /** True when every finding written reads back as it was computed (so every audit row told the truth). */
-  matchesStored(stored: FindingRow[]): boolean {
+  /** The ids of the findings flush() wrote. */
+  written(): string[] {
+    return [...this.created, ...this.changed];
+  }
+
+  /**
+   * The batch's rows of `ids` as they now stand (loaded and locked in this transaction, or written
+   * by flush() and checked by matchesStored()), and the ids the batch never loaded.
+   */
+  current(ids: string[]): { found: BatchFinding[]; missing: string[] } {
+    const found: BatchFinding[] = [];
+    const missing: string[] = [];
+    for (const id of ids) {
+      const row = this.rows.get(id);
+      if (row) found.push(row);
+      else missing.push(id);
+    }
+    return { found, missing };
+  }
+
+  /** True when every finding written reads back as it was computed (so every audit row and the answer tell the truth). */
+  matchesStored(stored: CheckedFinding[]): boolean {
     const byId = new Map(stored.map((r) => [r.id, r]));
-    return [...this.created, ...this.changed].every((id) => {
+    return this.written().every((id) => {
       const mine = this.rows.get(id)!.finding;
       const theirs = byId.get(id);
       if (!theirs) return false;

@@ -34,6 +34,24 @@ function asJson(rows: FindingRow[], columns: readonly FindingColumn[]): string {
   return JSON.stringify(rows.map((row) => Object.fromEntries(names.map(([key, name]) => [name, row[key] ?? null]))));
 }
 
+/** A finding of the batch with what its answer and scope need from its scaffold. */
+export interface BatchFinding extends FindingWithScope {
+  siteId: string;
+}
+
+/** The API columns PostgreSQL might store differently from what was computed (jsonb is compared by the merge itself). */
+export const CHECKED = [
+  'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg',
+  'exposure', 'likelihood', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'notes', 'madeSafeNote', 'createdBy', 'version',
+] as const;
+
+/** What the batch's read-back check reads: the checked columns and the times, no jsonb to parse. */
+const CHECK_COLUMNS = ['id', ...CHECKED, 'createdAt', 'updatedAt', 'dueAt'] as const;
+
+export type CheckedFinding = Pick<FindingRow, (typeof CHECK_COLUMNS)[number]>;
+
+const checkSelection = Object.fromEntries(CHECK_COLUMNS.map((c) => [c, findings[c]])) as { [K in (typeof CHECK_COLUMNS)[number]]: (typeof findings)[K] };
+
 /** The multi-row reads and writes of a push applied as one batch (BatchSyncStore). */
 @Injectable()
 export class SyncBatchRepository {
@@ -44,15 +62,21 @@ export class SyncBatchRepository {
   }
 
   /** Every finding with one of `ids` (any organisation), locked until the transaction ends, in id order (fewer deadlocks). */
-  async lockFindings(ids: string[], tx: DbExecutor): Promise<FindingWithScope[]> {
+  async lockFindings(ids: string[], tx: DbExecutor): Promise<BatchFinding[]> {
     if (!ids.length) return [];
     return tx
-      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId })
+      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId, siteId: scaffolds.siteId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(inArray(findings.id, ids))
       .orderBy(asc(findings.id))
       .for('update', { of: findings });
+  }
+
+  /** The compared columns of the findings just written, as they read back. */
+  async readChecked(ids: string[], tx: DbExecutor): Promise<CheckedFinding[]> {
+    if (!ids.length) return [];
+    return tx.select(checkSelection).from(findings).where(inArray(findings.id, ids));
   }
 
   /**

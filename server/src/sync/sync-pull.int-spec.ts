@@ -12,7 +12,7 @@ afterAll(async () => {
 });
 
 interface Page {
-  changes: { type: string; record: { id: string; notes?: string } }[];
+  changes: { type: string; record: { id: string; notes?: string } & Record<string, unknown> }[];
   cursor: string;
   hasMore: boolean;
 }
@@ -108,6 +108,40 @@ describe('pulling changes', () => {
     } finally {
       await client.end();
     }
+  });
+
+  it('interleaves conflicts with findings in feed order, the same in small pages as in one', async () => {
+    const { cursor } = await pullAll('demo:manager');
+    const ids = await pushCreates(3);
+    const [a, b] = [randomUUID(), randomUUID()];
+    const edit = async (clientId: string, first: number, notes: string) => {
+      const res = await api.call('demo:inspector', 'POST', '/sync/push', {
+        clientId,
+        mutations: ids.map((id, i) => ({ id: first + i, entity: 'finding', entityId: id, action: 'update', baseVersion: 1, payload: { notes: `${notes} ${i}` } })),
+      });
+      expect(res.status).toBe(200);
+      return res.body.results as { outcome: string; conflictIds: string[] }[];
+    };
+    await edit(a, 1, 'A');
+    const conflictIds = (await edit(b, 1, 'B')).flatMap((r) => r.conflictIds);
+    expect(conflictIds).toHaveLength(3);
+    const [later] = await pushCreates(1);
+    const awaited = [...ids, ...conflictIds, later!];
+    const whole = await pullAll('demo:manager', cursor, 500, awaited);
+    const paged = await pullAll('demo:manager', cursor, 2, awaited);
+    expect(paged.ids).toEqual(whole.ids);
+    expect(new Set(paged.ids).size).toBe(paged.ids.length);
+    // Each conflict comes after the findings' last writes (same transaction, stamped later) and before a later push.
+    for (const id of conflictIds) expect(paged.ids).toContain(id);
+    const conflictAt = conflictIds.map((c) => paged.ids.indexOf(c));
+    for (const id of ids) expect(paged.ids.indexOf(id)).toBeLessThan(Math.min(...conflictAt));
+    expect(paged.ids.indexOf(later!)).toBeGreaterThan(Math.max(...conflictAt));
+    expect(paged.cursor).toBe(whole.cursor);
+    // A pulled record reads as the findings API answers the same finding.
+    const pulled = (await pull('demo:manager', cursor)).changes.find((c) => c.record.id === ids[0]);
+    const rest = await api.call('demo:manager', 'GET', `/findings/${ids[0]}`);
+    expect(rest.status).toBe(200);
+    expect(pulled?.record).toEqual({ ...rest.body, organisationId: expect.any(String), siteId: expect.any(String) });
   });
 
   it('refuses a malformed cursor', async () => {

@@ -1,13 +1,32 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { eq, inArray, sql } from 'drizzle-orm';
+import { and, type AnyColumn, asc, eq, inArray, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
+import { FINDING_API_COLUMNS, type FindingApiRow } from '../findings/finding.mapper.js';
+import type { SyncConflictRow } from './sync.repository.js';
 
-export interface FeedEntry {
-  type: 'finding' | 'conflict';
-  id: string;
-  xid: string;
-  seq: number;
+/** A change of the feed with its row, read in one query per table. */
+export type FeedChange =
+  | { type: 'finding'; xid: string; seq: number; finding: FindingApiRow; siteId: string }
+  | { type: 'conflict'; xid: string; seq: number; conflict: SyncConflictRow };
+
+const findingApiColumns = FINDING_API_COLUMNS.map((key) => [key, findings[key]] as const);
+const findingSelectList = sql.raw(findingApiColumns.map(([, column]) => `findings.${column.name}`).join(', '));
+
+/** A raw findings row (column names as in the table) as a typed select would give it. */
+function decodeFinding(raw: Record<string, unknown>): FindingApiRow {
+  const row: Record<string, unknown> = {};
+  for (const [key, column] of findingApiColumns) {
+    const value = raw[column.name];
+    row[key] = value === null || value === undefined ? null : column.mapFromDriverValue(value as never);
+  }
+  return row as FindingApiRow;
+}
+
+/** (xid, seq) order of the feed; xid8 travels as decimal text, so compare it as a BigInt. */
+export function feedOrder(a: { xid: string; seq: number }, b: { xid: string; seq: number }): number {
+  const x = BigInt(a.xid) - BigInt(b.xid);
+  return x < 0n ? -1 : x > 0n ? 1 : a.seq - b.seq;
 }
 
 /**
@@ -25,32 +44,48 @@ export interface FeedEntry {
  * is complete forever. Rows of transactions still in flight (or committed above the horizon) wait
  * for the next pull. A long-running transaction delays the feed; it never loses a change.
  * Unlike an advisory lock around stamping, writers never wait for each other.
+ *
+ * Each table's part of the feed is read with its rows in one query. Both queries MUST run in one
+ * REPEATABLE READ transaction: there every statement sees the transaction's one snapshot, so
+ * `pg_current_snapshot()` — and with it the horizon — is the same for both, and the merged page is
+ * a prefix of one consistent feed.
  */
 @Injectable()
 export class SyncPullRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
-  async feed(organisationId: string, after: { xid: string; seq: number }, limit: number, foremanId?: string, executor: DbExecutor = this.db): Promise<FeedEntry[]> {
+  /** Up to `limit` changes after `after`, oldest first, each with its row (call inside a REPEATABLE READ transaction). */
+  async changes(organisationId: string, after: { xid: string; seq: number }, limit: number, foremanId: string | undefined, tx: DbExecutor): Promise<FeedChange[]> {
     const horizon = sql`pg_snapshot_xmin(pg_current_snapshot())`;
-    const afterFinding = sql`(f.sync_xid, f.sync_seq) > (${after.xid}::xid8, ${after.seq}::bigint)`;
-    const afterConflict = sql`(c.sync_xid, c.sync_seq) > (${after.xid}::xid8, ${after.seq}::bigint)`;
-    const foremanFindings = foremanId ? sql`and (s.foreman_id = ${foremanId} or f.assignee_id = ${foremanId})` : sql``;
-    // A foreman sees no conflicts: settling them is for inspectors and managers.
-    const conflicts = foremanId
-      ? sql``
-      : sql`union all
-        select 'conflict' as type, c.id, c.sync_xid as xid, c.sync_seq as seq from sync_conflicts c
-        where c.organisation_id = ${organisationId} and ${afterConflict} and c.sync_xid < ${horizon}`;
-    const result = await executor.execute<{ type: 'finding' | 'conflict'; id: string; xid: string; seq: string }>(sql`
-      select type, id, xid::text as xid, seq from (
-        select 'finding' as type, f.id, f.sync_xid as xid, f.sync_seq as seq
-        from findings f join scaffolds s on s.id = f.scaffold_id
-        where f.organisation_id = ${organisationId} and ${afterFinding} and f.sync_xid < ${horizon} ${foremanFindings}
-        ${conflicts}
-      ) feed
-      order by feed.xid, feed.seq
+    const window = (xid: AnyColumn, seq: AnyColumn) =>
+      sql`(${xid}, ${seq}) > (${after.xid}::xid8, ${after.seq}::bigint) and ${xid} < ${horizon}`;
+    // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
+    // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
+    const scope = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
+    const result = await tx.execute<Record<string, unknown>>(sql`
+      select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
+      from findings join scaffolds s on s.id = findings.scaffold_id
+      where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} ${scope}
+      order by findings.sync_xid, findings.sync_seq
       limit ${limit}`);
-    return result.rows.map((r) => ({ type: r.type, id: r.id, xid: r.xid, seq: Number(r.seq) }));
+    const out: FeedChange[] = result.rows.map((r) => ({
+      type: 'finding',
+      xid: r.feed_xid as string,
+      seq: Number(r.feed_seq),
+      finding: decodeFinding(r),
+      siteId: r.feed_site_id as string,
+    }));
+    // A foreman sees no conflicts: settling them is for inspectors and managers.
+    if (foremanId) return out;
+    const conflicts = await tx
+      .select()
+      .from(syncConflicts)
+      .where(and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq)))
+      .orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq))
+      .limit(limit);
+    if (!conflicts.length) return out;
+    out.push(...conflicts.map((c): FeedChange => ({ type: 'conflict', xid: c.syncXid, seq: c.syncSeq, conflict: c })));
+    return out.sort(feedOrder).slice(0, limit);
   }
 
   /** Findings with the site of their scaffold (the phone files findings by site). */
@@ -61,10 +96,5 @@ export class SyncPullRepository {
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(inArray(findings.id, ids));
-  }
-
-  async conflicts(ids: string[], executor: DbExecutor = this.db) {
-    if (!ids.length) return [];
-    return executor.select().from(syncConflicts).where(inArray(syncConflicts.id, ids));
   }
 }

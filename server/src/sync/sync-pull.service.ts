@@ -19,22 +19,15 @@ export class SyncPullService {
   async changes(user: AuthUser, query: SyncPullQuery): Promise<SyncPullResponse> {
     const [xid, seq] = (query.cursor ?? SYNC_CURSOR_START).split('.') as [string, string];
     const foremanId = user.role === 'foreman' ? user.userId : undefined;
-    // One read-only snapshot: the feed and the rows it names agree.
+    // One REPEATABLE READ snapshot: one horizon for every table of the feed (see SyncPullRepository).
     return this.db.transaction(
       async (tx) => {
-        const feed = await this.pull.feed(user.organisationId, { xid, seq: Number(seq) }, query.limit + 1, foremanId, tx);
+        const feed = await this.pull.changes(user.organisationId, { xid, seq: Number(seq) }, query.limit + 1, foremanId, tx);
         const page = feed.slice(0, query.limit);
-        const ids = (type: 'finding' | 'conflict') => page.filter((e) => e.type === type).map((e) => e.id);
-        const findings = new Map((await this.pull.findingsWithSite(ids('finding'), tx)).map((r) => [r.finding.id, r]));
-        const conflicts = new Map((await this.pull.conflicts(ids('conflict'), tx)).map((r) => [r.id, r]));
-        const changes: SyncChange[] = page.flatMap((entry): SyncChange[] => {
-          if (entry.type === 'finding') {
-            const r = findings.get(entry.id);
-            return r ? [{ type: 'finding', record: toSyncFinding(r.finding, r.siteId) }] : [];
-          }
-          const c = conflicts.get(entry.id);
-          return c ? [{ type: 'conflict', record: toSyncConflict(c) }] : [];
-        });
+        const now = Date.now();
+        const changes: SyncChange[] = page.map((c): SyncChange =>
+          c.type === 'finding' ? { type: 'finding', record: toSyncFinding(c.finding, c.siteId, now) } : { type: 'conflict', record: toSyncConflict(c.conflict) },
+        );
         const last = page.at(-1);
         return { changes, cursor: last ? `${last.xid}.${last.seq}` : `${xid}.${seq}`, hasMore: feed.length > query.limit };
       },

@@ -7,8 +7,9 @@ import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { inScope } from '../findings/findings.service.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { BatchFallback, BatchSyncStore } from './batch-sync-store.js';
+import { faultAfter, faultPoint } from './fault-injection.js';
 import { FindingSyncService, type MutationApplied } from './finding-sync.service.js';
-import { SyncBatchRepository } from './sync-batch.repository.js';
+import { type BatchFinding, SyncBatchRepository } from './sync-batch.repository.js';
 import { isDatabaseError, isRetryable, pgCode, rejectionReason } from './mutation-rejected.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
 import { toSyncFinding } from './sync.mapper.js';
@@ -23,8 +24,8 @@ import { SyncRepository, type SyncMutationLogRow } from './sync.repository.js';
  */
 interface FreshOutcome {
   results: SyncMutationResult[];
-  /** The touched findings as read back inside the batch's savepoint (undefined: read them afterwards). */
-  stored?: Awaited<ReturnType<SyncPullRepository['findingsWithSite']>>;
+  /** The touched findings as they stand at the end of the batch's savepoint (undefined: read them afterwards). */
+  stored?: BatchFinding[];
 }
 
 @Injectable()
@@ -48,7 +49,7 @@ export class SyncPushService {
       ]);
     }
     try {
-      return await this.db.transaction((tx) => this.applyBatch(tx, user, body));
+      return faultAfter('sync-push:after-commit', await this.db.transaction((tx) => this.applyBatch(tx, user, body)));
     } catch (error) {
       if (isRetryable(error)) throw new AppError(ErrorCode.ServiceUnavailable, 'The server was busy with the same records; send the batch again');
       throw error;
@@ -101,6 +102,7 @@ export class SyncPushService {
       .filter((r) => r.finding.organisationId === user.organisationId)
       .filter((r) => inScope(user, r))
       .map((r) => toSyncFinding(r.finding, r.siteId));
+    faultPoint('sync-push:before-commit');
     return { lastMutationId, results, records };
   }
 
@@ -128,7 +130,7 @@ export class SyncPushService {
     return { results, stored: undefined };
   }
 
-  /** Inside the batch's savepoint: every mutation in memory, then a few multi-row writes, then the rows read back. */
+  /** Inside the batch's savepoint: every mutation in memory, then a few multi-row writes, then the written rows checked. */
   private async applyInMemory(sp: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
     const loaded = await this.batch.lockFindings(fresh.map((m) => m.entityId), sp);
     const store = new BatchSyncStore(this.findingSync.dbStore(sp, user, new Map()), user, loaded, await this.batch.now(sp));
@@ -141,9 +143,10 @@ export class SyncPushService {
       results.push(result);
     }
     await store.flush(sp, this.batch, this.audit);
-    const stored = await this.pull.findingsWithSite(touched, sp);
-    if (!store.matchesStored(stored.map((r) => r.finding))) throw new BatchFallback('a finding reads back differently');
-    return { results, stored };
+    if (!store.matchesStored(await this.batch.readChecked(store.written(), sp))) throw new BatchFallback('a finding reads back differently');
+    // The answer's records come from the rows in memory (loaded and locked here, or written and checked just now).
+    const { found, missing } = store.current(touched);
+    return { results, stored: [...found, ...(await this.pull.findingsWithSite(missing, sp))] };
   }
 
   /** The mutation's outcome; a mutation that can never apply is rejected with its reason. */

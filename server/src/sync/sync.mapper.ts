@@ -1,9 +1,13 @@
 import type { SyncConflict, SyncFinding } from '@plummet/shared';
-import { toFinding, type FindingRow } from '../findings/finding.mapper.js';
+import { toFinding, type FindingApiRow } from '../findings/finding.mapper.js';
 import type { SyncConflictRow } from './sync.repository.js';
 
-export function toSyncFinding(row: FindingRow, siteId: string): SyncFinding {
-  return { ...toFinding(row), organisationId: row.organisationId, siteId };
+export function toSyncFinding(row: FindingApiRow, siteId: string, now = Date.now()): SyncFinding {
+  // toFinding's answer is a fresh object: extended in place, not copied (a pull maps a thousand per page).
+  const record = toFinding(row, now) as SyncFinding;
+  record.organisationId = row.organisationId;
+  record.siteId = siteId;
+  return record;
 }
 
 export function toSyncConflict(row: SyncConflictRow): SyncConflict {

@@ -35,8 +35,25 @@ export class SyncRepository {
       .where(and(eq(syncMutations.clientId, clientId), inArray(syncMutations.mutationId, mutationIds)));
   }
 
+  /** One statement whatever the batch size: the rows travel as one JSON parameter (thousands of bind parameters are slow to build and bind). */
   async logOutcomes(rows: SyncMutationLogRow[], tx: DbExecutor): Promise<void> {
-    if (rows.length) await tx.insert(syncMutations).values(rows);
+    if (!rows.length) return;
+    const json = JSON.stringify(
+      rows.map((r) => ({
+        client_id: r.clientId,
+        mutation_id: r.mutationId,
+        organisation_id: r.organisationId,
+        entity: r.entity,
+        entity_id: r.entityId,
+        action: r.action,
+        outcome: r.outcome,
+        reason: r.reason ?? null,
+      })),
+    );
+    await tx.execute(sql`
+      insert into sync_mutations (client_id, mutation_id, organisation_id, entity, entity_id, action, outcome, reason)
+      select client_id, mutation_id, organisation_id, entity, entity_id, action, outcome, reason
+      from json_populate_recordset(null::sync_mutations, ${json}::json)`);
   }
 
   async insertConflicts(rows: SyncConflictInsert[], tx: DbExecutor): Promise<SyncConflictRow[]> {
