@@ -26,9 +26,12 @@ export function startSyncTriggers(engine: Pick<SyncEngine, 'sync'>, options: Syn
   const doc = options.document ?? (typeof document === 'undefined' ? undefined : document);
   const sw = options.serviceWorker ?? (typeof navigator !== 'undefined' && 'serviceWorker' in navigator ? navigator.serviceWorker : undefined);
   const run = () => {
-    // Ask for a wake-up when the connection returns, in case the app is in the background then.
-    void registerBackgroundSync();
-    void engine.sync();
+    void engine.sync().then((outcome) => {
+      // Ask for a wake-up when the connection returns, in case the app is in the background then.
+      // Only while the phone knows it is offline: an online registration fires at once, and the
+      // relayed wake-up would start another run, and so on.
+      if (outcome === 'offline' && typeof navigator !== 'undefined' && navigator.onLine === false) void registerBackgroundSync();
+    });
   };
   const onVisible = () => {
     if (doc?.visibilityState === 'visible') run();
