@@ -2,7 +2,7 @@ import 'fake-indexeddb/auto';
 import { BUILTIN_ITEMS, type CatalogueItem, type Finding } from '@plummet/shared';
 import { afterEach, describe, expect, it } from 'vitest';
 import { enqueueChange } from '../local-db/outbox';
-import { dropTestDatabases, freshDb, ORG_ID, scaffold, site, USER_ID } from '../local-db/testing';
+import { dropTestDatabases, freshDb, ORG_ID, sampleFinding, scaffold, site } from '../local-db/testing';
 import { downloadSite, type SiteDownloadSources } from './download-site';
 
 afterEach(dropTestDatabases);
@@ -15,47 +15,16 @@ const catalogue: CatalogueItem[] = BUILTIN_ITEMS.slice(0, 3).map((item) => ({
   version: 1,
 }));
 
+/** A finding as the server sends it: the shared sample without the phone's own fields. */
 function finding(n: number, notes: string): Finding {
-  return {
+  const { organisationId: _organisation, siteId: _site, ...server } = sampleFinding({
     id: `0f000000-0000-4000-8000-00000000000${n}`,
     inspectionId: null,
-    scaffoldId: scaffold.id,
-    elevation: 'North',
-    lift: 2,
     bay: n,
-    heightM: 4,
-    item: { catalogueItemId: null, name: 'Brick', massKg: 2.3, shape: null },
-    exposure: 'public',
-    likelihoodAnswers: { securing: 'loose', edgeDistance: 'at-edge', activity: 'light', wind: 'calm', footTraffic: 'frequent' },
-    likelihood: 4,
-    estimate: {
-      terminalVelocityMps: null,
-      impactVelocityMps: 8.86,
-      vacuumImpactVelocityMps: 8.86,
-      fallTimeS: 0.9,
-      riseM: 0,
-      impactEnergyJ: 90,
-      meanForceN: 5000,
-      peakForceN: 7800,
-      driftM: 0,
-      severity: { level: 4, label: 'Major', basis: 'test' },
-      likelihood: { level: 4, label: 'Likely', reasons: [] },
-      resolved: {},
-    },
-    severity: 4,
-    riskScore: 16,
-    riskBand: 'High',
-    state: 'open',
-    assigneeId: null,
-    dueAt: null,
-    overdue: false,
     notes,
-    madeSafeNote: null,
-    createdBy: USER_ID,
-    createdAt: '2026-02-01T00:00:00.000Z',
     updatedAt: '2026-02-01T00:00:00.000Z',
-    version: 1,
-  };
+  });
+  return server;
 }
 
 function sources(findings: Finding[]): SiteDownloadSources {

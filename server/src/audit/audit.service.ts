@@ -3,7 +3,7 @@ import type { AuditEvent, AuditListQuery, ListResponse } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
 import { toPage } from '../common/keyset.js';
 import type { DbExecutor } from '../db/db.tokens.js';
-import { type AuditEventRow, AuditRepository } from './audit.repository.js';
+import { type AuditEventInsert, type AuditEventRow, AuditRepository } from './audit.repository.js';
 
 export type AuditEntityType = 'site' | 'scaffold' | 'inspection' | 'control-check' | 'finding' | 'catalogue-item';
 
@@ -31,6 +31,18 @@ export function toAuditEvent(row: AuditEventRow): AuditEvent {
   };
 }
 
+function auditRow(actor: AuthUser, change: AuditChange): AuditEventInsert {
+  return {
+    organisationId: actor.organisationId,
+    actorId: actor.userId,
+    entityType: change.entityType,
+    entityId: change.entityId,
+    action: change.action,
+    before: change.before ?? null,
+    after: change.after ?? null,
+  };
+}
+
 /** Every change writes one event, inside the transaction of the change itself. */
 @Injectable()
 export class AuditService {
@@ -38,33 +50,14 @@ export class AuditService {
 
   /** Call with the transaction of the change: the event and the change commit or fail together. */
   async record(tx: DbExecutor, actor: AuthUser, change: AuditChange): Promise<void> {
-    await this.audit.insert(
-      {
-        organisationId: actor.organisationId,
-        actorId: actor.userId,
-        entityType: change.entityType,
-        entityId: change.entityId,
-        action: change.action,
-        before: change.before ?? null,
-        after: change.after ?? null,
-      },
-      tx,
-    );
+    await this.audit.insert(auditRow(actor, change), tx);
   }
 
   /** Several changes by one actor in one statement, same transaction rule as record(). */
   async recordMany(tx: DbExecutor, actor: AuthUser, changes: AuditChange[]): Promise<void> {
     if (!changes.length) return;
     await this.audit.insertMany(
-      changes.map((change) => ({
-        organisationId: actor.organisationId,
-        actorId: actor.userId,
-        entityType: change.entityType,
-        entityId: change.entityId,
-        action: change.action,
-        before: change.before ?? null,
-        after: change.after ?? null,
-      })),
+      changes.map((change) => auditRow(actor, change)),
       tx,
     );
   }

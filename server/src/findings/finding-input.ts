@@ -6,6 +6,7 @@
 import {
   DropInputError,
   estimateFinding,
+  type FindingCreate,
   type FindingExposure,
   type FindingItemInput,
   type LikelihoodAnswers,
@@ -15,6 +16,7 @@ import {
 import { AppError, ErrorCode, type ErrorIssue } from '../common/app-error.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
+import type { AuthUser } from '../auth/auth.types.js';
 import type { FindingInsert } from './findings.repository.js';
 
 /** Every column that follows from the inspector's input: position, item copy, estimate and risk. */
@@ -102,5 +104,27 @@ export function findingColumns(fields: FindingFields, windSpeedMps: number | nul
     likelihood: result.likelihood,
     riskScore: result.riskScore,
     riskBand: result.riskBand,
+  };
+}
+
+/**
+ * The row of a new finding, the same for the REST route and for sync: computed columns plus who,
+ * where and which organisation. Callers add their own extras (sync adds its field stamps).
+ */
+export function newFindingRow(
+  user: AuthUser,
+  input: FindingCreate,
+  item: FindingFields['item'],
+  scaffoldId: string,
+  windSpeedMps: number | null,
+): FindingInsert {
+  return {
+    ...findingColumns({ ...input, item }, windSpeedMps),
+    id: input.id,
+    organisationId: user.organisationId,
+    scaffoldId,
+    inspectionId: input.inspectionId,
+    notes: input.notes,
+    createdBy: user.userId,
   };
 }

@@ -8,7 +8,7 @@ import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { InspectionsRepository } from '../inspections/inspections.repository.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
-import { checkPosition, type FindingFields, findingColumns, resolveItem } from './finding-input.js';
+import { checkPosition, type FindingFields, findingColumns, newFindingRow, resolveItem } from './finding-input.js';
 import { type FindingRow, toFinding, toFindingListItem } from './finding.mapper.js';
 import { FindingsRepository, type FindingWithScope } from './findings.repository.js';
 
@@ -93,20 +93,7 @@ export class FindingsService {
       const windSpeedMps = await this.inspectionWind(user, input.inspectionId, scaffold.id, tx, true);
       checkPosition(input, scaffold);
       const item = resolveItem(input.item, await this.catalogueItem(user, input.item.catalogueItemId, tx));
-      const columns = findingColumns({ ...input, item }, windSpeedMps);
-
-      const row = await this.findings.insertIfAbsent(
-        {
-          ...columns,
-          id: input.id,
-          organisationId: user.organisationId,
-          scaffoldId: scaffold.id,
-          inspectionId: input.inspectionId,
-          notes: input.notes,
-          createdBy: user.userId,
-        },
-        tx,
-      );
+      const row = await this.findings.insertIfAbsent(newFindingRow(user, input, item, scaffold.id, windSpeedMps), tx);
       if (!row) {
         const raced = await this.findings.findAnyOrg(input.id, tx);
         if (!raced) throw new AppError(ErrorCode.Conflict, 'The finding id is taken');

@@ -18,7 +18,7 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
 import type { DbExecutor } from '../db/db.tokens.js';
-import { checkPosition, type FindingFields, findingColumns, resolveItem } from '../findings/finding-input.js';
+import { checkPosition, type FindingFields, findingColumns, newFindingRow, resolveItem } from '../findings/finding-input.js';
 import { type FindingRow, toFinding } from '../findings/finding.mapper.js';
 import { FindingsRepository } from '../findings/findings.repository.js';
 import { inScope } from '../findings/findings.service.js';
@@ -101,18 +101,10 @@ export class FindingSyncService {
     const wind = await this.inspectionWind(input.inspectionId, scaffold.id, tx, true);
     checkPosition(input, scaffold);
     const item = resolveItem(input.item, await this.catalogueItem(input.item.catalogueItemId, tx));
-    const row = await tx.insertFinding(
-      {
-        ...findingColumns({ ...input, item }, wind),
-        id: input.id,
-        organisationId: user.organisationId,
-        scaffoldId: scaffold.id,
-        inspectionId: input.inspectionId,
-        notes: input.notes,
-        createdBy: user.userId,
-        syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, ctx.clientId),
-      },
-    );
+    const row = await tx.insertFinding({
+      ...newFindingRow(user, input, item, scaffold.id, wind),
+      syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, ctx.clientId),
+    });
     if (!row) throw new MutationRejected('A finding with this id already exists');
     await tx.audit({ entityType: 'finding', entityId: row.id, action: 'create', before: null, after: toFinding(row) });
     return { outcome: 'applied', reason: null, conflictIds: [] };

@@ -54,6 +54,26 @@ export function InspectionFinishPage() {
     if (fields && inspectionId) void writeMeta(db, draftKey(inspectionId), fields);
   }
 
+  /** A one-line report field with its error; a render helper, not a component, so typing keeps focus. */
+  function reportLine(name: 'reportFor' | 'reporterName' | 'reporterPosition', className?: string) {
+    if (!fields) return null;
+    return (
+      <>
+        <IonInput
+          className={className}
+          label={REPORT_FIELD_LABELS[name]}
+          labelPlacement="stacked"
+          fill="outline"
+          value={fields[name]}
+          onIonInput={(event) => update(name, String(event.detail.value ?? ''))}
+          onIonBlur={keepDraft}
+          data-testid={`report-${name}`}
+        />
+        {issues[name] && <IonNote color="danger" className="field-error">{issues[name]}</IonNote>}
+      </>
+    );
+  }
+
   function submit() {
     if (!fields || !inspection) return;
     const parsed = InspectionFinishSchema.safeParse({ ...fields, signature });
@@ -90,16 +110,7 @@ export function InspectionFinishPage() {
                 <>
                   <FormSection title="The report">
                     <p className="muted">Drafted from your walk: read every line and change what needs changing. The date and time are set when you sign.</p>
-                    <IonInput
-                      label={REPORT_FIELD_LABELS.reportFor}
-                      labelPlacement="stacked"
-                      fill="outline"
-                      value={fields.reportFor}
-                      onIonInput={(event) => update('reportFor', String(event.detail.value ?? ''))}
-                      onIonBlur={keepDraft}
-                      data-testid="report-reportFor"
-                    />
-                    {issues.reportFor && <IonNote color="danger" className="field-error">{issues.reportFor}</IonNote>}
+                    {reportLine('reportFor')}
                     {LONG_FIELDS.map((name) => (
                       <label key={name} className="report-field">
                         <span className="select-field__label">{REPORT_FIELD_LABELS[name]}</span>
@@ -116,27 +127,8 @@ export function InspectionFinishPage() {
                     ))}
                   </FormSection>
                   <FormSection title="Signed by">
-                    <IonInput
-                      label={REPORT_FIELD_LABELS.reporterName}
-                      labelPlacement="stacked"
-                      fill="outline"
-                      value={fields.reporterName}
-                      onIonInput={(event) => update('reporterName', String(event.detail.value ?? ''))}
-                      onIonBlur={keepDraft}
-                      data-testid="report-reporterName"
-                    />
-                    {issues.reporterName && <IonNote color="danger" className="field-error">{issues.reporterName}</IonNote>}
-                    <IonInput
-                      className="report-field"
-                      label={REPORT_FIELD_LABELS.reporterPosition}
-                      labelPlacement="stacked"
-                      fill="outline"
-                      value={fields.reporterPosition}
-                      onIonInput={(event) => update('reporterPosition', String(event.detail.value ?? ''))}
-                      onIonBlur={keepDraft}
-                      data-testid="report-reporterPosition"
-                    />
-                    {issues.reporterPosition && <IonNote color="danger" className="field-error">{issues.reporterPosition}</IonNote>}
+                    {reportLine('reporterName')}
+                    {reportLine('reporterPosition', 'report-field')}
                     <p className="select-field__label report-field">Drawn signature (optional)</p>
                     <SignaturePad value={signature} onChange={setSignature} />
                   </FormSection>
