@@ -22,6 +22,8 @@ export * from './catalogue/shape-spec.schema.js';
 export * from './catalogue/catalogue-item.schema.js';
 export * from './catalogue/builtin-items.js';
 export * from './findings/finding-state.js';
+export * from './findings/fix-loop.js';
+export * from './organisations/organisation-settings.schema.js';
 export * from './findings/finding-estimate.js';
 export * from './findings/finding.schema.js';
 export * from './sync/sync.schema.js';

@@ -44,6 +44,9 @@ export function toFinding(row: FindingApiRow, now = Date.now()): Finding {
     overdue: isOverdue(row, now),
     notes: row.notes,
     madeSafeNote: row.madeSafeNote,
+    // Stored from the fix loop on; until then no finding carries either.
+    madeSafeUntil: null,
+    handBack: null,
     createdBy: row.createdBy,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),

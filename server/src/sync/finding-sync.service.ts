@@ -87,6 +87,8 @@ export class FindingSyncService {
         return this.update(tx, ctx, mutation);
       case 'state':
         return this.changeState(tx, ctx, mutation);
+      default:
+        throw new MutationRejected(`The server cannot yet apply "${mutation.action}" to a finding`);
     }
   }
 

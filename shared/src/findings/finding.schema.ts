@@ -14,10 +14,21 @@ import { listQueryShape, listResponseSchema, QueryBooleanSchema, queryList } fro
 import type { LikelihoodAnswers } from '../risk/likelihood.js';
 import { FINDING_EXPOSURES } from './finding-estimate.js';
 import { FINDING_STATES } from './finding-state.js';
+import { FINDING_CONTROLS, HAND_BACK_REASONS } from './fix-loop.js';
 
 export const FindingStateSchema = z.enum(FINDING_STATES);
 export const FindingExposureSchema = z.enum(FINDING_EXPOSURES);
 export const RiskBandSchema = z.enum(['Low', 'Medium', 'High']);
+export const FindingControlSchema = z.enum(FINDING_CONTROLS);
+export const HandBackReasonSchema = z.enum(HAND_BACK_REASONS);
+
+/** The latest hand back of a finding by a foreman, until a manager reassigns it. */
+export const FindingHandBackSchema = z.object({
+  reason: HandBackReasonSchema,
+  note: z.string(),
+  by: IdSchema,
+  at: DateTimeSchema,
+});
 
 /** The inspector's answers behind the likelihood (shared/src/risk/likelihood.ts asks the questions). */
 export const LikelihoodAnswersSchema = z.object({
@@ -99,6 +110,10 @@ export const FindingSchema = z.object({
   overdue: z.boolean(),
   notes: z.string(),
   madeSafeNote: z.string().nullable(),
+  /** When the made-safe measure lapses (end of the shift it was taken in) unless renewed; null when not made safe. */
+  madeSafeUntil: DateTimeSchema.nullable(),
+  /** Set when the assigned foreman handed the finding back; cleared by the next assignment. */
+  handBack: FindingHandBackSchema.nullable(),
   createdBy: IdSchema,
   createdAt: DateTimeSchema,
   updatedAt: DateTimeSchema,
@@ -139,6 +154,16 @@ export type FindingUpdate = z.infer<typeof FindingUpdateSchema>;
 export const FindingStateChangeSchema = z.object({
   to: FindingStateSchema,
   note: NoteSchema.default(''),
+  /** The control applied (made safe, fixed); an alteration control marks the scaffold altered. */
+  control: FindingControlSchema.optional(),
+  /**
+   * Proof photos, by the ids the phone gave them (their owner is the fix or verification
+   * `recordId`, or the finding for made safe). Required for a High finding made safe or fixed when
+   * the organisation asks for proof; the photos may upload after the change.
+   */
+  photoIds: z.array(IdSchema).max(10).default([]),
+  /** Made safe by closing the zone below: its radius, m. */
+  zoneRadiusM: z.number().positive().max(200).optional(),
   /**
    * Id for the fix or verification this change records, made on the phone so a proof photo can be
    * attached to it offline (photos with owner `fix` or `verification`); the server makes one if absent.
@@ -146,6 +171,56 @@ export const FindingStateChangeSchema = z.object({
   recordId: IdSchema.optional(),
 });
 export type FindingStateChange = z.infer<typeof FindingStateChangeSchema>;
+
+/** A foreman returns a finding they cannot fix, with a reason a manager acts on. */
+export const FindingHandBackInputSchema = z.object({
+  reason: HandBackReasonSchema,
+  note: NoteSchema.default(''),
+});
+export type FindingHandBackInput = z.infer<typeof FindingHandBackInputSchema>;
+
+/** A fix as recorded (GET /findings/:id/history, the change feed). */
+export const FixSchema = z.object({
+  id: IdSchema,
+  findingId: IdSchema,
+  fixedBy: IdSchema,
+  fixedAt: DateTimeSchema,
+  note: z.string(),
+  control: FindingControlSchema.nullable(),
+  photoIds: z.array(IdSchema),
+});
+export type Fix = z.infer<typeof FixSchema>;
+
+/** A verification or reopening of a fixed finding. */
+export const VerificationSchema = z.object({
+  id: IdSchema,
+  findingId: IdSchema,
+  verifiedBy: IdSchema,
+  verifiedAt: DateTimeSchema,
+  outcome: z.enum(['verified', 'reopened']),
+  note: z.string(),
+  photoIds: z.array(IdSchema),
+});
+export type Verification = z.infer<typeof VerificationSchema>;
+
+/** One line of a finding's history, oldest first. */
+export const FindingHistoryEntrySchema = z.object({
+  kind: z.enum(['created', 'state', 'assign', 'hand-back', 'edit']),
+  at: DateTimeSchema,
+  by: IdSchema.nullable(),
+  byName: z.string().nullable(),
+  from: FindingStateSchema.nullable(),
+  to: FindingStateSchema.nullable(),
+  note: z.string(),
+  control: FindingControlSchema.nullable(),
+  reason: HandBackReasonSchema.nullable(),
+  assigneeId: IdSchema.nullable(),
+  /** The fix or verification this line recorded, when any. */
+  recordId: IdSchema.nullable(),
+  photoIds: z.array(IdSchema),
+});
+export type FindingHistoryEntry = z.infer<typeof FindingHistoryEntrySchema>;
+export const FindingHistorySchema = z.object({ items: z.array(FindingHistoryEntrySchema) });
 
 /** Hands a finding to a foreman of the organisation (or takes it back with null), with a due time. */
 export const FindingAssignSchema = z.object({

@@ -16,7 +16,7 @@ export const SYNC_ENTITIES = ['finding'] as const;
 export const SyncEntitySchema = z.enum(SYNC_ENTITIES);
 export type SyncEntity = z.infer<typeof SyncEntitySchema>;
 
-export const SyncActionSchema = z.enum(['create', 'update', 'state']);
+export const SyncActionSchema = z.enum(['create', 'update', 'state', 'assign', 'hand-back']);
 export type SyncAction = z.infer<typeof SyncActionSchema>;
 
 /**

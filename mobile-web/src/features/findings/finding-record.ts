@@ -80,6 +80,8 @@ export function buildFindingRecord(
     overdue: previous?.overdue ?? false,
     notes: form.notes,
     madeSafeNote: madeSafeNow ? form.madeSafeNote.trim() : (previous?.madeSafeNote ?? null),
+    madeSafeUntil: previous?.madeSafeUntil ?? null,
+    handBack: previous?.handBack ?? null,
     createdAt: previous?.createdAt ?? now.toISOString(),
     updatedAt: now.toISOString(),
     version: previous?.version ?? 0,
