@@ -8,7 +8,7 @@ import type {
   ControlCheck,
   Finding,
   FindingCreate,
-  FindingStateChange,
+  FindingStateChangeInput,
   FindingUpdate,
   Inspection,
   InspectionCreate,
@@ -90,7 +90,7 @@ export type OutboxChange =
   | { entity: 'control-check'; action: 'put'; payload: ControlCheckPut & { inspectionId: string; control: ControlCheck['control'] } }
   | { entity: 'finding'; action: 'create'; payload: FindingCreate }
   | { entity: 'finding'; action: 'update'; payload: FindingUpdate }
-  | { entity: 'finding'; action: 'state'; payload: FindingStateChange }
+  | { entity: 'finding'; action: 'state'; payload: FindingStateChangeInput }
   | { entity: 'photo'; action: 'upload'; payload: { id: string; ownerType: PhotoOwnerType; ownerId: string; takenAt?: IsoDateTime } }
   | { entity: 'user'; action: 'update'; payload: UserProfileUpdate };
 

@@ -101,6 +101,8 @@ export function sampleFinding(overrides: Partial<FindingRecord> = {}): FindingRe
     overdue: false,
     notes: '',
     madeSafeNote: null,
+    madeSafeUntil: null,
+    handBack: null,
     createdBy: USER_ID,
     createdAt: '2026-02-01T00:00:00.000Z',
     updatedAt: '2026-03-01T08:30:00.000Z',

@@ -171,6 +171,8 @@ export const FindingStateChangeSchema = z.object({
   recordId: IdSchema.optional(),
 });
 export type FindingStateChange = z.infer<typeof FindingStateChangeSchema>;
+/** As a client writes it (photoIds may be left out). */
+export type FindingStateChangeInput = z.input<typeof FindingStateChangeSchema>;
 
 /** A foreman returns a finding they cannot fix, with a reason a manager acts on. */
 export const FindingHandBackInputSchema = z.object({
