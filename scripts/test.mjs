@@ -52,8 +52,9 @@ async function main() {
   fakes = await startFakes({ mailDir: join(tmp, 'mail'), s3Dir: join(tmp, 's3'), smtpPort: 0, s3Port: 0, bucket });
 
   if (process.env.TEST_SKIP_BUILD === '1') {
-    // A quicker loop while working on tests that need neither the type-check nor the built app.
-    say('TEST_SKIP_BUILD=1: skipping the type-check and the build (end-to-end tests use the last build)');
+    // A quicker loop while working on tests that need neither the type-check nor the built PWA.
+    say('TEST_SKIP_BUILD=1: skipping the type-check and the PWA build (end-to-end tests use the last one)');
+    await buildAll({ web: false });
   } else {
     say('type-checking every workspace…');
     await run('npm', ['run', '--silent', 'typecheck'], { cwd: ROOT, label: 'type-check' });
