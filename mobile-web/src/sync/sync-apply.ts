@@ -23,11 +23,11 @@ export async function applyPulledPage(database: PlummetDb, page: SyncPullRespons
     for (const change of page.changes) {
       if (change.type === 'finding') {
         if (!waiting.has(change.record.id)) await putIfNewer(database, change.record as FindingRecord);
-      } else if (change.record.status === 'open') {
-        conflicts[change.record.id] = change.record;
-      } else {
-        delete conflicts[change.record.id];
+      } else if (change.type === 'conflict') {
+        if (change.record.status === 'open') conflicts[change.record.id] = change.record;
+        else delete conflicts[change.record.id];
       }
+      // Other record types are not stored on the phone yet.
     }
     await writeMeta(database, SYNC_META.conflicts, conflicts);
     await writeMeta(database, SYNC_META.cursor, page.cursor);

@@ -5,7 +5,14 @@
  */
 import { z } from 'zod';
 import { DateTimeSchema, IdSchema } from '../common/fields.schema.js';
-import { FindingSchema } from '../findings/finding.schema.js';
+import { CatalogueItemSchema } from '../catalogue/catalogue-item.schema.js';
+import { FindingSchema, FixSchema, VerificationSchema } from '../findings/finding.schema.js';
+import { ControlCheckSchema } from '../inspections/control-check.schema.js';
+import { InspectionSchema } from '../inspections/inspection.schema.js';
+import { PhotoSchema } from '../photos/photo.schema.js';
+import { ScaffoldSchema } from '../scaffolds/scaffold.schema.js';
+import { SiteSchema } from '../sites/site.schema.js';
+import { UserProfileSchema } from '../users/user.schema.js';
 
 /** Most mutations one push may carry (a phone back from a long walk sends several batches). */
 export const SYNC_PUSH_MAX = 1000;
@@ -117,9 +124,49 @@ export const SyncPullQuerySchema = z.object({
 });
 export type SyncPullQuery = z.infer<typeof SyncPullQuerySchema>;
 
+/** Every kind of record a phone holds; the change feed carries each, and a tombstone names one to drop. */
+export const SYNC_RECORD_TYPES = [
+  'site',
+  'scaffold',
+  'inspection',
+  'control-check',
+  'finding',
+  'fix',
+  'verification',
+  'photo',
+  'catalogue-item',
+  'user',
+  'conflict',
+] as const;
+export const SyncRecordTypeSchema = z.enum(SYNC_RECORD_TYPES);
+export type SyncRecordType = z.infer<typeof SyncRecordTypeSchema>;
+
+/**
+ * A record the phone must drop: deleted, archived, or no longer in the caller's scope (a foreman
+ * reassigned away from a finding). The id is the record's id (a control check: `<inspectionId>:<control>`).
+ */
+export const SyncTombstoneSchema = z.object({
+  recordType: SyncRecordTypeSchema,
+  id: z.string().min(1).max(120),
+  reason: z.enum(['deleted', 'archived', 'out-of-scope']),
+});
+export type SyncTombstone = z.infer<typeof SyncTombstoneSchema>;
+
 export const SyncChangeSchema = z.discriminatedUnion('type', [
   z.object({ type: z.literal('finding'), record: SyncFindingSchema }),
   z.object({ type: z.literal('conflict'), record: SyncConflictSchema }),
+  z.object({ type: z.literal('fix'), record: FixSchema }),
+  z.object({ type: z.literal('verification'), record: VerificationSchema }),
+  /** Photo metadata; the bytes come from GET /api/photos/:id (and its thumbnail). */
+  z.object({ type: z.literal('photo'), record: PhotoSchema }),
+  z.object({ type: z.literal('site'), record: SiteSchema }),
+  z.object({ type: z.literal('scaffold'), record: ScaffoldSchema }),
+  z.object({ type: z.literal('inspection'), record: InspectionSchema }),
+  z.object({ type: z.literal('control-check'), record: ControlCheckSchema }),
+  z.object({ type: z.literal('catalogue-item'), record: CatalogueItemSchema }),
+  /** The caller's own profile and settings (units). */
+  z.object({ type: z.literal('user'), record: UserProfileSchema }),
+  z.object({ type: z.literal('tombstone'), record: SyncTombstoneSchema }),
 ]);
 export type SyncChange = z.infer<typeof SyncChangeSchema>;
 
