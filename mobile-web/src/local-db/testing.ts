@@ -53,7 +53,7 @@ export const scaffold: Scaffold = {
   lifts: 6,
   liftHeightM: 2,
   baysPerElevation: 12,
-  status: 'Safe to use',
+  status: 'cleared',
   foremanId: null,
   lastInspectedAt: '2026-02-20T10:00:00.000Z',
   nextDueAt: '2026-02-27T10:00:00.000Z',

@@ -24,7 +24,7 @@ describeAccessMatrix('audit: every route by every role of both organisations', (
 
 describe('the audit trail', () => {
   it('shows another organisation nothing of a record it cannot see', async () => {
-    await created(api, 'demo:manager', 'POST', `/scaffolds/${DEMO.unmannedScaffold}/status`, { status: 'Do not use', note: 'Storm damage' });
+    await created(api, 'demo:manager', 'POST', `/scaffolds/${DEMO.unmannedScaffold}/status`, { status: 'closed', note: 'Storm damage' });
     expect((await api.call('demo:manager', 'GET', `/audit?entityId=${DEMO.unmannedScaffold}`)).body.items).toHaveLength(1);
     expect((await api.call('other:manager', 'GET', `/audit?entityId=${DEMO.unmannedScaffold}`)).body.items).toEqual([]);
   });

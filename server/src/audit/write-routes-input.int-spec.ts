@@ -60,7 +60,7 @@ const ROUTES: WriteRoute[] = [
     outOfRange: [scaffoldBody(DEMO.quaysideSite, { lifts: 101 }), 'lifts'],
   },
   { name: 'PATCH /scaffolds/:id', who: 'demo:admin', method: 'PATCH', path: () => `/scaffolds/${ids.scaffold}`, wrongTypes: { lifts: 'six' }, outOfRange: [{ liftHeightM: 0 }, 'liftHeightM'] },
-  { name: 'POST /scaffolds/:id/status', who: 'demo:manager', method: 'POST', path: () => `/scaffolds/${ids.scaffold}/status`, wrongTypes: { status: 1 }, outOfRange: [{ status: 'Safe to use', note: LONG_NOTE }, 'note'] },
+  { name: 'POST /scaffolds/:id/status', who: 'demo:manager', method: 'POST', path: () => `/scaffolds/${ids.scaffold}/status`, wrongTypes: { status: 1 }, outOfRange: [{ status: 'cleared', note: LONG_NOTE }, 'note'] },
   {
     name: 'POST /inspections',
     who: 'demo:inspector',

@@ -30,7 +30,7 @@ describeAccessMatrix('scaffolds: every route by every role of both organisations
   },
   {
     route: 'POST /scaffolds/:id/status',
-    request: async () => ({ path: `/scaffolds/${DEMO.unmannedScaffold}/status`, body: { status: 'Restricted use', note: 'Top lift boarded out only' } }),
+    request: async () => ({ path: `/scaffolds/${DEMO.unmannedScaffold}/status`, body: { status: 'limited', note: 'Top lift boarded out only' } }),
     expect: [200, 200, 200, 403, 404, 404, 404, 403],
   },
 ]);
@@ -39,11 +39,13 @@ describe('scaffolds', () => {
   it('filters the list by site, status, foreman and overdue inspection', async () => {
     const site = await created(api, 'demo:admin', 'POST', '/sites', siteBody());
     const a = await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(site.id, { reference: 'F-A', foremanId: api.userIds['demo:foreman'] }));
-    const b = await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(site.id, { reference: 'F-B', status: 'Do not use' }));
+    const b = await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(site.id, { reference: 'F-B' }));
+    await created(api, 'demo:inspector', 'POST', `/scaffolds/${a.id}/status`, { status: 'cleared', note: 'Handover inspection' });
     const refs = async (query: string) =>
       (await api.call('demo:manager', 'GET', `/scaffolds?siteId=${site.id}&${query}`)).body.items.map((s: { reference: string }) => s.reference);
     expect(await refs('')).toEqual(['F-A', 'F-B']);
-    expect(await refs('status=Do%20not%20use')).toEqual(['F-B']);
+    expect(await refs('status=closed')).toEqual(['F-B']);
+    expect(await refs('status=cleared')).toEqual(['F-A']);
     expect(await refs(`foremanId=${api.userIds['demo:foreman']}`)).toEqual(['F-A']);
     expect(await refs('overdue=true')).toEqual([]);
     await api.t.drizzle.execute(sql`UPDATE scaffolds SET next_due_at = now() - interval '1 hour' WHERE id = ${b.id}`);
@@ -67,10 +69,17 @@ describe('scaffolds', () => {
   it('records the status change with its reason in the audit trail', async () => {
     const site = await created(api, 'demo:admin', 'POST', '/sites', siteBody());
     const scaffold = await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(site.id));
-    const res = await api.call('demo:inspector', 'POST', `/scaffolds/${scaffold.id}/status`, { status: 'Do not use', note: 'Ties removed on lift 3' });
-    expect(res.body).toMatchObject({ status: 'Do not use', version: 2 });
+    const res = await api.call('demo:inspector', 'POST', `/scaffolds/${scaffold.id}/status`, { status: 'closed', note: 'Ties removed on lift 3' });
+    expect(res.body).toMatchObject({ status: 'closed', version: 2 });
     const audit = await api.call('demo:admin', 'GET', `/audit?entityId=${scaffold.id}`);
-    expect(audit.body.items[0]).toMatchObject({ action: 'status', before: { status: 'Safe to use' }, after: { status: 'Do not use', statusNote: 'Ties removed on lift 3' } });
+    expect(audit.body.items[0]).toMatchObject({ action: 'status', before: { status: 'closed' }, after: { status: 'closed', statusNote: 'Ties removed on lift 3' } });
+  });
+
+  it('starts a new scaffold closed to use until an inspection records its status', async () => {
+    const site = await created(api, 'demo:admin', 'POST', '/sites', siteBody());
+    const res = await api.call('demo:admin', 'POST', '/scaffolds', { ...scaffoldBody(site.id), status: 'cleared' });
+    expect(res.status).toBe(201);
+    expect(res.body.status).toBe('closed');
   });
 
   it('refuses sizes outside sane ranges, naming each field', async () => {

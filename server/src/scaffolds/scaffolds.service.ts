@@ -65,7 +65,7 @@ export class ScaffoldsService {
     });
   }
 
-  /** The tag on the scaffold (Safe to use / Restricted use / Do not use), changed on site with a reason. */
+  /** The tag on the scaffold (cleared / limited / closed, shown in Plummet's own words), changed on site with a reason. */
   async changeStatus(user: AuthUser, id: string, input: ScaffoldStatusChange): Promise<Scaffold> {
     return this.db.transaction(async (tx) => {
       const current = await this.scaffolds.find(user.organisationId, id, tx, true);

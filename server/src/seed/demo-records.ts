@@ -40,11 +40,11 @@ export const DEMO_SITES = [
 ] as const;
 
 export const DEMO_SCAFFOLDS = [
-  { id: demoId(2, 1), site: demoId(1, 1), reference: 'QL-A', description: 'Main façade independent scaffold with brick guards', elevations: ['North', 'East'], lifts: 6, liftHeightM: 2, baysPerElevation: 12, status: 'Safe to use', foreman: true },
-  { id: demoId(2, 2), site: demoId(1, 1), reference: 'QL-B', description: 'Rear stair-core tower', elevations: ['South'], lifts: 8, liftHeightM: 2, baysPerElevation: 3, status: 'Restricted use', foreman: false },
-  { id: demoId(2, 3), site: demoId(1, 2), reference: 'FS-1', description: 'Block A perimeter scaffold over the public footpath, with fan', elevations: ['Street', 'Courtyard'], lifts: 5, liftHeightM: 2, baysPerElevation: 18, status: 'Safe to use', foreman: true },
-  { id: demoId(2, 4), site: demoId(1, 2), reference: 'FS-2', description: 'Loading bay', elevations: ['West'], lifts: 3, liftHeightM: 2, baysPerElevation: 4, status: 'Restricted use', foreman: false },
-  { id: demoId(2, 5), site: demoId(1, 3), reference: 'MY-1', description: 'Front elevation access scaffold', elevations: ['Front'], lifts: 4, liftHeightM: 2, baysPerElevation: 8, status: 'Safe to use', foreman: false },
+  { id: demoId(2, 1), site: demoId(1, 1), reference: 'QL-A', description: 'Main façade independent scaffold with brick guards', elevations: ['North', 'East'], lifts: 6, liftHeightM: 2, baysPerElevation: 12, status: 'cleared', foreman: true },
+  { id: demoId(2, 2), site: demoId(1, 1), reference: 'QL-B', description: 'Rear stair-core tower', elevations: ['South'], lifts: 8, liftHeightM: 2, baysPerElevation: 3, status: 'limited', foreman: false },
+  { id: demoId(2, 3), site: demoId(1, 2), reference: 'FS-1', description: 'Block A perimeter scaffold over the public footpath, with fan', elevations: ['Street', 'Courtyard'], lifts: 5, liftHeightM: 2, baysPerElevation: 18, status: 'cleared', foreman: true },
+  { id: demoId(2, 4), site: demoId(1, 2), reference: 'FS-2', description: 'Loading bay', elevations: ['West'], lifts: 3, liftHeightM: 2, baysPerElevation: 4, status: 'limited', foreman: false },
+  { id: demoId(2, 5), site: demoId(1, 3), reference: 'MY-1', description: 'Front elevation access scaffold', elevations: ['Front'], lifts: 4, liftHeightM: 2, baysPerElevation: 8, status: 'cleared', foreman: false },
 ] as const;
 
 const REPORT = {

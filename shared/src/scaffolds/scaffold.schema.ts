@@ -3,10 +3,29 @@ import { z } from 'zod';
 import { DateTimeSchema, IdSchema, NoteSchema, VersionSchema } from '../common/fields.schema.js';
 import { listQueryShape, listResponseSchema, QueryBooleanSchema, queryList } from '../common/list.schema.js';
 
-/** Trade practice: the tag on the scaffold. */
-export const SCAFFOLD_STATUSES = ['Safe to use', 'Restricted use', 'Do not use'] as const;
+/**
+ * Tag status: what the last inspection recorded on the scaffold's tag, stored as neutral codes.
+ * A new scaffold is `closed` until an inspection sets its status. Screens, e-mails and reports
+ * show SCAFFOLD_STATUS_WORDS, always beside who recorded it and when: the app reports what a
+ * competent person recorded and never calls a scaffold safe.
+ */
+export const SCAFFOLD_STATUSES = ['cleared', 'limited', 'closed'] as const;
 export const ScaffoldStatusSchema = z.enum(SCAFFOLD_STATUSES);
 export type ScaffoldStatus = z.infer<typeof ScaffoldStatusSchema>;
+
+/** Plummet's own words for each tag status. */
+export const SCAFFOLD_STATUS_WORDS: Readonly<Record<ScaffoldStatus, string>> = {
+  cleared: 'Cleared for use',
+  limited: 'Limited use',
+  closed: 'Closed to use',
+};
+
+/** How restrictive a status is: a clash between unseen edits keeps the more restrictive one. */
+export const SCAFFOLD_STATUS_RESTRICTION: Readonly<Record<ScaffoldStatus, number>> = { cleared: 0, limited: 1, closed: 2 };
+
+/** The more restrictive of two tag statuses. */
+export const moreRestrictiveStatus = (a: ScaffoldStatus, b: ScaffoldStatus): ScaffoldStatus =>
+  SCAFFOLD_STATUS_RESTRICTION[b] > SCAFFOLD_STATUS_RESTRICTION[a] ? b : a;
 
 export const ScaffoldSchema = z.object({
   id: IdSchema,
@@ -40,7 +59,6 @@ const scaffoldFields = {
   /** Height of one lift, m (a UK lift is typically 2 m). */
   liftHeightM: z.number().positive().max(5),
   baysPerElevation: z.number().int().min(1).max(200),
-  status: ScaffoldStatusSchema,
   /** The foreman responsible: must be a foreman of the organisation. */
   foremanId: IdSchema.nullable(),
 };
@@ -49,10 +67,11 @@ export const ScaffoldCreateSchema = z.object({
   siteId: IdSchema,
   ...scaffoldFields,
   description: scaffoldFields.description.default(''),
-  status: scaffoldFields.status.default('Safe to use'),
   foremanId: scaffoldFields.foremanId.default(null),
 });
 export type ScaffoldCreate = z.infer<typeof ScaffoldCreateSchema>;
+// A new scaffold is `closed` until an inspection (or a recorded status change) sets its tag status,
+// so neither create nor update takes a status: POST /scaffolds/:id/status does, with its reason.
 
 export const ScaffoldUpdateSchema = z
   .object({ ...z.object(scaffoldFields).partial().shape, version: VersionSchema.optional() })

@@ -23,7 +23,7 @@ export const sites = pgTable(
   (t) => [index('sites_org_idx').on(t.organisationId)],
 );
 
-export const scaffoldStatusEnum = pgEnum('scaffold_status', ['Safe to use', 'Restricted use', 'Do not use']);
+export const scaffoldStatusEnum = pgEnum('scaffold_status', ['cleared', 'limited', 'closed']);
 
 export const scaffolds = pgTable(
   'scaffolds',
@@ -37,7 +37,7 @@ export const scaffolds = pgTable(
     lifts: integer('lifts').notNull(),
     liftHeightM: real('lift_height_m').notNull(),
     baysPerElevation: integer('bays_per_elevation').notNull(),
-    status: scaffoldStatusEnum('status').notNull().default('Safe to use'),
+    status: scaffoldStatusEnum('status').notNull().default('closed'),
     foremanId: uuid('foreman_id').references(() => users.id, { onDelete: 'set null' }),
     lastInspectedAt: timestamp('last_inspected_at', { withTimezone: true }),
     nextDueAt: timestamp('next_due_at', { withTimezone: true }),

@@ -1,21 +1,17 @@
-import { IonIcon } from '@ionic/react';
-import type { ScaffoldStatus } from '@plummet/shared';
+import { SCAFFOLD_STATUS_WORDS, type ScaffoldStatus } from '@plummet/shared';
 import './ScaffoldStatusTag.css';
-import { alertCircle, checkmarkCircle, closeCircle } from 'ionicons/icons';
 
-const LOOK: Record<ScaffoldStatus, { icon: string; modifier: string }> = {
-  'Safe to use': { icon: checkmarkCircle, modifier: 'ok' },
-  'Restricted use': { icon: alertCircle, modifier: 'restricted' },
-  'Do not use': { icon: closeCircle, modifier: 'closed' },
-};
-
-/** The scaffold's tag status (trade practice), as an icon and its words. */
-export function ScaffoldStatusTag({ status }: { status: ScaffoldStatus }) {
-  const look = LOOK[status];
+/**
+ * The scaffold's tag status as the last inspection recorded it: a shape and words as well as a
+ * colour (a ring for cleared, a half-filled diamond for limited, a solid bar for closed), so it
+ * reads without colour vision and never as a tick/warning/cross.
+ */
+export function ScaffoldStatusTag({ status, recorded }: { status: ScaffoldStatus; recorded?: string | null }) {
   return (
-    <span className={`scaffold-status scaffold-status--${look.modifier}`} data-testid="scaffold-status">
-      <IonIcon icon={look.icon} aria-hidden="true" />
-      {status}
+    <span className={`scaffold-status scaffold-status--${status}`} data-testid="scaffold-status" data-status={status}>
+      <span className="scaffold-status__shape" aria-hidden="true" />
+      <span>{SCAFFOLD_STATUS_WORDS[status]}</span>
+      {recorded !== undefined && <span className="scaffold-status__recorded">{recorded ?? 'not inspected yet'}</span>}
     </span>
   );
 }

@@ -36,7 +36,7 @@ export function ScaffoldPage() {
               {scaffold && (
                 <>
                   <div className="scaffold-summary">
-                    <ScaffoldStatusTag status={scaffold.status} />
+                    <ScaffoldStatusTag status={scaffold.status} recorded={scaffold.lastInspectedAt ? `as recorded ${formatDateTime(scaffold.lastInspectedAt)}` : null} />
                     <dl className="data-list">
                       <dt>Last inspected</dt>
                       <dd data-testid="last-inspected">{formatDateTime(scaffold.lastInspectedAt)}</dd>
