@@ -70,7 +70,7 @@ export const DEMO_CONTROL_CHECKS: { inspection: string; control: Control; result
   { inspection: demoId(3, 1), control: 'brick-guards', result: 'pass', note: '' },
   { inspection: demoId(3, 1), control: 'netting-or-sheeting', result: 'not-applicable', note: 'No sheeting on this scaffold' },
   { inspection: demoId(3, 1), control: 'fans-or-canopies', result: 'not-applicable', note: '' },
-  { inspection: demoId(3, 1), control: 'exclusion-zone-barriers', result: 'pass', note: 'Heras fencing along the East elevation' },
+  { inspection: demoId(3, 1), control: 'exclusion-zone-barriers', result: 'pass', note: 'Temporary mesh fencing along the East elevation' },
   { inspection: demoId(3, 1), control: 'tool-tethering', result: 'fail', note: 'Two untethered podgers seen on lift 6' },
   { inspection: demoId(3, 1), control: 'material-storage', result: 'fail', note: 'Blocks stacked above the toe board at East bay 2' },
   { inspection: demoId(3, 2), control: 'fans-or-canopies', result: 'pass', note: 'Fan over the footpath intact after the storm' },

@@ -24,9 +24,9 @@ export interface RiskBandRule {
 }
 
 export const RISK_BANDS: readonly RiskBandRule[] = [
-  { band: 'Low', min: 1, max: 4, source: 'Plummet product brief (generic 5 × 5 risk matrix)' },
-  { band: 'Medium', min: 5, max: 10, source: 'Plummet product brief (generic 5 × 5 risk matrix)' },
-  { band: 'High', min: 12, max: 25, source: 'Plummet product brief (generic 5 × 5 risk matrix)' },
+  { band: 'Low', min: 1, max: 4, source: "Plummet's default bands (an organisation may set its own)" },
+  { band: 'Medium', min: 5, max: 10, source: "Plummet's default bands (an organisation may set its own)" },
+  { band: 'High', min: 12, max: 25, source: "Plummet's default bands (an organisation may set its own)" },
 ];
 
 export interface RiskScore {

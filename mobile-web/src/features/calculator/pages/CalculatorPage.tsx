@@ -41,7 +41,7 @@ export function CalculatorPage() {
 
   return (
     <IonPage>
-      <AppHeader title="Drop calculator" backHref="/">
+      <AppHeader title="Quick estimate" backHref="/">
         <EstimateStrip result={now} units={units} />
       </AppHeader>
       <IonContent className="ion-padding" data-testid="calculator-page">
@@ -91,7 +91,7 @@ export function CalculatorPage() {
                 value={lowerText}
                 placeholder={formatQuantity('height', 2, units).split(' ')[0]}
                 onChange={setLowerText}
-                helper="One lift is usually 2 m."
+                helper="One lift is usually 2 m (common practice, no source)."
                 testId="calc-lower-by"
               />
               <WhatIfTable scenarios={scenarios} units={units} />

@@ -15,12 +15,12 @@ interface EstimatePanelProps {
   onExplain(): void;
 }
 
-/** The drop estimate in full, recomputed on every keystroke; with its sources one tap away. */
+/** The fall estimate in full, recomputed on every keystroke; with its sources one tap away. */
 export function EstimatePanel({ result, waitingFor, windSpeedMps, units, onExplain }: EstimatePanelProps) {
   if (!result) {
     return (
       <section className="estimate-panel estimate-panel--waiting" data-testid="estimate-panel" aria-live="polite">
-        <h2 className="estimate-panel__title">Drop estimate</h2>
+        <h2 className="estimate-panel__title">Fall estimate</h2>
         <p>{waitingFor ?? 'Fill in the item and the height to see the estimate.'}</p>
         <CautionNote />
       </section>
@@ -30,7 +30,7 @@ export function EstimatePanel({ result, waitingFor, windSpeedMps, units, onExpla
   return (
     <section className="estimate-panel" data-testid="estimate-panel" aria-live="polite">
       <div className="estimate-panel__head">
-        <h2 className="estimate-panel__title">Drop estimate</h2>
+        <h2 className="estimate-panel__title">Fall estimate</h2>
         <span data-testid="estimate-risk" data-band={result.riskBand} data-score={result.riskScore}>
           <RiskBadge band={result.riskBand} score={result.riskScore} />
         </span>

@@ -37,7 +37,7 @@ export function FindingListPage() {
           tabs={[
             { value: 'all', label: `All ${findings?.length ?? ''}` },
             { value: 'High', label: `High ${count('High')}` },
-            { value: 'Medium', label: `Med. ${count('Medium')}` },
+            { value: 'Medium', label: `Medium ${count('Medium')}` },
             { value: 'Low', label: `Low ${count('Low')}` },
           ]}
         />

@@ -43,7 +43,7 @@ export function HomePage() {
               Sign in
             </IonButton>
             <IonButton expand="block" fill="outline" routerLink="/calculator" className="home-page__action--secondary">
-              Try the drop calculator
+              Try a quick estimate
             </IonButton>
           </div>
         )}
@@ -52,7 +52,7 @@ export function HomePage() {
         <IonFooter>
           <div className="bottom-actions">
             <IonButton fill="outline" routerLink="/calculator" data-testid="open-calculator">
-              Calculator
+              Quick estimate
             </IonButton>
             <IonButton fill="outline" routerLink="/settings" data-testid="open-settings">
               Settings

@@ -142,7 +142,7 @@ export function InspectionFinishPage() {
       <IonFooter>
         <div className="bottom-actions">
           <IonButton disabled={!fields || missing.length > 0 || finish.isPending || inspection?.status === 'finished'} onClick={submit} data-testid="sign-and-finish">
-            Sign and finish
+            Finish and sign
           </IonButton>
         </div>
         {finish.isError && (
