@@ -5,7 +5,7 @@ import { toPage } from '../common/keyset.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { type AuditEventInsert, type AuditEventRow, AuditRepository } from './audit.repository.js';
 
-export type AuditEntityType = 'site' | 'scaffold' | 'inspection' | 'control-check' | 'finding' | 'catalogue-item';
+export type AuditEntityType = 'site' | 'scaffold' | 'inspection' | 'control-check' | 'finding' | 'catalogue-item' | 'organisation';
 
 export interface AuditChange {
   entityType: AuditEntityType;

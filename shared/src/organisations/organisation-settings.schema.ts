@@ -13,39 +13,56 @@ const LocalTimeSchema = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'A time of
  * day, Medium within three; Low is due before the scaffold's next inspection.
  */
 export const FixDueHoursSchema = z.object({
-  High: z.number().int('Whole hours').min(1, 'At least 1 hour').max(24 * 14, 'At most 14 days').default(24),
-  Medium: z.number().int('Whole hours').min(1, 'At least 1 hour').max(24 * 60, 'At most 60 days').default(72),
+  High: z.number().int('Whole hours').min(1, 'At least 1 hour').max(24 * 14, 'At most 14 days'),
+  Medium: z.number().int('Whole hours').min(1, 'At least 1 hour').max(24 * 60, 'At most 60 days'),
 });
 
-export const OrganisationSettingsSchema = z.object({
-  fixDueHours: FixDueHoursSchema.default({ High: 24, Medium: 72 }),
+/** Each setting without its default (the update form sends only what changed). */
+const settingsFields = {
+  fixDueHours: FixDueHoursSchema,
   /** A High finding needs a proof photo to be marked made safe or fixed. */
-  proofPhotoRequiredForHigh: z.boolean().default(true),
+  proofPhotoRequiredForHigh: z.boolean(),
   /** Separation of duties: whoever marked a finding fixed cannot verify it. */
-  verifierMustDifferFromFixer: z.boolean().default(true),
+  verifierMustDifferFromFixer: z.boolean(),
   /** A made-safe measure lapses at this local time unless renewed (common practice, no source). */
-  shiftEndsAt: LocalTimeSchema.default('17:00'),
+  shiftEndsAt: LocalTimeSchema,
   /** The organisation's time zone: shift ends, the daily digest, dates in e-mails and reports. */
-  timeZone: TimeZoneSchema.default('Europe/London'),
+  timeZone: TimeZoneSchema,
   /** Local hour of the daily digest to managers and foremen. */
-  digestHour: z.number().int('A whole hour').min(0, 'From 0').max(23, 'To 23').default(6),
+  digestHour: z.number().int('A whole hour').min(0, 'From 0').max(23, 'To 23'),
   /**
    * Send the client contact a copy of each report. On by default: under UK WAHR 2005 reg. 12 and
    * Schedule 7 the report goes to the person it was made for within 24 hours.
    */
-  clientCopyOfReports: z.boolean().default(true),
+  clientCopyOfReports: z.boolean(),
   /** Keep the GPS position of photos (stripped by default). */
-  keepPhotoLocation: z.boolean().default(false),
+  keepPhotoLocation: z.boolean(),
   /** Units new members start with. */
-  defaultUnits: z.enum(UNITS_VALUES).default('si'),
+  defaultUnits: z.enum(UNITS_VALUES),
+};
+
+export const OrganisationSettingsSchema = z.object({
+  fixDueHours: settingsFields.fixDueHours.default({ High: 24, Medium: 72 }),
+  proofPhotoRequiredForHigh: settingsFields.proofPhotoRequiredForHigh.default(true),
+  verifierMustDifferFromFixer: settingsFields.verifierMustDifferFromFixer.default(true),
+  shiftEndsAt: settingsFields.shiftEndsAt.default('17:00'),
+  timeZone: settingsFields.timeZone.default('Europe/London'),
+  digestHour: settingsFields.digestHour.default(6),
+  clientCopyOfReports: settingsFields.clientCopyOfReports.default(true),
+  keepPhotoLocation: settingsFields.keepPhotoLocation.default(false),
+  defaultUnits: settingsFields.defaultUnits.default('si'),
   /** An organisation's own severity bands (checked with validateSeverityTable); absent: Plummet's defaults. */
   severityTable: z.unknown().optional(),
 });
 export type OrganisationSettings = z.infer<typeof OrganisationSettingsSchema>;
 export type OrganisationSettingsInput = z.input<typeof OrganisationSettingsSchema>;
 
-/** A partial change from the settings form. */
-export const OrganisationSettingsUpdateSchema = OrganisationSettingsSchema.partial();
+/** A partial change from the settings form; `severityTable: null` puts Plummet's default bands back. */
+export const OrganisationSettingsUpdateSchema = z
+  .object({ ...z.object(settingsFields).partial().shape, severityTable: z.unknown().optional() })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, 'Nothing to change');
+export type OrganisationSettingsUpdate = z.infer<typeof OrganisationSettingsUpdateSchema>;
 
 export const DEFAULT_ORGANISATION_SETTINGS: OrganisationSettings = OrganisationSettingsSchema.parse({});
 
