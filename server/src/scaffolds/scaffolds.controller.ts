@@ -40,14 +40,14 @@ export class ScaffoldsController {
   }
 
   @Post()
-  @Roles('admin')
+  @Roles('manager', 'admin')
   @ApiCreatedResponse({ type: ScaffoldDto })
   create(@CurrentUser() user: AuthUser, @Body() body: ScaffoldCreateDto) {
     return this.scaffolds.create(user, body);
   }
 
   @Patch(':id')
-  @Roles('admin')
+  @Roles('manager', 'admin')
   @ApiOkResponse({ type: ScaffoldDto })
   update(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: ScaffoldUpdateDto) {
     return this.scaffolds.update(user, id, body);

@@ -32,14 +32,14 @@ export class SitesController {
   }
 
   @Post()
-  @Roles('admin')
+  @Roles('manager', 'admin')
   @ApiCreatedResponse({ type: SiteDto })
   create(@CurrentUser() user: AuthUser, @Body() body: SiteCreateDto) {
     return this.sites.create(user, body);
   }
 
   @Patch(':id')
-  @Roles('admin')
+  @Roles('manager', 'admin')
   @ApiOkResponse({ type: SiteDto })
   update(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: SiteUpdateDto) {
     return this.sites.update(user, id, body);
