@@ -1,7 +1,7 @@
 /**
  * Severity 1–5 of a drop estimate from its impact energy and peak force, against a threshold table.
- * The result says in words which reference the estimate crossed. Results are frozen and cached per
- * threshold, so rating an estimate allocates nothing.
+ * The result says in words the estimate's own figure and the reference it reached. Results are
+ * frozen and cached per threshold and rounded figure, so rating an estimate seldom allocates.
  */
 import type { Exposure } from '../physics/exposure.js';
 import { EXPOSURES } from '../physics/exposure.js';
@@ -25,30 +25,62 @@ export class SeverityTableError extends Error {
   }
 }
 
-const crossedCache = new WeakMap<SeverityThreshold, Severity>();
-const belowCache = new WeakMap<readonly SeverityThreshold[], Severity>();
-const checkedTables = new WeakSet<SeverityTable>();
+/**
+ * Relative tolerance of every threshold comparison: a value within one part in 10⁹ below a threshold
+ * counts as reaching it, so the level never depends on the order of floating-point operations
+ * (the EN 397 striker on the helmet spring computes 4999.999999999999 N against 5,000 N).
+ */
+export const SEVERITY_RELATIVE_TOLERANCE = 1e-9;
+const REACH = 1 - SEVERITY_RELATIVE_TOLERANCE;
 
-function formatThreshold(t: SeverityThreshold): string {
-  return t.quantity === 'energy' ? `${t.atLeast} J` : t.atLeast >= 1000 ? `${t.atLeast / 1000} kN` : `${t.atLeast} N`;
+/** Cached results per threshold (or per list, for "below every reference"), keyed by the rounded figure. */
+const crossedCache = new WeakMap<SeverityThreshold, Map<number, Severity>>();
+const belowCache = new WeakMap<readonly SeverityThreshold[], Map<number, Severity>>();
+const checkedTables = new WeakSet<SeverityTable>();
+/** Past this many cached figures per threshold the cache starts afresh (memory stays bounded). */
+const CACHE_LIMIT = 4096;
+
+/** Three significant figures, the precision the basis quotes (no string work: a cache key). */
+function rounded(x: number): number {
+  const step = x < 1 ? 0.001 : x < 10 ? 0.01 : x < 100 ? 0.1 : x < 1000 ? 1 : x < 10_000 ? 10 : x < 100_000 ? 100 : 10 ** (Math.floor(Math.log10(x)) - 2);
+  return Math.round(x / step) * step;
 }
 
-function crossed(t: SeverityThreshold): Severity {
-  let result = crossedCache.get(t);
+function formatNumber(x: number): string {
+  return String(Number(x.toPrecision(3)));
+}
+
+function formatQuantity(quantity: 'energy' | 'force', value: number): string {
+  if (quantity === 'energy') return `${formatNumber(value)} J`;
+  return value >= 1000 ? `${formatNumber(value / 1000)} kN` : `${formatNumber(value)} N`;
+}
+
+function crossed(t: SeverityThreshold, value: number): Severity {
+  let byFigure = crossedCache.get(t);
+  if (byFigure === undefined) crossedCache.set(t, (byFigure = new Map()));
+  const key = rounded(value);
+  let result = byFigure.get(key);
   if (result === undefined) {
     const what = t.quantity === 'energy' ? 'Impact energy' : 'Peak force';
     result = Object.freeze({
       level: t.level,
       label: SEVERITY_LABELS[t.level],
-      basis: `${what} reaches ${formatThreshold(t)}, ${t.reference} (${t.source}).`,
+      basis: `${what} ${formatQuantity(t.quantity, key)} reaches ${formatQuantity(t.quantity, t.atLeast)}, ${t.reference} (${t.source}).`,
     });
-    crossedCache.set(t, result);
+    if (byFigure.size >= CACHE_LIMIT) byFigure.clear();
+    byFigure.set(key, result);
   }
   return result;
 }
 
-function below(thresholds: readonly SeverityThreshold[], exposure: Exposure): Severity {
-  let result = belowCache.get(thresholds);
+function below(thresholds: readonly SeverityThreshold[], exposure: Exposure, energyJ: number, peakForceN: number): Severity {
+  let byFigures = belowCache.get(thresholds);
+  if (byFigures === undefined) belowCache.set(thresholds, (byFigures = new Map()));
+  const energy = rounded(energyJ);
+  const force = rounded(peakForceN);
+  // Below every reference both figures are small; one number keys the pair.
+  const key = energy * 1e7 + force;
+  let result = byFigures.get(key);
   if (result === undefined) {
     const lowest = (q: 'energy' | 'force') =>
       thresholds.filter((t) => t.quantity === q).sort((a, b) => a.atLeast - b.atLeast)[0];
@@ -58,10 +90,11 @@ function below(thresholds: readonly SeverityThreshold[], exposure: Exposure): Se
       level: 1,
       label: SEVERITY_LABELS[1],
       basis:
-        `Below every reference for ${who}` +
-        (parts.length ? `: under ${parts.map((t) => `${formatThreshold(t)}, ${t.reference}`).join('; and under ')}.` : '.'),
+        `Impact energy ${formatQuantity('energy', energy)} and peak force ${formatQuantity('force', force)}, below every reference for ${who}` +
+        (parts.length ? `: under ${parts.map((t) => `${formatQuantity(t.quantity, t.atLeast)}, ${t.reference}`).join('; and under ')}.` : '.'),
     });
-    belowCache.set(thresholds, result);
+    if (byFigures.size >= CACHE_LIMIT) byFigures.clear();
+    if (force < 1e7) byFigures.set(key, result); // the key is unique only while the force stays below 10⁷ N
   }
   return result;
 }
@@ -88,7 +121,9 @@ export function validateSeverityTable(table: SeverityTable): void {
 
 /**
  * Severity of an impact of `energyJ` joules and `peakForceN` newtons on `exposure`. The highest
- * level whose energy or force threshold is reached wins; on a tie the rule listed first is named.
+ * level whose energy or force threshold is reached (within SEVERITY_RELATIVE_TOLERANCE) wins; on a
+ * tie the rule listed first is named. The basis quotes the estimate's own figure (three significant
+ * figures), then the threshold it reaches. Results are frozen and shared per threshold and figure.
  */
 export function rateSeverity(
   energyJ: number,
@@ -96,35 +131,19 @@ export function rateSeverity(
   exposure: Exposure,
   table: SeverityTable = DEFAULT_SEVERITY_TABLE,
 ): Severity {
-  const isDefault = table === DEFAULT_SEVERITY_TABLE;
-  if (!isDefault) validateSeverityTable(table);
+  if (table !== DEFAULT_SEVERITY_TABLE) validateSeverityTable(table);
   const thresholds = table[exposure];
   let best = -1;
   let bestLevel = 0;
   for (let i = 0; i < thresholds.length; i++) {
     const t = thresholds[i]!;
     const value = t.quantity === 'energy' ? energyJ : peakForceN;
-    if (value >= t.atLeast && t.level > bestLevel) {
+    if (value >= t.atLeast * REACH && t.level > bestLevel) {
       best = i;
       bestLevel = t.level;
     }
   }
-  if (isDefault) {
-    // The default table's results are built once, so the hot path does no map lookup.
-    const results = exposure === 'helmet' ? DEFAULT_HELMET_RESULTS : DEFAULT_BARE_HEAD_RESULTS;
-    return best < 0 ? results.below : results.crossed[best]!;
-  }
-  return best < 0 ? below(thresholds, exposure) : crossed(thresholds[best]!);
+  if (best < 0) return below(thresholds, exposure, energyJ, peakForceN);
+  const t = thresholds[best]!;
+  return crossed(t, t.quantity === 'energy' ? energyJ : peakForceN);
 }
-
-interface PrecomputedResults {
-  readonly crossed: readonly Severity[];
-  readonly below: Severity;
-}
-
-const precompute = (exposure: Exposure): PrecomputedResults => ({
-  crossed: DEFAULT_SEVERITY_TABLE[exposure].map(crossed),
-  below: below(DEFAULT_SEVERITY_TABLE[exposure], exposure),
-});
-const DEFAULT_BARE_HEAD_RESULTS = precompute('bare-head');
-const DEFAULT_HELMET_RESULTS = precompute('helmet');
