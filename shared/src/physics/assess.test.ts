@@ -109,6 +109,16 @@ describe('explainDrop', () => {
     expect(explanation.assumptions.join(' ')).toMatch(/bounc/);
   });
 
+  it('lists both impacts of an item in wind, the faster marked as governing, and only still air without wind', () => {
+    const plate = { kind: 'plate', lengthM: 0.6, widthM: 0.3, thicknessM: 0.012 } as const;
+    const windy = explainDrop({ massKg: 0.2, heightM: 30, shape: plate, windSpeedMps: 20 });
+    expect(windy.impacts.map((i) => [i.id, i.governs])).toEqual([['still-air', false], ['wind', true]]);
+    expect(windy.impacts[1]!.speedMps).toBeCloseTo(21, 0); // worked example: about 21 m/s over the ground
+    expect(windy.governingReason).toMatch(/faster over the ground/);
+    const calm = explainDrop({ massKg: 0.2, heightM: 30, shape: plate });
+    expect(calm.impacts.map((i) => [i.id, i.governs])).toEqual([['still-air', true]]);
+  });
+
   it('explains an assessment already computed without recomputing it', () => {
     const drop = assessDrop({ massKg: 1, heightM: 2, contact: { stoppingDistanceM: 0.01 } });
     const explanation = explainDrop(drop);

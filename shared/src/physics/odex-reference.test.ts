@@ -16,6 +16,9 @@ import { integrateDrift } from './drift.js';
 import { stillAirFall } from './fall.js';
 import { heightForEnergy } from './inverse.js';
 
+/** shared compiles without DOM or Node types; the test runner provides the console. */
+declare const console: { log(message: string): void };
+
 interface Crossing {
   time: number;
   state: number[];
