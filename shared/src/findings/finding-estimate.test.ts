@@ -8,6 +8,8 @@ describe('estimateFinding', () => {
     const r = estimateFinding({ massKg: 1, heightM: 20, shape: null, exposure: 'public', likelihoodAnswers: loose });
     expect(r.estimate.impactEnergyJ).toBeCloseTo(196.133, 6); // 1 kg × 9.80665 m/s² (standard gravity, 3rd CGPM 1901) × 20 m
     expect(r.estimate.terminalVelocityMps).toBeNull();
+    expect(Object.keys(r.estimate.severity)).toEqual(['level', 'label', 'basis']); // plain own data, as IndexedDB's structured clone keeps it
+    expect(Object.getPrototypeOf(r.estimate.severity)).toBe(Object.prototype);
   });
 
   it('rates a hard hat below as a helmet: the EN 397 striker (5 kg from 1 m) is Catastrophic on a bare head and Major in a helmet', () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { assessDrop } from '../physics/assess.js';
 import { STANDARD_GRAVITY as G } from '../physics/constants.js';
 import { DEFAULT_SEVERITY_TABLE, SEVERITY_LABELS, type SeverityTable } from './severity-table.js';
-import { rateSeverity, SEVERITY_RELATIVE_TOLERANCE, SeverityTableError } from './severity.js';
+import { plainSeverity, rateSeverity, SEVERITY_RELATIVE_TOLERANCE, SeverityTableError } from './severity.js';
 
 describe('severity thresholds', () => {
   it('carry a source string and a reference in words on every threshold', () => {
@@ -104,11 +104,10 @@ describe('rateSeverity', () => {
     expect(() => rateSeverity(1, 1, 'bare-head', unsourced)).toThrow(/source/);
   });
 
-  it('returns the same frozen object for the same threshold and figure, so rating seldom allocates', () => {
-    const a = rateSeverity(80.01, 0, 'bare-head');
-    const b = rateSeverity(80.02, 0, 'bare-head');
-    expect(a).toBe(b); // both quote 80 J
-    expect(Object.isFrozen(a)).toBe(true);
-    expect(rateSeverity(90, 0, 'bare-head')).not.toBe(a);
+  it('words the basis when read and carries it in JSON and in a plain copy', () => {
+    const s = rateSeverity(80, 0, 'bare-head');
+    expect(JSON.parse(JSON.stringify(s))).toEqual({ level: 5, label: 'Catastrophic', basis: s.basis }); // 80 J ≥ 68.5 J (Yoganandan et al. 1995)
+    expect(plainSeverity(s)).toEqual({ level: 5, label: 'Catastrophic', basis: s.basis });
+    expect(s.basis).toMatch(/^Impact energy 80 J reaches 68\.5 J/);
   });
 });

@@ -1,7 +1,8 @@
 /**
  * Severity 1–5 of a drop estimate from its impact energy and peak force, against a threshold table.
- * The result says in words the estimate's own figure and the reference it reached. Results are
- * frozen and cached per threshold and rounded figure, so rating an estimate seldom allocates.
+ * The result says in words the estimate's own figure and the reference it reached. The words are
+ * put together when first read (JSON, the "how computed" sheet), so rating an estimate costs one
+ * small object and no string work.
  */
 import type { Exposure } from '../physics/exposure.js';
 import { EXPOSURES } from '../physics/exposure.js';
@@ -33,70 +34,69 @@ export class SeverityTableError extends Error {
 export const SEVERITY_RELATIVE_TOLERANCE = 1e-9;
 const REACH = 1 - SEVERITY_RELATIVE_TOLERANCE;
 
-/** Cached results per threshold (or per list, for "below every reference"), keyed by the rounded figure. */
-const crossedCache = new WeakMap<SeverityThreshold, Map<number, Severity>>();
-const belowCache = new WeakMap<readonly SeverityThreshold[], Map<number, Severity>>();
 const checkedTables = new WeakSet<SeverityTable>();
-/** Past this many cached figures per threshold the cache starts afresh (memory stays bounded). */
-const CACHE_LIMIT = 4096;
 
-/** Three significant figures, the precision the basis quotes (no string work: a cache key). */
-function rounded(x: number): number {
-  const step = x < 1 ? 0.001 : x < 10 ? 0.01 : x < 100 ? 0.1 : x < 1000 ? 1 : x < 10_000 ? 10 : x < 100_000 ? 100 : 10 ** (Math.floor(Math.log10(x)) - 2);
-  return Math.round(x / step) * step;
-}
-
-function formatNumber(x: number): string {
-  return String(Number(x.toPrecision(3)));
-}
-
+/** A figure as the basis quotes it: three significant figures, J, N below 1 kN, kN above. */
 function formatQuantity(quantity: 'energy' | 'force', value: number): string {
-  if (quantity === 'energy') return `${formatNumber(value)} J`;
-  return value >= 1000 ? `${formatNumber(value / 1000)} kN` : `${formatNumber(value)} N`;
+  const three = (x: number) => String(Number(x.toPrecision(3)));
+  if (quantity === 'energy') return `${three(value)} J`;
+  return value >= 1000 ? `${three(value / 1000)} kN` : `${three(value)} N`;
 }
 
-function crossed(t: SeverityThreshold, value: number): Severity {
-  let byFigure = crossedCache.get(t);
-  if (byFigure === undefined) crossedCache.set(t, (byFigure = new Map()));
-  const key = rounded(value);
-  let result = byFigure.get(key);
-  if (result === undefined) {
-    const what = t.quantity === 'energy' ? 'Impact energy' : 'Peak force';
-    result = Object.freeze({
-      level: t.level,
-      label: SEVERITY_LABELS[t.level],
-      basis: `${what} ${formatQuantity(t.quantity, key)} reaches ${formatQuantity(t.quantity, t.atLeast)}, ${t.reference} (${t.source}).`,
-    });
-    if (byFigure.size >= CACHE_LIMIT) byFigure.clear();
-    byFigure.set(key, result);
+function basisOf(
+  threshold: SeverityThreshold | undefined,
+  thresholds: readonly SeverityThreshold[],
+  exposure: Exposure,
+  energyJ: number,
+  peakForceN: number,
+): string {
+  if (threshold !== undefined) {
+    const what = threshold.quantity === 'energy' ? 'Impact energy' : 'Peak force';
+    const figure = threshold.quantity === 'energy' ? energyJ : peakForceN;
+    return `${what} ${formatQuantity(threshold.quantity, figure)} reaches ${formatQuantity(threshold.quantity, threshold.atLeast)}, ${threshold.reference} (${threshold.source}).`;
   }
-  return result;
+  const lowest = (q: 'energy' | 'force') => thresholds.filter((t) => t.quantity === q).sort((a, b) => a.atLeast - b.atLeast)[0];
+  const parts = [lowest('energy'), lowest('force')].filter((t): t is SeverityThreshold => t !== undefined);
+  const who = exposure === 'helmet' ? 'a helmeted head' : 'a bare head';
+  return (
+    `Impact energy ${formatQuantity('energy', energyJ)} and peak force ${formatQuantity('force', peakForceN)}, below every reference for ${who}` +
+    (parts.length ? `: under ${parts.map((t) => `${formatQuantity(t.quantity, t.atLeast)}, ${t.reference}`).join('; and under ')}.` : '.')
+  );
 }
 
-function below(thresholds: readonly SeverityThreshold[], exposure: Exposure, energyJ: number, peakForceN: number): Severity {
-  let byFigures = belowCache.get(thresholds);
-  if (byFigures === undefined) belowCache.set(thresholds, (byFigures = new Map()));
-  const energy = rounded(energyJ);
-  const force = rounded(peakForceN);
-  // Below every reference both figures are small; one number keys the pair.
-  const key = energy * 1e7 + force;
-  let result = byFigures.get(key);
-  if (result === undefined) {
-    const lowest = (q: 'energy' | 'force') =>
-      thresholds.filter((t) => t.quantity === q).sort((a, b) => a.atLeast - b.atLeast)[0];
-    const parts = [lowest('energy'), lowest('force')].filter((t): t is SeverityThreshold => t !== undefined);
-    const who = exposure === 'helmet' ? 'a helmeted head' : 'a bare head';
-    result = Object.freeze({
-      level: 1,
-      label: SEVERITY_LABELS[1],
-      basis:
-        `Impact energy ${formatQuantity('energy', energy)} and peak force ${formatQuantity('force', force)}, below every reference for ${who}` +
-        (parts.length ? `: under ${parts.map((t) => `${formatQuantity(t.quantity, t.atLeast)}, ${t.reference}`).join('; and under ')}.` : '.'),
-    });
-    if (byFigures.size >= CACHE_LIMIT) byFigures.clear();
-    if (force < 1e7) byFigures.set(key, result); // the key is unique only while the force stays below 10⁷ N
+/**
+ * A rating: level and label at once, the basis in words when first read. JSON carries the three
+ * fields (toJSON); code that copies a rating field by field reads `basis` like any property.
+ */
+class RatedSeverity implements Severity {
+  readonly level: SeverityLevel;
+  readonly label: string;
+  private words: string | undefined;
+
+  constructor(
+    private readonly threshold: SeverityThreshold | undefined,
+    private readonly thresholds: readonly SeverityThreshold[],
+    private readonly exposure: Exposure,
+    private readonly energyJ: number,
+    private readonly peakForceN: number,
+  ) {
+    this.level = threshold === undefined ? 1 : threshold.level;
+    this.label = SEVERITY_LABELS[this.level];
+    this.words = undefined;
   }
-  return result;
+
+  get basis(): string {
+    return (this.words ??= basisOf(this.threshold, this.thresholds, this.exposure, this.energyJ, this.peakForceN));
+  }
+
+  toJSON(): { level: SeverityLevel; label: string; basis: string } {
+    return { level: this.level, label: this.label, basis: this.basis };
+  }
+}
+
+/** A plain copy of a rating (level, label, basis), for storage that keeps own data properties only. */
+export function plainSeverity(severity: Severity): Severity {
+  return { level: severity.level, label: severity.label, basis: severity.basis };
 }
 
 /** Checks an organisation's table once (levels 2–5, positive finite thresholds, a source on each). */
@@ -123,7 +123,7 @@ export function validateSeverityTable(table: SeverityTable): void {
  * Severity of an impact of `energyJ` joules and `peakForceN` newtons on `exposure`. The highest
  * level whose energy or force threshold is reached (within SEVERITY_RELATIVE_TOLERANCE) wins; on a
  * tie the rule listed first is named. The basis quotes the estimate's own figure (three significant
- * figures), then the threshold it reaches. Results are frozen and shared per threshold and figure.
+ * figures), then the threshold it reaches.
  */
 export function rateSeverity(
   energyJ: number,
@@ -133,17 +133,10 @@ export function rateSeverity(
 ): Severity {
   if (table !== DEFAULT_SEVERITY_TABLE) validateSeverityTable(table);
   const thresholds = table[exposure];
-  let best = -1;
-  let bestLevel = 0;
+  let best: SeverityThreshold | undefined;
   for (let i = 0; i < thresholds.length; i++) {
     const t = thresholds[i]!;
-    const value = t.quantity === 'energy' ? energyJ : peakForceN;
-    if (value >= t.atLeast * REACH && t.level > bestLevel) {
-      best = i;
-      bestLevel = t.level;
-    }
+    if ((t.quantity === 'energy' ? energyJ : peakForceN) >= t.atLeast * REACH && (best === undefined || t.level > best.level)) best = t;
   }
-  if (best < 0) return below(thresholds, exposure, energyJ, peakForceN);
-  const t = thresholds[best]!;
-  return crossed(t, t.quantity === 'energy' ? energyJ : peakForceN);
+  return new RatedSeverity(best, thresholds, exposure, energyJ, peakForceN);
 }
