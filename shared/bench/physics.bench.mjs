@@ -40,7 +40,8 @@ function bareEstimate(m, h, cdA) {
   const energy = 0.5 * m * v * v;
   const duration = HALF_PI * Math.sqrt(m / SKULL_K);
   const peak = ((m * v) / duration) * HALF_PI;
-  return energy + peak + t;
+  const vacuum = Math.sqrt(2 * G * h); // the worst-case speed every estimate carries
+  return energy + peak + t + vacuum;
 }
 
 /**
