@@ -124,6 +124,7 @@ describe('the inspector’s walk with no signal', () => {
     const sheet = onScreen(page, 'how-computed');
     await sheet.getByText('Terminal speed').first().waitFor();
     expect(await sheet.innerText()).toMatch(/ICAO Doc 7488[\s\S]*competent person prevail/);
+    expect(await sheet.getByTestId('how-computed-impacts').innerText()).toMatch(/In still air[\s\S]*Over the ground with the wind/); // the 6 m/s inspection wind
     await page.screenshot({ path: artifactPath('how-computed.png') });
     await sheet.getByRole('button', { name: 'Close' }).click();
     await sheet.waitFor({ state: 'hidden' });

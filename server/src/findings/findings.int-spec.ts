@@ -56,7 +56,8 @@ describe('the estimate of a finding', () => {
     const res = await api.call('demo:inspector', 'POST', '/findings', body);
     expect(res.status).toBe(201);
     const physics = assessDrop({ massKg: 1, heightM: 20, exposure: 'bare-head' });
-    // No shape, so no drag: the vacuum worst case, m g h = 1 × 9.80665 × 20 = 196.133 J (standard gravity).
+    // No shape, so no drag: the vacuum worst case, m g h = 1 × 9.80665 × 20 = 196.133 J
+    // (standard gravity g_n = 9.80665 m/s², 3rd CGPM 1901; ISO 80000-3:2019).
     expect(physics.impactEnergyJ).toBeCloseTo(196.133, 3);
     expect(res.body.estimate.impactEnergyJ).toBe(physics.impactEnergyJ);
     expect(res.body.severity).toBe(physics.severity.level);

@@ -10,6 +10,7 @@ import type { Exposure } from '../physics/exposure.js';
 import type { ShapeSpec } from '../physics/shape.js';
 import { likelihoodFromAnswers, type LikelihoodAnswers } from '../risk/likelihood.js';
 import { riskScore, type RiskBand } from '../risk/risk-score.js';
+import { plainSeverity } from '../risk/severity.js';
 
 export const FINDING_EXPOSURES = ['public', 'hard-hats', 'zone-closed'] as const;
 export type FindingExposure = (typeof FINDING_EXPOSURES)[number];
@@ -70,6 +71,8 @@ export function estimateFinding(input: FindingEstimateInput, options?: AssessOpt
   return {
     estimate: {
       ...drop,
+      // A plain copy: the estimate is stored (IndexedDB, PostgreSQL) and sent as JSON.
+      severity: plainSeverity(drop.severity),
       terminalVelocityMps: Number.isFinite(drop.terminalVelocityMps) ? drop.terminalVelocityMps : null,
       likelihood: { level: likelihood.level, label: likelihood.label, reasons: likelihood.reasons },
     },

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CAUTION_TEXT } from '../caution.js';
+import { BUILTIN_ITEMS } from '../catalogue/builtin-items.js';
 import { assessDrop } from './assess.js';
 import { dragAreaFromShape } from './drag.js';
 import { explainDrop } from './explain.js';
@@ -33,18 +34,54 @@ describe('assessDrop', () => {
     expect(windy.driftM).toBeLessThan(10 * 20); // slower than the wind for less than the time of a slow fall
   });
 
-  it('reports the ground speed in the wind beside the still-air speed', () => {
+  it('rates a light item in wind by its faster impact over the ground, keeping the still-air one beside it', () => {
     const calm = assessDrop({ massKg: 0.05, heightM: 20, dragAreaM2: 0.01 });
     expect(calm.windImpactVelocityMps).toBe(calm.impactVelocityMps);
+    expect(calm.governingImpact).toBe('still-air');
     const windy = assessDrop({ massKg: 0.05, heightM: 20, dragAreaM2: 0.01, windSpeedMps: 15 });
-    expect(windy.windImpactVelocityMps).toBeGreaterThan(windy.impactVelocityMps); // a light item is carried sideways near the wind speed
+    expect(windy.stillAirImpactVelocityMps).toBe(calm.impactVelocityMps); // the closed form does not see the wind
+    expect(windy.governingImpact).toBe('wind');
+    expect(windy.impactVelocityMps).toBe(windy.windImpactVelocityMps);
+    expect(windy.impactEnergyJ).toBeCloseTo(0.5 * 0.05 * windy.windImpactVelocityMps ** 2, 12); // E = ½ m v² (definition)
     expect(windy.windImpactVelocityMps).toBeLessThan(Math.hypot(15, windy.terminalVelocityMps)); // never faster than the wind plus terminal fall
   });
 
-  it('makes the still-air results independent of the wind', () => {
+  it('keeps the still-air impact when crosswind drag slows a heavy item a little', () => {
+    // A dense item far from terminal speed: the wind adds almost no sideways speed but its drag
+    // on the relative velocity slows the fall slightly, so the still-air impact is the worse one.
+    const heavy = assessDrop({ massKg: 20, heightM: 60, dragAreaM2: 0.02, windSpeedMps: 3 });
+    expect(heavy.windImpactVelocityMps).toBeLessThan(heavy.stillAirImpactVelocityMps);
+    expect(heavy.governingImpact).toBe('still-air');
+    expect(heavy.impactVelocityMps).toBe(heavy.stillAirImpactVelocityMps);
+  });
+
+  it('rates the built-in brick trowel from 20 m in a 12 m/s wind over a helmet by its ground speed: Minor becomes Moderate', () => {
+    const trowel = BUILTIN_ITEMS.find((i) => i.name === 'Brick trowel')!;
+    const still = assessDrop({ massKg: trowel.massKg, heightM: 20, shape: trowel.shape!, exposure: 'helmet' });
+    expect(still.impactVelocityMps).toBeCloseTo(14.0, 1); // worked example: 14.0 m/s in still air
+    expect(still.impactEnergyJ).toBeCloseTo(34.5, 1); // and 34.5 J
+    expect(still.severity.level).toBe(2); // 34.5 J ≥ 24.5 J, half the EN 397 test energy
+    const windy = assessDrop({ massKg: trowel.massKg, heightM: 20, shape: trowel.shape!, exposure: 'helmet', windSpeedMps: 12 });
+    expect(windy.windImpactVelocityMps).toBeCloseTo(15.9, 1); // worked example: about 15.9 m/s over the ground
+    expect(windy.impactEnergyJ).toBeCloseTo(44.1, 1); // about 44 J
+    expect(windy.stillAirImpactEnergyJ).toBeCloseTo(34.5, 1);
+    expect(windy.severity.level).toBe(3); // peak ≈ 4.74 kN ≥ 4,450 N, ANSI/ISEA Z89.1 Type I limit
+  });
+
+  it('rates a 0.2 kg plate from 30 m in a 20 m/s wind on a bare head by its ground speed: Major becomes Catastrophic', () => {
+    const plate = { kind: 'plate', lengthM: 0.6, widthM: 0.3, thicknessM: 0.012 } as const;
+    expect(assessDrop({ massKg: 0.2, heightM: 30, shape: plate }).severity.level).toBe(4); // worked example: level 4 in still air
+    const windy = assessDrop({ massKg: 0.2, heightM: 30, shape: plate, windSpeedMps: 20 });
+    expect(windy.windImpactVelocityMps).toBeCloseTo(21, 0); // worked example: about 21 m/s over the ground
+    expect(windy.impactEnergyJ).toBeCloseTo(44, 0); // about 44 J
+    expect(windy.severity.level).toBe(5); // peak ≈ 18.9 kN ≥ 14.1 kN, highest skull-fracture force (Yoganandan et al. 1995)
+  });
+
+  it('keeps the still-air fall time and closed-form speed independent of the wind', () => {
     const calm = assessDrop({ massKg: 0.2, heightM: 20, dragAreaM2: 0.01 });
     const windy = assessDrop({ massKg: 0.2, heightM: 20, dragAreaM2: 0.01, windSpeedMps: 10 });
-    expect(windy.impactVelocityMps).toBe(calm.impactVelocityMps);
+    expect(windy.stillAirImpactVelocityMps).toBe(calm.impactVelocityMps);
+    expect(windy.stillAirPeakForceN).toBe(calm.peakForceN);
     expect(windy.fallTimeS).toBe(calm.fallTimeS);
   });
 
@@ -70,6 +107,16 @@ describe('explainDrop', () => {
     expect(explanation.contactPreset?.id).toBe('hard-item-bare-head');
     expect(explanation.caution).toBe(CAUTION_TEXT);
     expect(explanation.assumptions.join(' ')).toMatch(/bounc/);
+  });
+
+  it('lists both impacts of an item in wind, the faster marked as governing, and only still air without wind', () => {
+    const plate = { kind: 'plate', lengthM: 0.6, widthM: 0.3, thicknessM: 0.012 } as const;
+    const windy = explainDrop({ massKg: 0.2, heightM: 30, shape: plate, windSpeedMps: 20 });
+    expect(windy.impacts.map((i) => [i.id, i.governs])).toEqual([['still-air', false], ['wind', true]]);
+    expect(windy.impacts[1]!.speedMps).toBeCloseTo(21, 0); // worked example: about 21 m/s over the ground
+    expect(windy.governingReason).toMatch(/faster over the ground/);
+    const calm = explainDrop({ massKg: 0.2, heightM: 30, shape: plate });
+    expect(calm.impacts.map((i) => [i.id, i.governs])).toEqual([['still-air', true]]);
   });
 
   it('explains an assessment already computed without recomputing it', () => {

@@ -1,7 +1,8 @@
 /**
  * assessDrop: the drop estimate behind every finding. Still-air values come from closed forms;
- * drift is integrated only when there is wind and drag. The still-air path allocates only the
- * result objects it returns.
+ * drift is integrated only when there is wind and drag, and then the faster of the still-air impact
+ * and the impact over the ground in the wind governs. The still-air path allocates only the result
+ * objects it returns.
  */
 import { rateSeverity } from '../risk/severity.js';
 import { ISA_SEA_LEVEL_AIR_DENSITY, STANDARD_GRAVITY } from './constants.js';
@@ -82,10 +83,9 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
 
   const vt = terminalVelocity(mass, dragArea, rho, g);
   const fall = stillAirFallInto(scratch, height, v0, vt, g);
-  const speed = fall.speedMps;
+  const stillSpeed = fall.speedMps;
   const fallTime = fall.timeS;
   const rise = fall.riseM;
-  const energy = 0.5 * mass * speed * speed;
 
   const contact = input.contact;
   let durationS: number | undefined;
@@ -107,27 +107,40 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
     pulse = preset !== undefined ? preset.pulse : 'half-sine';
     if (contact != null) mask |= 128;
   }
-  const meanForce = meanImpactForce(mass, speed, energy, durationS, stoppingDistanceM);
-  const peakForce = meanForce * (pulse === 'half-sine' ? HALF_SINE_FACTOR : PULSE_FACTORS[pulse]);
+  const pulseFactor = pulse === 'half-sine' ? HALF_SINE_FACTOR : PULSE_FACTORS[pulse];
+  const stillEnergy = 0.5 * mass * stillSpeed * stillSpeed;
+  const stillMean = meanImpactForce(mass, stillSpeed, stillEnergy, durationS, stoppingDistanceM);
+
   let drift = 0;
-  let windSpeed = speed;
+  let windSpeed = stillSpeed;
+  let windEnergy = stillEnergy;
+  let windMean = stillMean;
   if (wind > 0 && vt < Infinity) {
     const carried = integrateDrift(height, v0, vt, g, wind, fallTime);
     drift = carried.driftM;
     windSpeed = Math.hypot(carried.horizontalSpeedMps, carried.verticalSpeedMps);
+    windEnergy = 0.5 * mass * windSpeed * windSpeed;
+    windMean = meanImpactForce(mass, windSpeed, windEnergy, durationS, stoppingDistanceM);
   }
+  // The worse impact governs: the faster one (energy and force both rise with speed for one contact).
+  const byWind = windSpeed > stillSpeed;
+  const speed = byWind ? windSpeed : stillSpeed;
+  const energy = byWind ? windEnergy : stillEnergy;
+  const meanForce = byWind ? windMean : stillMean;
+  const peakForce = meanForce * pulseFactor;
 
   const vacuumSpeed = Math.sqrt(v0 * v0 + 2 * g * height);
   // One check on the sum covers the usual case (a NaN or infinity anywhere makes it non-finite).
-  if (!Number.isFinite(vacuumSpeed + speed + fallTime + energy + meanForce + peakForce + drift + windSpeed)) {
+  if (!Number.isFinite(vacuumSpeed + stillSpeed + fallTime + stillEnergy + stillMean + drift + windSpeed + windEnergy + windMean * pulseFactor)) {
     assertFiniteResult(vacuumSpeed, 'vacuumImpactVelocityMps');
-    assertFiniteResult(speed, 'impactVelocityMps');
+    assertFiniteResult(stillSpeed, 'impactVelocityMps');
     assertFiniteResult(fallTime, 'fallTimeS');
-    assertFiniteResult(energy, 'impactEnergyJ');
-    assertFiniteResult(meanForce, 'meanForceN');
-    assertFiniteResult(peakForce, 'peakForceN');
+    assertFiniteResult(stillEnergy, 'impactEnergyJ');
+    assertFiniteResult(stillMean * pulseFactor, 'peakForceN');
     assertFiniteResult(drift, 'driftM');
     assertFiniteResult(windSpeed, 'windImpactVelocityMps');
+    assertFiniteResult(windEnergy, 'windImpactEnergyJ');
+    assertFiniteResult(windMean * pulseFactor, 'windPeakForceN');
   }
 
   return {
@@ -140,7 +153,13 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
     meanForceN: meanForce,
     peakForceN: peakForce,
     driftM: drift,
+    governingImpact: byWind ? 'wind' : 'still-air',
+    stillAirImpactVelocityMps: stillSpeed,
+    stillAirImpactEnergyJ: stillEnergy,
+    stillAirPeakForceN: stillMean * pulseFactor,
     windImpactVelocityMps: windSpeed,
+    windImpactEnergyJ: windEnergy,
+    windPeakForceN: windMean * pulseFactor,
     severity: rateSeverity(energy, peakForce, exposure, options?.severityTable),
     resolved: {
       massKg: mass,

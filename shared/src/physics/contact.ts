@@ -29,21 +29,42 @@ export const PULSE_FACTORS: Readonly<Record<Pulse, number>> = {
 export type ItemHardness = 'hard' | 'soft';
 export const ITEM_HARDNESSES: readonly ItemHardness[] = ['hard', 'soft'];
 
-/** EN 397 shock test: 5 kg striker dropped 1 m, 49.0 J; transmitted force at most 5.0 kN. */
-const EN397_ENERGY_J = 5 * STANDARD_GRAVITY * 1;
-const EN397_FORCE_N = 5000;
+/** EN 397 shock test: 5 kg striker dropped 1 m, m g h = 49.0 J; transmitted force at most 5.0 kN. */
+export const EN397_STRIKER_KG = 5;
+export const EN397_DROP_M = 1;
+export const EN397_ENERGY_J = EN397_STRIKER_KG * STANDARD_GRAVITY * EN397_DROP_M;
+export const EN397_FORCE_N = 5000;
+
+/**
+ * ANSI/ISEA Z89.1 Type I force transmission: 3.6 kg striker at 5.5 m/s (dropped 1.524 m, 5 ft),
+ * ½ m v² = 54.45 J; transmitted force at most 4,450 N.
+ */
+export const Z891_STRIKER_KG = 3.6;
+export const Z891_IMPACT_SPEED_MPS = 5.5;
+export const Z891_ENERGY_J = 0.5 * Z891_STRIKER_KG * Z891_IMPACT_SPEED_MPS * Z891_IMPACT_SPEED_MPS;
+export const Z891_FORCE_N = 4450;
 
 /** Mean dynamic stiffness of the cadaver skull, 4023 N/mm (Yoganandan et al. 1995, J Neurotrauma 12(4):659–668). */
 export const SKULL_STIFFNESS_N_PER_M = 4_023_000;
 /** Mean dynamic deflection of the skull at fracture, 5.8 mm (Yoganandan et al. 1995). */
 export const SKULL_DEFLECTION_M = 0.0058;
 /**
- * Linear spring through the EN 397 pass limit: k = F²/(2E) = 5000² / (2 × 49.03) ≈ 255 N/mm.
- * At the 5 kg striker it gives the half-sine pulse of ≈ 7.0 ms that carries 22.1 N·s at a 5.0 kN peak.
+ * The helmet as the linear spring through the EN 397 pass point: a spring stopping energy E peaks at
+ * F = √(2 E k), so a helmet that just passes (5.0 kN from 49.0 J) has k = F²/(2E) ≈ 255 N/mm, the
+ * stiffest helmet EN 397 allows: the worst case for a site where EN 397 helmets are worn. It does
+ * not claim ANSI/ISEA Z89.1 Type I: that test (4,450 N at 54.45 J) needs k ≤ 182 N/mm, and this
+ * spring gives its striker about 5.2 kN, so for a Z89.1 helmet the preset errs high.
  */
 export const HELMET_STIFFNESS_N_PER_M = (EN397_FORCE_N * EN397_FORCE_N) / (2 * EN397_ENERGY_J);
-/** Stopping distance implied by EN 397, E/F = 49.0 J / 5.0 kN ≈ 9.8 mm ("about 10 mm"). */
-export const HELMET_STOPPING_DISTANCE_M = EN397_ENERGY_J / EN397_FORCE_N;
+/** Largest deflection of that spring at the EN 397 pass point, 2E/F ≈ 19.6 mm. */
+export const HELMET_STROKE_AT_EN397_M = (2 * EN397_ENERGY_J) / EN397_FORCE_N;
+/**
+ * Helmet stopping distance for the stopping-distance model (mean E/d, peak × π/2 for the
+ * half-sine): the d that gives the helmet spring's own peak at the EN 397 pass point,
+ * d = (π/2)·E/F = (π/4) × the 19.6 mm stroke ≈ 15.4 mm. A soft item with no crush of its own then
+ * meets the same helmet as a hard one does; the shorter distance errs towards more force.
+ */
+export const HELMET_STOPPING_DISTANCE_M = ((Math.PI / 2) * EN397_ENERGY_J) / EN397_FORCE_N;
 /** Crush of a soft item itself (bag, glove, rubber, foam): 20 mm. Common practice, no source. */
 export const SOFT_ITEM_CRUSH_M = 0.02;
 
@@ -83,10 +104,11 @@ export const CONTACT_PRESETS: readonly ContactPreset[] = [
     stiffnessNPerM: HELMET_STIFFNESS_N_PER_M,
     pulse: 'half-sine',
     reasoning:
-      'A helmet that just passes EN 397 transmits 5.0 kN from 49 J (5 kg from 1 m): a stopping distance E/F of ' +
-      'about 10 mm and, as a half-sine, about 7 ms for the 5 kg striker. The helmet is modelled as the linear ' +
-      'spring through that point (k = F²/2E ≈ 255 N/mm), so lighter items give shorter, sharper pulses.',
-    source: 'EN 397:2012+A1:2012 shock absorption (5 kg, 1 m, ≤ 5.0 kN); consistent with ANSI/ISEA Z89.1 Type I (3.6 kg at 5.5 m/s, ≤ 4450 N)',
+      'A helmet that just passes EN 397 transmits 5.0 kN from 49.0 J (5 kg from 1 m). It is modelled as the linear ' +
+      'spring through that point, k = F²/2E ≈ 255 N/mm (a 19.6 mm stroke there, a 7.0 ms half-sine for the 5 kg ' +
+      'striker): the stiffest helmet EN 397 allows. Lighter items get shorter, sharper pulses. A helmet tested to ' +
+      'ANSI/ISEA Z89.1 Type I (≤ 4,450 N at 54.45 J) must be softer, so for it the force errs high.',
+    source: 'EN 397:2012+A1:2012 shock absorption (5 kg from 1 m, transmitted force ≤ 5.0 kN); not the ANSI/ISEA Z89.1-2014 Type I pass point (this spring gives its 3.6 kg striker at 5.5 m/s about 5.2 kN)',
   },
   {
     id: 'soft-item-bare-head',
@@ -108,8 +130,9 @@ export const CONTACT_PRESETS: readonly ContactPreset[] = [
     stoppingDistanceM: HELMET_STOPPING_DISTANCE_M + SOFT_ITEM_CRUSH_M,
     pulse: 'half-sine',
     reasoning:
-      'A soft item on a helmet: the helmet stroke implied by EN 397 (about 10 mm) plus about 20 mm of crush of the item.',
-    source: 'Helmet stroke: EN 397 (49 J / 5.0 kN ≈ 9.8 mm); item crush 20 mm: common practice, no source',
+      'A soft item on a helmet: the helmet stopping distance that gives the hard-item helmet spring its own peak at ' +
+      'the EN 397 pass point ((π/2) × 49.0 J / 5.0 kN ≈ 15.4 mm) plus about 20 mm of crush of the item: 35.4 mm.',
+    source: 'Helmet: EN 397:2012+A1:2012 pass point, as the hard-item helmet preset; item crush 20 mm: common practice, no source',
   },
 ];
 

@@ -8,6 +8,7 @@
  */
 import type { SquareMetres } from '../units/quantities.js';
 import {
+  CUBE_EDGE_FIRST_CD,
   CYLINDER_AXIAL_CD,
   CYLINDER_BROADSIDE_CD,
   interpolateCd,
@@ -18,6 +19,11 @@ import {
 import type { Orientation, ShapeSpec } from './shape.js';
 
 const SQUARE_PLATE_CD = interpolateCd(PLATE_NORMAL_CD, 1);
+/**
+ * Edge-first over face-on for a cube (0.80 / 1.05, Hoerner). For a box it scales the lowest face-on
+ * Cd·A, an assumption beyond the cube that errs towards the faster fall.
+ */
+export const EDGE_FIRST_FACTOR = CUBE_EDGE_FIRST_CD.cd / interpolateCd(PRISM_FACE_ON_CD, 1);
 const QUARTER_PI = Math.PI / 4;
 
 /** Cd of a blunt prism face-on: face p × q (m), depth d (m) along the flow. */
@@ -38,11 +44,11 @@ export const cylinderBroadsideCd = (length: number, diameter: number): number =>
 
 /** One principal orientation of an item: frontal area (m²), Cd and their product (m²). */
 export interface OrientationDrag {
-  readonly name: 'flat' | 'edge' | 'end' | 'broadside' | 'end-on' | 'any';
+  readonly name: 'flat' | 'edge' | 'end' | 'edge-first' | 'broadside' | 'end-on' | 'any';
   readonly frontalAreaM2: number;
   readonly cd: number;
   readonly dragAreaM2: number;
-  /** Share of this orientation in the tumbling mean (the principal axes it stands for, out of 3). */
+  /** Share of this orientation in the tumbling mean (the principal axes it stands for, out of 3; 0 for edge-first). */
   readonly tumblingWeight: number;
   /** Which Cd table the value came from. */
   readonly cdTable: string;
@@ -56,13 +62,24 @@ export interface DragBreakdown {
   readonly method: string;
 }
 
-function boxOrientations(a0: number, b0: number, c0: number): OrientationDrag[] {
+function boxOrientations(a0: number, b0: number, c0: number, withEdgeFirst: boolean): OrientationDrag[] {
   const [a, b, c] = [a0, b0, c0].sort((x, y) => y - x) as [number, number, number];
   const make = (name: OrientationDrag['name'], p: number, q: number, depth: number): OrientationDrag => {
     const cd = prismFaceOnCd(p, q, depth);
     return { name, frontalAreaM2: p * q, cd, dragAreaM2: cd * p * q, tumblingWeight: 1, cdTable: `${PRISM_FACE_ON_CD.id} × ${PLATE_NORMAL_CD.id}` };
   };
-  return [make('flat', a, b, c), make('edge', a, c, b), make('end', b, c, a)];
+  const faces = [make('flat', a, b, c), make('edge', a, c, b), make('end', b, c, a)];
+  if (!withEdgeFirst) return faces;
+  const lowest = faces.reduce((x, y) => (y.dragAreaM2 < x.dragAreaM2 ? y : x));
+  const edgeFirst: OrientationDrag = {
+    name: 'edge-first',
+    frontalAreaM2: lowest.frontalAreaM2,
+    cd: lowest.cd * EDGE_FIRST_FACTOR,
+    dragAreaM2: lowest.dragAreaM2 * EDGE_FIRST_FACTOR,
+    tumblingWeight: 0,
+    cdTable: `${lowest.cdTable} × cube edge-first / face-on`,
+  };
+  return [...faces, edgeFirst];
 }
 
 function cylinderOrientations(length: number, diameter: number): OrientationDrag[] {
@@ -78,9 +95,9 @@ function cylinderOrientations(length: number, diameter: number): OrientationDrag
 function orientationsOf(shape: ShapeSpec): OrientationDrag[] {
   switch (shape.kind) {
     case 'box':
-      return boxOrientations(shape.lengthM, shape.widthM, shape.heightM);
+      return boxOrientations(shape.lengthM, shape.widthM, shape.heightM, true);
     case 'plate':
-      return boxOrientations(shape.lengthM, shape.widthM, shape.thicknessM);
+      return boxOrientations(shape.lengthM, shape.widthM, shape.thicknessM, false);
     case 'cylinder':
     case 'rod':
       return cylinderOrientations(shape.lengthM, shape.diameterM);
@@ -111,7 +128,7 @@ const METHODS: Record<Orientation, string> = {
   tumbling: 'Tumbling: mean Cd·A over the three principal orientations (flow along each axis)',
   flat: 'Flat: largest frontal area normal to the fall',
   edge: 'Edge: the next principal orientation after flat (long edge leading; a cylinder on its rim or end-first)',
-  worst: 'Worst case: the principal orientation with the lowest Cd·A, the fastest fall',
+  worst: 'Fastest way: the lowest Cd·A of the principal orientations and, for a box, edge-first (Hoerner\'s cube ratio 0.80/1.05)',
 };
 
 /** Cd·A in m² with every principal orientation listed. Dimensions must be valid (see validateShape). */
@@ -157,6 +174,7 @@ export function dragAreaFromShape(shape: ShapeSpec): SquareMetres {
       const flat = prismFaceOnCd(a, b, c) * a * b;
       const edge = prismFaceOnCd(a, c, b) * a * c;
       const end = prismFaceOnCd(b, c, a) * b * c;
+      if (orientation === 'worst' && shape.kind === 'box') return (Math.min(flat, edge, end) * EDGE_FIRST_FACTOR) as SquareMetres;
       return choose(orientation, flat, edge, end) as SquareMetres;
     }
     case 'cylinder':

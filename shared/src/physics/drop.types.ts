@@ -1,5 +1,5 @@
 /**
- * The contract of a drop estimate (issue 3). Inputs and outputs are plain numbers in SI units, the
+ * The contract of a drop estimate. Inputs and outputs are plain numbers in SI units, the
  * unit named in each field; the branded types of ../units are for the functions underneath.
  */
 import type { Pulse, ItemHardness } from './contact.js';
@@ -77,10 +77,19 @@ export interface ResolvedDropInput {
   defaultsApplied: readonly string[];
 }
 
+/** Which impact the headline figures and the severity use. */
+export type GoverningImpact = 'still-air' | 'wind';
+
+/**
+ * The estimate. With a wind given, the item lands with a sideways speed from the wind as well as
+ * its fall, and crosswind drag also slows its fall a little: both impacts are computed and the
+ * headline figures (impact speed, energy, forces, severity) use the worse (faster) one, in line with
+ * every other worst-case default. Without wind (or without drag) the two are the same.
+ */
 export interface DropAssessment {
   /** Terminal speed in still air, m/s; Infinity when Cd·A is 0. */
   terminalVelocityMps: number;
-  /** Speed at the struck level in still air (closed form), m/s. */
+  /** Speed at the struck level of the governing impact (the higher of still air and over the ground in the wind), m/s. */
   impactVelocityMps: number;
   /** Speed at the struck level with no drag at all (the worst case), m/s. */
   vacuumImpactVelocityMps: number;
@@ -90,18 +99,29 @@ export interface DropAssessment {
   riseM: number;
   /** m v² / 2 at impactVelocityMps, J. */
   impactEnergyJ: number;
-  /** From the contact duration (m v / Δt) or stopping distance (E / d), N. */
+  /** From the contact duration (m v / Δt) or stopping distance (E / d) at impactVelocityMps, N. */
   meanForceN: number;
   /** Mean × pulse factor (rectangular 1, half-sine π/2, triangular 2), N. */
   peakForceN: number;
   /** Horizontal distance carried by the wind before the struck level, m; 0 without wind. */
   driftM: number;
+  /** 'wind' when the ground speed in the wind is the higher, else 'still-air'. */
+  governingImpact: GoverningImpact;
+  /** Speed at the struck level in still air (closed form), m/s. */
+  stillAirImpactVelocityMps: number;
+  /** m v² / 2 at the still-air speed, J. */
+  stillAirImpactEnergyJ: number;
+  /** Peak force at the still-air speed, N. */
+  stillAirPeakForceN: number;
   /**
    * Ground speed at the struck level in the wind (from the drift integration: the sideways speed
-   * the wind gave the item and its vertical speed), m/s; equal to impactVelocityMps without wind.
-   * Severity and energy use the still-air figures (see docs/physics.md, limits).
+   * the wind gave the item and its vertical speed), m/s; equal to the still-air speed without wind.
    */
   windImpactVelocityMps: number;
+  /** m v² / 2 at the ground speed in the wind, J. */
+  windImpactEnergyJ: number;
+  /** Peak force at the ground speed in the wind (same contact), N. */
+  windPeakForceN: number;
   severity: Severity;
   resolved: ResolvedDropInput;
 }

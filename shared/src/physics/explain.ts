@@ -31,14 +31,14 @@ export const DROP_FORMULAS: readonly FormulaDescription[] = [
   { id: 'force-distance', name: 'Mean force from a stopping distance', expression: 'F = E / d', appliesWhen: 'a stopping distance is given or a soft-item preset applies', source: 'Work–energy theorem' },
   { id: 'spring-contact', name: 'Contact time of a spring stop', expression: 'Δt = (π/2) √(m / k)  (peak = v √(k m) with a half-sine)', appliesWhen: 'hard item on a bare head or helmet', source: 'Linear spring, quarter period; k from Yoganandan et al. 1995 or EN 397' },
   { id: 'peak-force', name: 'Peak force', expression: 'F_peak = F_mean × (1 rectangular, π/2 half-sine, 2 triangular)', appliesWhen: 'always', source: 'Peak-to-mean ratio of the pulse shape; half-sine as in shock testing (IEC 60068-2-27)' },
-  { id: 'drift', name: 'Wind drift', expression: 'dv/dt = g ŷ − k |v − w| (v − w), integrated to the struck level', appliesWhen: 'wind speed > 0 and Cd·A > 0', source: 'Runge–Kutta 5(4), Dormand & Prince 1980, adaptive step; crossing by quintic Hermite interpolation' },
+  { id: 'drift', name: 'Wind drift and ground speed', expression: 'dv/dt = g ŷ − k |v − w| (v − w), integrated to the struck level; ground speed |v| there', appliesWhen: 'wind speed > 0 and Cd·A > 0; the faster of this impact and the still-air one governs', source: 'Runge–Kutta 5(4), Dormand & Prince 1980, adaptive step; crossing by quintic Hermite interpolation' },
 ];
 
 export const DROP_ASSUMPTIONS: readonly string[] = [
   'The item falls as a rigid body with a constant drag coefficient (subcritical Reynolds numbers); no lift from spin.',
   'Flat items can flutter, glide and swoop; their real path and speed differ from a steady fall. The tumbling average stands in for this.',
   'The item stops on impact without bouncing; a bounce would raise the impulse by up to a factor of two.',
-  'Still air for speed and time; drift assumes a steady uniform wind, no gusts, no updraughts along the facade.',
+  'Fall time in still air. With wind, the faster of the still-air impact and the impact over the ground sets the figures; drift and ground speed assume a steady uniform wind, no gusts, no updraughts along the facade.',
   'Air density and gravity at sea level unless given.',
 ];
 
@@ -51,7 +51,25 @@ export interface ExplainedInput {
   readonly source?: string;
 }
 
+/** One impact of the estimate: in still air, or over the ground with the wind. */
+export interface ExplainedImpact {
+  readonly id: 'still-air' | 'wind';
+  readonly label: string;
+  /** m/s */
+  readonly speedMps: number;
+  /** J */
+  readonly energyJ: number;
+  /** N */
+  readonly peakForceN: number;
+  /** True for the impact the headline figures and the severity use (the faster). */
+  readonly governs: boolean;
+}
+
 export interface DropExplanation {
+  /** Still air always; over the ground with the wind when a wind carried the item. */
+  readonly impacts: readonly ExplainedImpact[];
+  /** Which impact governs, in words. */
+  readonly governingReason: string;
   readonly formulas: readonly FormulaDescription[];
   readonly inputs: readonly ExplainedInput[];
   readonly assumptions: readonly string[];
@@ -92,7 +110,36 @@ export function explainDrop(estimate: DropAssessment | DropInput, options?: Asse
   if (r.contact.durationS !== undefined) inputs.push({ field: 'contact.durationS', label: 'Contact duration', value: r.contact.durationS, unit: 's', defaulted: preset !== undefined, source: preset?.source });
   if (r.contact.stoppingDistanceM !== undefined) inputs.push({ field: 'contact.stoppingDistanceM', label: 'Stopping distance', value: r.contact.stoppingDistanceM, unit: 'm', defaulted: preset !== undefined, source: preset?.source });
 
+  const withWind = assessment.driftM > 0;
+  const impacts: ExplainedImpact[] = [
+    {
+      id: 'still-air',
+      label: 'In still air',
+      speedMps: assessment.stillAirImpactVelocityMps,
+      energyJ: assessment.stillAirImpactEnergyJ,
+      peakForceN: assessment.stillAirPeakForceN,
+      governs: assessment.governingImpact === 'still-air',
+    },
+  ];
+  if (withWind) {
+    impacts.push({
+      id: 'wind',
+      label: 'Over the ground with the wind',
+      speedMps: assessment.windImpactVelocityMps,
+      energyJ: assessment.windImpactEnergyJ,
+      peakForceN: assessment.windPeakForceN,
+      governs: assessment.governingImpact === 'wind',
+    });
+  }
+  const governingReason = !withWind
+    ? 'No wind carried the item: the still-air impact is the estimate.'
+    : assessment.governingImpact === 'wind'
+      ? 'The wind adds sideways speed, so the item lands faster over the ground than in still air: that impact, the worse, sets the figures and the severity.'
+      : 'Crosswind drag slows the fall a little more than the wind adds sideways, so the still-air impact is the worse and sets the figures and the severity.';
+
   return {
+    impacts,
+    governingReason,
     formulas: DROP_FORMULAS.filter((f) => applies.has(f.id)),
     inputs,
     assumptions: DROP_ASSUMPTIONS,

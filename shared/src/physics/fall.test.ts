@@ -25,15 +25,15 @@ describe('worked values', () => {
   });
 
   it('matches the textbook form v = v_t √(1 − e^(−2gh/v_t²)) at v_t = 40 m/s, h = 20 m: 18.65 m/s', () => {
-    expect(speedFromRest(20, 40)).toBeCloseTo(18.65, 2); // textbook closed form (e.g. Taylor, Classical Mechanics §2.4), issue 3
+    expect(speedFromRest(20, 40)).toBeCloseTo(18.65, 2); // closed form of Taylor, Classical Mechanics (2005) §2.4, hand-evaluated: 40 √(1 − e^(−2 × 9.80665 × 20 / 1600))
     const dragAreaM2 = (2 * 10 * G) / (RHO * 40 * 40); // a 10 kg item with v_t = 40 m/s
     const drop = assessDrop({ massKg: 10, heightM: 20, dragAreaM2 });
     expect(drop.terminalVelocityMps).toBeCloseTo(40, 10); // v_t = √(2mg/(ρ Cd A)) by construction
     expect(drop.impactVelocityMps).toBeCloseTo(18.65, 2); // same textbook form through assessDrop
   });
 
-  it('gives v_t = √(2mg/(ρ Cd A)) and infinity without drag', () => {
-    expect(terminalVelocity(1, 0.02)).toBeCloseTo(Math.sqrt((2 * 9.80665) / (1.225 * 0.02)), 12); // definition of terminal speed
+  it('gives 1 kg with Cd·A 0.02 m² a terminal speed of 28.30 m/s, and none without drag', () => {
+    expect(terminalVelocity(1, 0.02)).toBeCloseTo(28.2939, 4); // derivation, hand-evaluated: √(2 × 9.80665 / (1.225 × 0.02)) = √800.543
     expect(terminalVelocity(1, 0)).toBe(Infinity); // no drag: no terminal speed
   });
 

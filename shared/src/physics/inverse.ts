@@ -63,26 +63,34 @@ const dragAreaOf = (c: Conditions): number =>
 
 /**
  * Height in m at which an item of `massKg` first reaches `energyJ` at the struck level, in still
- * air: 0 when it already has that energy at release; Infinity when its terminal energy
+ * air: 0 when it has that energy just below the release point; Infinity when its terminal energy
  * (m v_t² / 2) stays at or below the target.
+ *
+ * Thrown down (or released at rest), the speed rises or falls monotonically towards v_t from v0,
+ * so the energy "at release" is the release energy. Tossed up, the item first rises to its apex
+ * and passes the release level on the way down at a speed below u whenever there is drag
+ * (v_t u / √(v_t² + u²)), so the answer is the drop from rest that reaches the energy, less the
+ * rise, and 0 only when that is not positive.
  */
 export function heightForEnergy(input: HeightForEnergyInput): Metres {
   check(input as unknown as Record<string, unknown>, ['massKg', 'energyJ']);
   const g = input.gravityMps2 ?? STANDARD_GRAVITY;
   const v0 = input.initialVelocityMps ?? 0;
   const target2 = (2 * input.energyJ) / input.massKg; // speed² to reach
-  if (v0 * v0 >= target2) return 0 as Metres;
   const vt = terminalVelocity(input.massKg, dragAreaOf(input), input.airDensityKgM3 ?? ISA_SEA_LEVEL_AIR_DENSITY, g);
-  if (vt === Infinity) return ((target2 - v0 * v0) / (2 * g)) as Metres;
+  if (vt === Infinity) return (v0 * v0 >= target2 ? 0 : (target2 - v0 * v0) / (2 * g)) as Metres; // energy conservation
   const vt2 = vt * vt;
-  if (target2 >= vt2) return Infinity as Metres;
   if (v0 >= 0) {
+    if (v0 * v0 >= target2) return 0 as Metres; // already there at release (and a throw above v_t only slows to v_t)
+    if (target2 >= vt2) return Infinity as Metres;
     // v² = v_t² + (v0² − v_t²) e^(−2gh/v_t²)  ⇒  h = (v_t²/2g) ln((v_t² − v0²)/(v_t² − v²))
     return ((vt2 / (2 * g)) * Math.log1p((target2 - v0 * v0) / (vt2 - target2))) as Metres;
   }
+  if (target2 >= vt2) return Infinity as Metres;
   // Upward toss: it falls from its apex; the drop from rest that reaches the energy, less the rise.
   const fromRest = (vt2 / (2 * g)) * Math.log1p(target2 / (vt2 - target2));
-  return Math.max(0, fromRest - riseWithDrag(-v0, vt, g).riseM) as Metres;
+  const below = fromRest - riseWithDrag(-v0, vt, g).riseM;
+  return (below > 0 ? below : 0) as Metres;
 }
 
 /**

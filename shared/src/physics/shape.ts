@@ -6,7 +6,8 @@
  * - `flat`: the largest face (or the largest frontal area) normal to the fall;
  * - `edge`: a box or plate on its long edge (the middle-sized face leads); a cylinder or rod in its
  *   other principal orientation (on its rim when disc-like, end-first when long);
- * - `worst`: the principal orientation with the lowest drag, the fastest fall.
+ * - `worst`: the fastest way down: the lowest-drag principal orientation and, for a box, edge-first
+ *   (a cube falling edge- or corner-first has less drag than face-on; see CUBE_EDGE_FIRST_CD).
  */
 export type Orientation = 'tumbling' | 'flat' | 'edge' | 'worst';
 

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { assessDrop } from './assess.js';
 import type { DropInput } from './drop.types.js';
+import { PULSES } from './contact.js';
+import { ORIENTATIONS, type ShapeSpec } from './shape.js';
 import { DropInputError, firstDropInputIssue, validateDropInput } from './validation.js';
 
 const valid: DropInput = { massKg: 1, heightM: 5 };
@@ -58,22 +60,82 @@ describe('drop input validation', () => {
     expect(drop.resolved.defaultsApplied).toContain('windSpeedMps');
   });
 
-  it('never returns NaN: any input either throws DropInputError or gives finite numbers', () => {
-    const anyNumber = fc.oneof(fc.double(), fc.constant(undefined), fc.constant(0), fc.integer({ min: -5, max: 5 }));
+  it('gives finite numbers in every field for valid inputs, with a stated share reaching the drift integrator', () => {
+    let runs = 0;
+    let drifted = 0;
     fc.assert(
-      fc.property(
-        fc.record({ massKg: anyNumber, heightM: anyNumber, initialVelocityMps: anyNumber, dragAreaM2: anyNumber, windSpeedMps: anyNumber, airDensityKgM3: anyNumber }),
-        (input) => {
-          try {
-            const d = assessDrop(input as DropInput);
-            const numbers = [d.impactVelocityMps, d.vacuumImpactVelocityMps, d.fallTimeS, d.impactEnergyJ, d.meanForceN, d.peakForceN, d.driftM];
-            return numbers.every(Number.isFinite) && !Number.isNaN(d.terminalVelocityMps);
-          } catch (error) {
-            return error instanceof DropInputError;
-          }
-        },
-      ),
+      fc.property(validDropInput, (input) => {
+        const d = assessDrop(input);
+        runs++;
+        if (d.driftM > 0) drifted++;
+        for (const [field, value] of numericFields(d)) {
+          if (field === 'terminalVelocityMps' && d.resolved.dragAreaM2 === 0) expect(value).toBe(Infinity); // no drag: no terminal speed
+          else expect(Number.isFinite(value), `${field} = ${value}`).toBe(true);
+        }
+        expect(d.impactVelocityMps).toBe(Math.max(d.stillAirImpactVelocityMps, d.windImpactVelocityMps));
+      }),
       { numRuns: 500 },
+    );
+    // Half the inputs carry wind and about nine in ten of those have drag: at least a third must drift.
+    expect(drifted / runs).toBeGreaterThan(1 / 3);
+  });
+
+  it('rejects every input with one bad field by a DropInputError naming that field', () => {
+    const bad = fc.constantFrom<unknown>(Number.NaN, Infinity, -Infinity, -1, 'two', {});
+    const fields = fc.constantFrom('massKg', 'heightM', 'initialVelocityMps', 'dragAreaM2', 'airDensityKgM3', 'gravityMps2', 'windSpeedMps');
+    fc.assert(
+      fc.property(validDropInput, fields, bad, (input, field, value) => {
+        if (field === 'initialVelocityMps' && value === -1) return; // any finite release speed is valid
+        if ((field === 'dragAreaM2' || field === 'windSpeedMps') && value === -1) {
+          expect(() => assessDrop({ ...input, [field]: value })).toThrow(expect.objectContaining({ name: 'DropInputError', field, code: 'negative' }));
+          return;
+        }
+        expect(() => assessDrop({ ...input, [field]: value } as DropInput)).toThrow(expect.objectContaining({ name: 'DropInputError', field }));
+      }),
+      { numRuns: 300 },
     );
   });
 });
+
+/** Every number in an assessment, nested fields included, as [path, value]. */
+function numericFields(value: unknown, path = ''): [string, number][] {
+  if (typeof value === 'number') return [[path, value]];
+  if (typeof value !== 'object' || value === null) return [];
+  return Object.entries(value).flatMap(([key, inner]) => numericFields(inner, path ? `${path}.${key}` : key));
+}
+
+const logUniform = (min: number, max: number) => fc.double({ min: Math.log(min), max: Math.log(max), noNaN: true }).map(Math.exp);
+const size = logUniform(0.005, 2);
+const shape: fc.Arbitrary<ShapeSpec> = fc.oneof(
+  fc.record({ kind: fc.constant('box' as const), lengthM: size, widthM: size, heightM: size, orientation: fc.constantFrom(...ORIENTATIONS) }),
+  fc.record({ kind: fc.constant('plate' as const), lengthM: size, widthM: size, thicknessM: size }),
+  fc.record({ kind: fc.constant('rod' as const), lengthM: size, diameterM: size, orientation: fc.constantFrom(...ORIENTATIONS) }),
+  fc.record({ kind: fc.constant('sphere' as const), diameterM: size }),
+);
+
+/** Realistic and edge-of-range valid inputs: 1 g–1 t, 0.1 m–1 km, thrown either way, half of them in wind. */
+const validDropInput: fc.Arbitrary<DropInput> = fc
+  .record(
+    {
+      massKg: logUniform(0.001, 1000),
+      heightM: logUniform(0.1, 1000),
+      initialVelocityMps: fc.double({ min: -30, max: 30, noNaN: true }),
+      drag: fc.oneof(
+        { weight: 1, arbitrary: fc.constant({}) },
+        { weight: 4, arbitrary: logUniform(1e-5, 1).map((dragAreaM2) => ({ dragAreaM2 })) },
+        { weight: 4, arbitrary: shape.map((s) => ({ shape: s })) },
+      ),
+      windSpeedMps: fc.oneof(fc.constant(undefined), logUniform(0.5, 40)),
+      airDensityKgM3: fc.double({ min: 0.5, max: 1.5, noNaN: true }),
+      gravityMps2: fc.double({ min: 1.6, max: 25, noNaN: true }),
+      exposure: fc.constantFrom('bare-head' as const, 'helmet' as const),
+      contact: fc.oneof(
+        fc.constant(undefined),
+        fc.record({ item: fc.constantFrom('hard' as const, 'soft' as const) }),
+        fc.record({ durationS: logUniform(1e-4, 0.05), pulse: fc.constantFrom(...PULSES) }),
+        fc.record({ stoppingDistanceM: logUniform(1e-3, 0.2) }),
+      ),
+    },
+    { requiredKeys: ['massKg', 'heightM', 'drag', 'windSpeedMps'] },
+  )
+  .map(({ drag, ...rest }) => ({ ...rest, ...drag }) as DropInput);

@@ -14,14 +14,20 @@ describe('riskScore', () => {
     expect(riskScore(5, 5)).toEqual({ score: 25, band: 'High' }); // product brief: High 12–25
   });
 
-  it('puts every cell of the 5 × 5 matrix in the band whose range holds it', () => {
+  it('bands every product of the 5 × 5 matrix as the product brief lists them', () => {
+    // Product brief: Low 1–4, Medium 5–10, High 12–25 (11 cannot occur as a product of 1–5).
+    const low = [1, 2, 3, 4];
+    const medium = [5, 6, 8, 9, 10];
+    const high = [12, 15, 16, 20, 25];
     for (const s of levels) {
       for (const l of levels) {
         const { score, band } = riskScore(s as SeverityLevel, l as LikelihoodLevel);
-        const rule = RISK_BANDS.find((b) => score >= b.min && score <= b.max);
-        expect(rule?.band, `${s} × ${l}`).toBe(band);
+        expect(score).toBe(s * l);
+        const expected = low.includes(score) ? 'Low' : medium.includes(score) ? 'Medium' : high.includes(score) ? 'High' : 'none';
+        expect(band, `${s} × ${l}`).toBe(expected);
       }
     }
+    expect(RISK_BANDS.map((b) => [b.band, b.min, b.max])).toEqual([['Low', 1, 4], ['Medium', 5, 10], ['High', 12, 25]]); // product brief
   });
 
   it('rejects levels outside 1–5 with a typed error naming the field', () => {

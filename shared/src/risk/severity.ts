@@ -1,7 +1,8 @@
 /**
  * Severity 1–5 of a drop estimate from its impact energy and peak force, against a threshold table.
- * The result says in words which reference the estimate crossed. Results are frozen and cached per
- * threshold, so rating an estimate allocates nothing.
+ * The result says in words the estimate's own figure and the reference it reached. The words are
+ * put together when first read (JSON, the "how computed" sheet), so rating an estimate costs one
+ * small object and no string work.
  */
 import type { Exposure } from '../physics/exposure.js';
 import { EXPOSURES } from '../physics/exposure.js';
@@ -25,45 +26,77 @@ export class SeverityTableError extends Error {
   }
 }
 
-const crossedCache = new WeakMap<SeverityThreshold, Severity>();
-const belowCache = new WeakMap<readonly SeverityThreshold[], Severity>();
+/**
+ * Relative tolerance of every threshold comparison: a value within one part in 10⁹ below a threshold
+ * counts as reaching it, so the level never depends on the order of floating-point operations
+ * (the EN 397 striker on the helmet spring computes 4999.999999999999 N against 5,000 N).
+ */
+export const SEVERITY_RELATIVE_TOLERANCE = 1e-9;
+const REACH = 1 - SEVERITY_RELATIVE_TOLERANCE;
+
 const checkedTables = new WeakSet<SeverityTable>();
 
-function formatThreshold(t: SeverityThreshold): string {
-  return t.quantity === 'energy' ? `${t.atLeast} J` : t.atLeast >= 1000 ? `${t.atLeast / 1000} kN` : `${t.atLeast} N`;
+/** A figure as the basis quotes it: three significant figures, J, N below 1 kN, kN above. */
+function formatQuantity(quantity: 'energy' | 'force', value: number): string {
+  const three = (x: number) => String(Number(x.toPrecision(3)));
+  if (quantity === 'energy') return `${three(value)} J`;
+  return value >= 1000 ? `${three(value / 1000)} kN` : `${three(value)} N`;
 }
 
-function crossed(t: SeverityThreshold): Severity {
-  let result = crossedCache.get(t);
-  if (result === undefined) {
-    const what = t.quantity === 'energy' ? 'Impact energy' : 'Peak force';
-    result = Object.freeze({
-      level: t.level,
-      label: SEVERITY_LABELS[t.level],
-      basis: `${what} reaches ${formatThreshold(t)}, ${t.reference} (${t.source}).`,
-    });
-    crossedCache.set(t, result);
+function basisOf(
+  threshold: SeverityThreshold | undefined,
+  thresholds: readonly SeverityThreshold[],
+  exposure: Exposure,
+  energyJ: number,
+  peakForceN: number,
+): string {
+  if (threshold !== undefined) {
+    const what = threshold.quantity === 'energy' ? 'Impact energy' : 'Peak force';
+    const figure = threshold.quantity === 'energy' ? energyJ : peakForceN;
+    return `${what} ${formatQuantity(threshold.quantity, figure)} reaches ${formatQuantity(threshold.quantity, threshold.atLeast)}, ${threshold.reference} (${threshold.source}).`;
   }
-  return result;
+  const lowest = (q: 'energy' | 'force') => thresholds.filter((t) => t.quantity === q).sort((a, b) => a.atLeast - b.atLeast)[0];
+  const parts = [lowest('energy'), lowest('force')].filter((t): t is SeverityThreshold => t !== undefined);
+  const who = exposure === 'helmet' ? 'a helmeted head' : 'a bare head';
+  return (
+    `Impact energy ${formatQuantity('energy', energyJ)} and peak force ${formatQuantity('force', peakForceN)}, below every reference for ${who}` +
+    (parts.length ? `: under ${parts.map((t) => `${formatQuantity(t.quantity, t.atLeast)}, ${t.reference}`).join('; and under ')}.` : '.')
+  );
 }
 
-function below(thresholds: readonly SeverityThreshold[], exposure: Exposure): Severity {
-  let result = belowCache.get(thresholds);
-  if (result === undefined) {
-    const lowest = (q: 'energy' | 'force') =>
-      thresholds.filter((t) => t.quantity === q).sort((a, b) => a.atLeast - b.atLeast)[0];
-    const parts = [lowest('energy'), lowest('force')].filter((t): t is SeverityThreshold => t !== undefined);
-    const who = exposure === 'helmet' ? 'a helmeted head' : 'a bare head';
-    result = Object.freeze({
-      level: 1,
-      label: SEVERITY_LABELS[1],
-      basis:
-        `Below every reference for ${who}` +
-        (parts.length ? `: under ${parts.map((t) => `${formatThreshold(t)}, ${t.reference}`).join('; and under ')}.` : '.'),
-    });
-    belowCache.set(thresholds, result);
+/**
+ * A rating: level and label at once, the basis in words when first read. JSON carries the three
+ * fields (toJSON); code that copies a rating field by field reads `basis` like any property.
+ */
+class RatedSeverity implements Severity {
+  readonly level: SeverityLevel;
+  readonly label: string;
+  private words: string | undefined;
+
+  constructor(
+    private readonly threshold: SeverityThreshold | undefined,
+    private readonly thresholds: readonly SeverityThreshold[],
+    private readonly exposure: Exposure,
+    private readonly energyJ: number,
+    private readonly peakForceN: number,
+  ) {
+    this.level = threshold === undefined ? 1 : threshold.level;
+    this.label = SEVERITY_LABELS[this.level];
+    this.words = undefined;
   }
-  return result;
+
+  get basis(): string {
+    return (this.words ??= basisOf(this.threshold, this.thresholds, this.exposure, this.energyJ, this.peakForceN));
+  }
+
+  toJSON(): { level: SeverityLevel; label: string; basis: string } {
+    return { level: this.level, label: this.label, basis: this.basis };
+  }
+}
+
+/** A plain copy of a rating (level, label, basis), for storage that keeps own data properties only. */
+export function plainSeverity(severity: Severity): Severity {
+  return { level: severity.level, label: severity.label, basis: severity.basis };
 }
 
 /** Checks an organisation's table once (levels 2–5, positive finite thresholds, a source on each). */
@@ -88,7 +121,9 @@ export function validateSeverityTable(table: SeverityTable): void {
 
 /**
  * Severity of an impact of `energyJ` joules and `peakForceN` newtons on `exposure`. The highest
- * level whose energy or force threshold is reached wins; on a tie the rule listed first is named.
+ * level whose energy or force threshold is reached (within SEVERITY_RELATIVE_TOLERANCE) wins; on a
+ * tie the rule listed first is named. The basis quotes the estimate's own figure (three significant
+ * figures), then the threshold it reaches.
  */
 export function rateSeverity(
   energyJ: number,
@@ -96,35 +131,12 @@ export function rateSeverity(
   exposure: Exposure,
   table: SeverityTable = DEFAULT_SEVERITY_TABLE,
 ): Severity {
-  const isDefault = table === DEFAULT_SEVERITY_TABLE;
-  if (!isDefault) validateSeverityTable(table);
+  if (table !== DEFAULT_SEVERITY_TABLE) validateSeverityTable(table);
   const thresholds = table[exposure];
-  let best = -1;
-  let bestLevel = 0;
+  let best: SeverityThreshold | undefined;
   for (let i = 0; i < thresholds.length; i++) {
     const t = thresholds[i]!;
-    const value = t.quantity === 'energy' ? energyJ : peakForceN;
-    if (value >= t.atLeast && t.level > bestLevel) {
-      best = i;
-      bestLevel = t.level;
-    }
+    if ((t.quantity === 'energy' ? energyJ : peakForceN) >= t.atLeast * REACH && (best === undefined || t.level > best.level)) best = t;
   }
-  if (isDefault) {
-    // The default table's results are built once, so the hot path does no map lookup.
-    const results = exposure === 'helmet' ? DEFAULT_HELMET_RESULTS : DEFAULT_BARE_HEAD_RESULTS;
-    return best < 0 ? results.below : results.crossed[best]!;
-  }
-  return best < 0 ? below(thresholds, exposure) : crossed(thresholds[best]!);
+  return new RatedSeverity(best, thresholds, exposure, energyJ, peakForceN);
 }
-
-interface PrecomputedResults {
-  readonly crossed: readonly Severity[];
-  readonly below: Severity;
-}
-
-const precompute = (exposure: Exposure): PrecomputedResults => ({
-  crossed: DEFAULT_SEVERITY_TABLE[exposure].map(crossed),
-  below: below(DEFAULT_SEVERITY_TABLE[exposure], exposure),
-});
-const DEFAULT_BARE_HEAD_RESULTS = precompute('bare-head');
-const DEFAULT_HELMET_RESULTS = precompute('helmet');

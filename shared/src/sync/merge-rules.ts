@@ -1,5 +1,5 @@
 /**
- * The pure rules of sync (issue 6), shared by the server and the tests: how a batch's mutation ids
+ * The pure rules of sync, shared by the server and the tests: how a batch's mutation ids
  * line up with what the server applied, how field patches merge, when a replaced value becomes a
  * conflict, how a state command resolves, and what settling a conflict writes.
  */

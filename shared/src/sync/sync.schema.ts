@@ -1,5 +1,5 @@
 /**
- * The sync protocol (issue 6): a phone pushes batches of mutations with per-client increasing ids
+ * The sync protocol: a phone pushes batches of mutations with per-client increasing ids
  * and pulls changes after a server-side cursor. One schema per API shape; the server wraps them,
  * the phone parses answers with them.
  */

@@ -68,6 +68,13 @@ export function EstimatePanel({ result, waitingFor, windSpeedMps, units, onExpla
         </div>
       </dl>
       <p className="estimate-panel__basis">{e.severity.basis}</p>
+      {e.driftM > 0 && (
+        <p className="estimate-panel__basis" data-testid="estimate-impacts" data-governing={e.governingImpact}>
+          {e.governingImpact === 'wind' ? 'Figures for the landing over the ground with the wind, the faster: ' : 'Figures for the landing in still air, the faster: '}
+          still air {formatQuantity('speed', e.stillAirImpactVelocityMps, units)}, {formatQuantity('energy', e.stillAirImpactEnergyJ, units)}; with the wind{' '}
+          {formatQuantity('speed', e.windImpactVelocityMps, units)}, {formatQuantity('energy', e.windImpactEnergyJ, units)}.
+        </p>
+      )}
       <p className="estimate-panel__basis">
         Worst case with no air at all: {formatQuantity('speed', e.vacuumImpactVelocityMps, units)}. Fall time {formatQuantity('time', e.fallTimeS, units)}.
       </p>

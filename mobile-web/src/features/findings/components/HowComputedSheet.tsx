@@ -36,6 +36,31 @@ export function HowComputedSheet({ isOpen, onClose, input, result }: HowComputed
         {explanation && result && (
           <div className="how-computed">
             <p>All in SI units, as computed on this phone with the same code the server uses.</p>
+            <h2>Impact</h2>
+            <table className="how-computed__inputs how-computed__impacts" data-testid="how-computed-impacts">
+              <thead>
+                <tr>
+                  <th scope="col">Where it lands</th>
+                  <th scope="col">Speed</th>
+                  <th scope="col">Energy</th>
+                  <th scope="col">Peak force</th>
+                </tr>
+              </thead>
+              <tbody>
+                {explanation.impacts.map((impact) => (
+                  <tr key={impact.id} data-testid={`impact-${impact.id}`} data-governs={impact.governs}>
+                    <th scope="row">
+                      {impact.label}
+                      {impact.governs && <span className="how-computed__governs">sets the estimate</span>}
+                    </th>
+                    <td>{formatNumber(impact.speedMps)} m/s</td>
+                    <td>{formatNumber(impact.energyJ)} J</td>
+                    <td>{formatNumber(impact.peakForceN)} N</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <p>{explanation.governingReason}</p>
             <h2>Inputs</h2>
             <table className="how-computed__inputs">
               <tbody>
