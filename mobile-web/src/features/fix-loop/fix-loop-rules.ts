@@ -2,7 +2,7 @@
  * The fix loop's rules on the phone, as pure functions over what Dexie holds: who sees which
  * finding, in which order, when it is due, and whether a proof photo is needed.
  */
-import { describeDue, fixDueAt, type DueWords, type OrganisationSettings } from '@plummet/shared';
+import { describeDue, fixDueAt, type DueWords, type FindingControl, type OrganisationSettings } from '@plummet/shared';
 import type { PlummetDb } from '../../local-db/db';
 import type { FindingRecord, FixRecord, ScaffoldRecord } from '../../local-db/records';
 
@@ -88,4 +88,19 @@ export function buildToVerify(findings: readonly FindingRecord[], fixes: readonl
 export async function latestFix(database: PlummetDb, findingId: string): Promise<FixRecord | undefined> {
   const fixes = await database.fixes.where('findingId').equals(findingId).sortBy('fixedAt');
   return fixes.at(-1);
+}
+
+/**
+ * Controls worth considering for a finding, best first along the usual hierarchy (remove, lower,
+ * secure, contain, keep people away); common practice, no source. Alterations come last: they are
+ * the scaffold contractor's work.
+ */
+export function suggestControls(finding: Pick<FindingRecord, 'exposure' | 'likelihoodAnswers'>): FindingControl[] {
+  const { securing, edgeDistance } = finding.likelihoodAnswers;
+  const out: FindingControl[] = ['remove', 'lower'];
+  if (securing !== 'secured') out.push('tether');
+  if (edgeDistance !== 'away') out.push('move-back');
+  if (finding.exposure !== 'zone-closed') out.push('close-zone');
+  if (edgeDistance === 'at-edge') out.push('fit-toe-board', 'fit-brick-guard', 'fit-netting');
+  return out;
 }
