@@ -69,7 +69,7 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
     }
     const built = buildFindingRecord(owner, form, reading.item, reading.input, result, existing, new Date());
     const finding = { ...built, assigneeId: assigneeId || null, handBack: assigneeId && assigneeId !== existing?.assigneeId ? null : built.handBack };
-    if (finding.state === 'open' && mustBeMadeSafeNow(finding.riskBand, finding.exposure) && !askedToMakeSafe) {
+    if (!existing && finding.state === 'open' && mustBeMadeSafeNow(finding.riskBand, finding.exposure) && !askedToMakeSafe) {
       setAskedToMakeSafe(true);
       return;
     }
