@@ -192,7 +192,7 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
                 <IonButton onClick={() => patch({ madeSafe: true })} data-testid="make-safe-prompt-yes">
                   Record it made safe
                 </IonButton>
-                <IonButton fill="outline" onClick={submit} data-testid="make-safe-prompt-later">
+                <IonButton fill="outline" disabled={save.isPending} onClick={submit} data-testid="make-safe-prompt-later">
                   Save, still open
                 </IonButton>
               </div>
