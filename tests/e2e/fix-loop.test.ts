@@ -258,6 +258,52 @@ describe('the fix loop across two phones with no signal in between', () => {
     expect(photo.status).toBe(200);
   });
 
+  it('works on the phones with what the server already sends: the seeded fix list, a fix offline, the to-verify list', async () => {
+    if (!foreman) {
+      foreman = await foremanPhone.context.newPage();
+      foreman.on('pageerror', (error) => pageErrors.push(error.message));
+      await signIn(foreman, server.url, 'foreman@demo.test');
+    }
+    await syncNow(foreman, server.url);
+    await foreman.goto(`${server.url}/fix-list`);
+    // The seeded podger is assigned to this foreman and four hours past due: overdue in words.
+    const podger = onScreen(foreman, 'fix-row').filter({ hasText: 'Podger left on the toe board' });
+    await podger.waitFor({ timeout: 30_000 });
+    expect(await podger.innerText()).toMatch(/High risk \d+[\s\S]*Overdue by [45] h[\s\S]*North · lift 6 · bay 3/);
+    expect(await onScreen(foreman, 'fix-list-overdue').innerText()).toMatch(/^[1-9]\d* overdue$/);
+    if (!serverHasFixLoop) await screenshotBoth(foreman, 'foreman-fix-list');
+
+    await setOffline(foreman, foremanPhone.context, true);
+    await podger.click();
+    await onScreen(foreman, 'fix-page').waitFor();
+    await onScreen(foreman, 'elevation-grid').or(foreman.getByText('The scaffold’s drawing is not on this phone yet')).first().waitFor();
+    await onScreen(foreman, 'action-fixed').click();
+    await onScreen(foreman, 'fix-control').selectOption('tether');
+    await typeInto(foreman, 'fix-note', 'Podger tied to the ledger with a tool lanyard');
+    await attachPhoto(foreman, 'fix-photos-input', await cameraJpeg({ r: 200, g: 160, b: 40 }));
+    await onScreen(foreman, 'fix-photos').getByTestId('photo-thumb').waitFor();
+    if (!serverHasFixLoop) await screenshotBoth(foreman, 'foreman-fix');
+    await onScreen(foreman, 'fix-submit').click();
+    await onScreen(foreman, 'fix-done').waitFor();
+    expect(await onScreen(foreman, 'finding-state').innerText()).toBe('Fixed, waiting to be verified');
+    const fixes = await readTable<{ fixedBy: string; control: string; photoIds: string[] }>(foreman, 'fixes');
+    expect(fixes.at(-1)).toMatchObject({ control: 'tether', photoIds: [expect.any(String)] });
+    await foreman.goto(`${server.url}/shift`);
+    await onScreen(foreman, 'shift-page').waitFor();
+    await setOffline(foreman, foremanPhone.context, false);
+
+    if (!inspector) {
+      inspector = await inspectorPhone.context.newPage();
+      await signIn(inspector, server.url, 'inspector@demo.test');
+    }
+    await syncNow(inspector, server.url);
+    await inspector.goto(`${server.url}/to-verify`);
+    await onScreen(inspector, 'verify-row').first().waitFor({ timeout: 30_000 });
+    const names = await onScreen(inspector, 'verify-row').allInnerTexts();
+    expect(names.some((text) => /Tube offcut|Cement bag|offcut|bag/i.test(text))).toBe(true);
+    if (!serverHasFixLoop) await screenshotBoth(inspector, 'inspector-to-verify');
+  });
+
   it('refuses, in the app, a verification by whoever marked the finding fixed', async () => {
     const findings = await readTable<{ id: string; notes: string }>(inspector, 'findings');
     const timber = findings.find((f) => f.notes === 'Timber offcuts by the brick guard')!;

@@ -1,5 +1,6 @@
 import { DEFAULT_ORGANISATION_SETTINGS, readOrganisationSettings, type OrganisationSettings } from '@plummet/shared';
 import { useLiveQuery } from 'dexie-react-hooks';
+import { useMemo } from 'react';
 import { db, readMeta } from '../../local-db/db';
 import type { FindingRecord, FixRecord, ScaffoldRecord, SiteRecord, VerificationRecord } from '../../local-db/records';
 import { buildFixList, buildToVerify, type FixListEntry, type ToVerifyEntry } from './fix-loop-rules';
@@ -10,7 +11,8 @@ export const ORGANISATION_SETTINGS_META_KEY = 'organisationSettings';
 /** The organisation's settings as last synced, or the defaults (common practice, no source) before then. */
 export function useOrganisationSettings(): OrganisationSettings {
   const stored = useLiveQuery(() => readMeta<unknown>(db, ORGANISATION_SETTINGS_META_KEY), []);
-  return stored === undefined ? DEFAULT_ORGANISATION_SETTINGS : readOrganisationSettings(stored);
+  // One object per stored value: the lists below re-query when it changes, not on every render.
+  return useMemo(() => (stored === undefined ? DEFAULT_ORGANISATION_SETTINGS : readOrganisationSettings(stored)), [stored]);
 }
 
 async function scaffoldsById(): Promise<Map<string, ScaffoldRecord>> {
