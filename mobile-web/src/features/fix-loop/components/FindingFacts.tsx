@@ -15,13 +15,15 @@ interface FindingFactsProps {
   site: SiteRecord | undefined;
   scaffold: ScaffoldRecord | undefined;
   assignee: Foreman | undefined;
+  /** The signed-in user: a finding given to them reads "You". */
+  selfId: string;
   units: Units;
 }
 
 const STATE_WORDS: Record<FindingRecord['state'], string> = { open: 'Open', 'made-safe': 'Made safe for now', fixed: 'Fixed, waiting to be verified', verified: 'Verified' };
 
 /** What the finding is, where, how bad, when due, the inspector's note and the estimate (with its caution). */
-export function FindingFacts({ entry, site, assignee, units }: FindingFactsProps) {
+export function FindingFacts({ entry, site, assignee, selfId, units }: FindingFactsProps) {
   const { finding } = entry;
   const estimate = finding.estimate;
   return (
@@ -47,7 +49,9 @@ export function FindingFacts({ entry, site, assignee, units }: FindingFactsProps
         <dd>{finding.notes || '—'}</dd>
         <dt>Given to</dt>
         <dd data-testid="finding-assignee">
-          {assignee ? (
+          {entry.finding.assigneeId === selfId ? (
+            'You'
+          ) : assignee ? (
             <>
               {assignee.name}
               {assignee.phone && (

@@ -97,7 +97,7 @@ export function FixPage() {
       <IonContent className="ion-padding" data-testid="fix-page">
         <div className="page-body fix-page__columns">
           <div>
-            <FindingFacts entry={entry} site={sites?.get(finding.siteId)} scaffold={scaffold ?? undefined} assignee={assignee} units={units} />
+            <FindingFacts entry={entry} site={sites?.get(finding.siteId)} scaffold={scaffold ?? undefined} assignee={assignee} selfId={session.user.id} units={units} />
             {lastReopen && finding.state === 'open' && (
               <p className="fix-notice" role="note" data-testid="reopen-reason">
                 Reopened {formatDateTime(lastReopen.verifiedAt)}: {lastReopen.note}
