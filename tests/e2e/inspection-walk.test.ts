@@ -2,7 +2,7 @@ import sharp from 'sharp';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { choose, onScreen, readTable, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, readTable, saveFinding, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** A camera-sized JPEG (2400 × 1800, larger than the phone keeps) with some structure in it. */
@@ -128,7 +128,7 @@ describe('the inspector’s walk with no signal', () => {
     await page.screenshot({ path: artifactPath('how-computed.png') });
     await sheet.getByRole('button', { name: 'Close' }).click();
     await sheet.waitFor({ state: 'hidden' });
-    await onScreen(page, 'save-finding').click();
+    await saveFinding(page);
     await onScreen(page, 'inspection-page').waitFor();
 
     // Finding 2: described by hand, measured height, made safe now, with a photo; the estimate follows typing.
@@ -148,14 +148,14 @@ describe('the inspector’s walk with no signal', () => {
     await onScreen(page, 'finding-photos').getByTestId('photo-thumb').waitFor();
     await onScreen(page, 'made-safe').check();
     await typeInto(page, 'made-safe-note', 'Bagged and lowered to the ground');
-    await onScreen(page, 'save-finding').click();
+    await saveFinding(page);
     await onScreen(page, 'inspection-page').waitFor();
 
     // Finding 3: a catalogue item, no photo.
     await addFindingAt(page, 6, 10);
     await pickCatalogueItem(page, 'coupler');
     await choose(page, 'exposure', 'hard-hats');
-    await onScreen(page, 'save-finding').click();
+    await saveFinding(page);
     await onScreen(page, 'inspection-page').waitFor();
 
     // The seven control checks; toe boards fail, with a note and a photo.

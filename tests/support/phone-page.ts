@@ -46,3 +46,24 @@ export async function readTable<T = Record<string, unknown>>(page: Page, table: 
     table,
   );
 }
+
+/**
+ * Saves the finding editor. A High finding with people below makes the app ask for it to be made
+ * safe before leaving the bay; `whenAsked` says what to answer ('later' saves it still open).
+ * Resolves once the editor has closed.
+ */
+export async function saveFinding(page: Page, whenAsked: 'later' | 'fail' = 'later'): Promise<boolean> {
+  await onScreen(page, 'save-finding').click();
+  const later = onScreen(page, 'make-safe-prompt-later');
+  const editor = onScreen(page, 'finding-editor');
+  for (;;) {
+    if ((await later.count()) > 0) {
+      if (whenAsked === 'fail') throw new Error('The app asked to make the finding safe first');
+      await later.click();
+      await editor.waitFor({ state: 'detached', timeout: 15_000 }).catch(() => editor.waitFor({ state: 'hidden', timeout: 15_000 }));
+      return true;
+    }
+    if ((await editor.count()) === 0) return false;
+    await page.waitForTimeout(50);
+  }
+}

@@ -7,16 +7,20 @@ import {
   CalculatorPage,
   FindingEditorPage,
   FindingListPage,
+  FixListPage,
+  FixPage,
   HomePage,
   InspectionFinishPage,
   InspectionPage,
   Lazy,
   ScaffoldPage,
   SettingsPage,
+  ShiftPage,
   SyncRunner,
   SignInPage,
   SitePage,
   SyncStatusPage,
+  ToVerifyPage,
 } from './lazy-pages';
 import { MutationErrorToasts } from './MutationErrorToasts';
 import { queryClient } from './query-client';
@@ -41,6 +45,10 @@ export function App() {
               <Route path="/calculator" element={<Lazy page={CalculatorPage} />} />
               <Route path="/settings" element={<Lazy page={SettingsPage} />} />
               <Route path="/sync" element={<Lazy page={SyncStatusPage} />} />
+              <Route path="/fix-list" element={<Lazy page={FixListPage} />} />
+              <Route path="/fix-list/:findingId" element={<Lazy page={FixPage} />} />
+              <Route path="/shift" element={<Lazy page={ShiftPage} />} />
+              <Route path="/to-verify" element={<Lazy page={ToVerifyPage} />} />
               <Route path="*" element={<Navigate to="/" replace />} />
             </Routes>
           </IonRouterOutlet>

@@ -20,6 +20,10 @@ export const FindingEditorPage = page(() => import('../features/findings/pages/F
 export const CalculatorPage = page(() => import('../features/calculator/pages/CalculatorPage'), 'CalculatorPage');
 export const SettingsPage = page(() => import('../features/settings/pages/SettingsPage'), 'SettingsPage');
 export const SyncStatusPage = page(() => import('../features/sync/pages/SyncStatusPage'), 'SyncStatusPage');
+export const FixListPage = page(() => import('../features/fix-loop/pages/FixListPage'), 'FixListPage');
+export const FixPage = page(() => import('../features/fix-loop/pages/FixPage'), 'FixPage');
+export const ShiftPage = page(() => import('../features/fix-loop/pages/ShiftPage'), 'ShiftPage');
+export const ToVerifyPage = page(() => import('../features/fix-loop/pages/ToVerifyPage'), 'ToVerifyPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
 

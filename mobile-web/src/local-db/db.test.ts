@@ -1,4 +1,5 @@
 import 'fake-indexeddb/auto';
+import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
 import { PlummetDb, readMeta, writeMeta } from './db';
 import type { OutboxEntry } from './records';
@@ -43,21 +44,48 @@ function catalogueItem(id: string, name: string) {
 }
 
 describe('PlummetDb', () => {
-  it('opens at version 1 with every table the app needs', async () => {
+  it('opens at version 2 with every table the app needs', async () => {
     const database = freshDb();
     await database.open();
-    expect(database.verno).toBe(1);
+    expect(database.verno).toBe(2);
     expect(database.tables.map((table) => table.name).sort()).toEqual([
       'catalogue',
       'controlChecks',
       'findings',
+      'fixes',
       'inspections',
       'meta',
       'outbox',
       'photos',
       'scaffolds',
       'sites',
+      'verifications',
     ]);
+  });
+
+  it('upgrades a phone still on version 1 without losing its findings or waiting changes', async () => {
+    const name = `plummet-test-${crypto.randomUUID()}`;
+    const old = new Dexie(name);
+    old.version(1).stores({
+      sites: 'id, organisationId, updatedAt',
+      scaffolds: 'id, siteId, updatedAt',
+      inspections: 'id, scaffoldId, siteId, status, startedAt, updatedAt',
+      findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state]',
+      controlChecks: 'id, inspectionId, [inspectionId+control]',
+      photos: 'id, [ownerType+ownerId], uploadedAt',
+      catalogue: 'id, category, *words',
+      outbox: '++id, [entity+entityId], createdAt',
+      meta: 'key',
+    });
+    await old.table('findings').put({ ...finding, assigneeId: 'foreman-1' });
+    await old.table('outbox').add(outboxEntry());
+    old.close();
+
+    const upgraded = new PlummetDb(name);
+    openDbs.push(upgraded);
+    expect(await upgraded.findings.where('assigneeId').equals('foreman-1').count()).toBe(1);
+    expect(await upgraded.outbox.count()).toBe(1);
+    expect(await upgraded.fixes.count()).toBe(0);
   });
 
   it('reads back a finding written to it, also after closing and reopening', async () => {

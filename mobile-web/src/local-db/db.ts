@@ -3,12 +3,14 @@ import type {
   CatalogueItemRecord,
   ControlCheckRecord,
   FindingRecord,
+  FixRecord,
   InspectionRecord,
   MetaEntry,
   OutboxEntry,
   PhotoRecord,
   ScaffoldRecord,
   SiteRecord,
+  VerificationRecord,
 } from './records';
 
 export const DB_NAME = 'plummet';
@@ -31,6 +33,8 @@ export class PlummetDb extends Dexie {
   catalogue!: EntityTable<CatalogueItemRecord, 'id'>;
   outbox!: EntityTable<OutboxEntry, 'id'>;
   meta!: EntityTable<MetaEntry, 'key'>;
+  fixes!: EntityTable<FixRecord, 'id'>;
+  verifications!: EntityTable<VerificationRecord, 'id'>;
 
   constructor(name: string = DB_NAME) {
     super(name);
@@ -47,6 +51,17 @@ export class PlummetDb extends Dexie {
       outbox: '++id, [entity+entityId], createdAt',
       meta: 'key',
     });
+
+    // Version 2: the fix loop. Fixes and verifications of findings (who fixed decides who may
+    // verify), and an index to find a foreman's assigned findings. Nothing to convert: the new
+    // tables start empty and the feed fills them.
+    this.version(2)
+      .stores({
+        fixes: 'id, findingId, fixedAt',
+        verifications: 'id, findingId, verifiedAt',
+        findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state], assigneeId',
+      })
+      .upgrade(() => undefined);
   }
 }
 
@@ -65,6 +80,8 @@ export function userDataTables(database: PlummetDb) {
     database.catalogue,
     database.outbox,
     database.meta,
+    database.fixes,
+    database.verifications,
   ];
 }
 

@@ -7,8 +7,11 @@ import type {
   CatalogueItem,
   ControlCheck,
   Finding,
+  FindingAssign,
   FindingCreate,
+  FindingHandBackInput,
   FindingStateChangeInput,
+  Fix,
   FindingUpdate,
   Inspection,
   InspectionCreate,
@@ -19,6 +22,7 @@ import type {
   Site,
   UserProfileUpdate,
   ControlCheckPut,
+  Verification,
 } from '@plummet/shared';
 
 /** ISO 8601 date-time string, e.g. 2026-03-01T08:30:00.000Z. */
@@ -51,6 +55,12 @@ export type FindingState = Finding['state'];
 export interface FindingRecord extends Finding, SyncedRecord {
   siteId: string;
 }
+
+/** A fix as recorded (made on this phone, or from the change feed). `fixedBy` decides who may verify it. */
+export type FixRecord = Fix;
+
+/** A verification or reopening of a fixed finding. */
+export type VerificationRecord = Verification;
 
 export type ControlOutcome = ControlCheck['result'];
 
@@ -91,6 +101,8 @@ export type OutboxChange =
   | { entity: 'finding'; action: 'create'; payload: FindingCreate }
   | { entity: 'finding'; action: 'update'; payload: FindingUpdate }
   | { entity: 'finding'; action: 'state'; payload: FindingStateChangeInput }
+  | { entity: 'finding'; action: 'assign'; payload: FindingAssign }
+  | { entity: 'finding'; action: 'hand-back'; payload: FindingHandBackInput }
   | { entity: 'photo'; action: 'upload'; payload: { id: string; ownerType: PhotoOwnerType; ownerId: string; takenAt?: IsoDateTime } }
   | { entity: 'user'; action: 'update'; payload: UserProfileUpdate };
 

@@ -6,6 +6,8 @@ import { useSyncExternalStore } from 'react';
 import { fetchWithAccessToken } from '../api/authorised-fetch';
 import { db } from '../local-db/db';
 import { backoffMs } from '@plummet/shared';
+import { readSession } from '../features/auth/session.store';
+import { downloadForemen } from './download-foremen';
 import { SyncEngine, type SyncRunOutcome } from './sync-engine';
 import { httpSyncTransport } from './sync-transport';
 import { startSyncTriggers } from './sync-triggers';
@@ -28,7 +30,8 @@ const notify = () => listeners.forEach((listener) => listener());
 export function startAppSync(userId: string): SyncEngine {
   if (running?.userId === userId) return running.engine;
   void stopAppSync();
-  const engine = new SyncEngine(db, httpSyncTransport(fetchWithAccessToken(db)));
+  const authorised = fetchWithAccessToken(db);
+  const engine = new SyncEngine(db, httpSyncTransport(authorised));
   let retry: ReturnType<typeof setTimeout> | undefined;
   let failures = 0;
   const networkDown = () => typeof navigator !== 'undefined' && navigator.onLine === false;
@@ -39,6 +42,10 @@ export function startAppSync(userId: string): SyncEngine {
     if (networkDown()) return 'offline';
     const outcome = await engine.sync();
     failures = outcome === 'offline' ? failures + 1 : 0;
+    if (outcome === 'done') {
+      const role = (await readSession(db))?.user.role;
+      if (role) await downloadForemen(db, authorised, role);
+    }
     if (outcome === 'offline' && running?.engine === engine && !networkDown()) retry = setTimeout(() => void run(), backoffMs(failures, Math.random()));
     return outcome;
   };

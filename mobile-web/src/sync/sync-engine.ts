@@ -30,7 +30,7 @@ export interface SyncEngineOptions {
 
 export type SyncRunOutcome = 'done' | 'offline' | 'error';
 
-type PushableEntry = OutboxEntry & { entity: 'finding'; action: 'create' | 'update' | 'state' };
+type PushableEntry = OutboxEntry & { entity: 'finding'; action: 'create' | 'update' | 'state' | 'assign' | 'hand-back' };
 
 const pushable = (entry: OutboxEntry): entry is PushableEntry => entry.entity === 'finding';
 

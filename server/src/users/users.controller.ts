@@ -1,9 +1,9 @@
 import { Body, Controller, Get, Param, Patch, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { Member, MemberListResponse, UserProfile } from '@plummet/shared';
+import type { ForemanListResponse, Member, MemberListResponse, UserProfile } from '@plummet/shared';
 import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
-import { MemberDto, MemberListResponseDto, MemberListQueryDto, MemberUpdateDto, UserProfileDto, UserProfileUpdateDto } from './users.dto.js';
+import { ForemanListResponseDto, MemberDto, MemberListResponseDto, MemberListQueryDto, MemberUpdateDto, UserProfileDto, UserProfileUpdateDto } from './users.dto.js';
 import { UsersService } from './users.service.js';
 
 @ApiTags('users')
@@ -23,6 +23,14 @@ export class UsersController {
   @ApiOkResponse({ type: UserProfileDto.Output })
   updateMe(@CurrentUser() caller: AuthUser, @Body() body: UserProfileUpdateDto): Promise<UserProfile> {
     return this.users.updateMe(caller, body);
+  }
+
+  /** Who a finding can be handed to: inspectors and managers assign, admins manage. */
+  @Get('foremen')
+  @Roles('inspector', 'manager', 'admin')
+  @ApiOkResponse({ type: ForemanListResponseDto.Output })
+  foremen(@CurrentUser() caller: AuthUser): Promise<ForemanListResponse> {
+    return this.users.foremen(caller);
   }
 
   @Get()

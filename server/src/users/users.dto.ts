@@ -1,4 +1,4 @@
-import { MemberListQuerySchema, MemberListResponseSchema, MemberSchema, MemberUpdateSchema, UserProfileSchema, UserProfileUpdateSchema } from '@plummet/shared';
+import { ForemanListResponseSchema, MemberListQuerySchema, MemberListResponseSchema, MemberSchema, MemberUpdateSchema, UserProfileSchema, UserProfileUpdateSchema } from '@plummet/shared';
 import { createZodDto } from 'nestjs-zod';
 
 export class UserProfileDto extends createZodDto(UserProfileSchema) {}
@@ -7,3 +7,4 @@ export class MemberDto extends createZodDto(MemberSchema) {}
 export class MemberListResponseDto extends createZodDto(MemberListResponseSchema) {}
 export class MemberListQueryDto extends createZodDto(MemberListQuerySchema) {}
 export class MemberUpdateDto extends createZodDto(MemberUpdateSchema) {}
+export class ForemanListResponseDto extends createZodDto(ForemanListResponseSchema) {}

@@ -47,6 +47,14 @@ describe('users: profile, members and roles against the real PostgreSQL', () => 
           for (const m of list.body.items) expect(m.email.endsWith(domain)).toBe(true);
         } else expect(list.body.code).toBe('FORBIDDEN');
 
+        const foremen = await call('GET', '/users/foremen', token);
+        expect(foremen.status).toBe(u.role === 'foreman' ? 403 : 200);
+        if (u.role !== 'foreman') {
+          expect(foremen.body.items.map((f: { id: string }) => f.id)).toContain(ids[ownForeman]);
+          expect(foremen.body.items.map((f: { id: string }) => f.id)).not.toContain(ids[otherForeman]);
+          expect(foremen.body.items[0]).toEqual({ id: expect.any(String), name: expect.any(String), position: expect.any(String), phone: null });
+        }
+
         const invite = await call('POST', '/users/invitations', token, { email: `matrix.${u.role}.${u.org}@${u.org}.test`, name: 'Matrix Person', role: 'inspector' });
         expect(invite.status).toBe(isAdmin ? 201 : 403);
 
@@ -62,7 +70,7 @@ describe('users: profile, members and roles against the real PostgreSQL', () => 
     }
 
     it('answers 401 on every route without an access token', async () => {
-      for (const [method, path] of [['GET', '/users/me'], ['PATCH', '/users/me'], ['GET', '/users'], ['POST', '/users/invitations'], ['PATCH', `/users/${ids['foreman@demo.test']}`], ['GET', '/mail'], ['GET', '/mail/x.eml']]) {
+      for (const [method, path] of [['GET', '/users/me'], ['PATCH', '/users/me'], ['GET', '/users'], ['GET', '/users/foremen'], ['POST', '/users/invitations'], ['PATCH', `/users/${ids['foreman@demo.test']}`], ['GET', '/mail'], ['GET', '/mail/x.eml']]) {
         const res = await api(t.baseUrl, method, path, { body: method === 'GET' ? undefined : {} });
         expect(res.status, `${method} ${path}`).toBe(401);
       }

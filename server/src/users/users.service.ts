@@ -1,4 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
+import { MemberListQuerySchema, type ForemanListResponse } from '@plummet/shared';
 import type { Member, MemberListQuery, MemberListResponse, MemberUpdate, UserProfile, UserProfileUpdate } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
@@ -48,6 +49,15 @@ export class UsersService {
   async list(caller: AuthUser, query: MemberListQuery): Promise<MemberListResponse> {
     const rows = await this.users.listMembers(caller.organisationId, query);
     return toPage(rows, query, toMember);
+  }
+
+  /**
+   * The organisation's active foremen (at most 200, by name), so an inspector or manager can hand a
+   * finding to one. Phone numbers are not kept yet, so `phone` is null.
+   */
+  async foremen(caller: AuthUser): Promise<ForemanListResponse> {
+    const rows = await this.users.listMembers(caller.organisationId, MemberListQuerySchema.parse({ role: 'foreman', limit: 200 }));
+    return { items: rows.filter((row) => row.active).map((row) => ({ id: row.id, name: row.name, position: row.position, phone: null })) };
   }
 
   /** Role and active flag of a member of the admin's own organisation; admins cannot lock themselves out. */

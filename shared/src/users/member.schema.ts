@@ -45,3 +45,17 @@ export const MemberUpdateSchema = z
   })
   .refine((v) => v.role !== undefined || v.active !== undefined, 'Send a role or active');
 export type MemberUpdate = z.infer<typeof MemberUpdateSchema>;
+
+/**
+ * `GET /api/users/foremen`: the organisation's active foremen, for an inspector or manager to hand a
+ * finding to. `phone` is the number to call when the organisation keeps one (null otherwise).
+ */
+export const ForemanSchema = z.object({
+  id: IdSchema,
+  name: z.string(),
+  position: z.string(),
+  phone: z.string().nullable(),
+});
+export type Foreman = z.infer<typeof ForemanSchema>;
+export const ForemanListResponseSchema = z.object({ items: z.array(ForemanSchema) });
+export type ForemanListResponse = z.infer<typeof ForemanListResponseSchema>;

@@ -10,7 +10,7 @@ import { findingCreateOf, findingUpdateOf, looksLikeFinding, restoreFinding } fr
  * Saves a finding made or edited on the phone: the record, its new photos and their outbox
  * entries in one transaction. A new finding queues its create; an edit queues an update of the
  * fields that changed only (folded into a create or update still waiting and not yet tried);
- * becoming "made safe" queues the state change with its note.
+ * a new assignee queues the assignment; becoming "made safe" queues the state change with its note.
  */
 export async function saveFinding(database: PlummetDb, finding: FindingRecord, newPhotos: readonly PhotoRecord[] = []): Promise<void> {
   await database.transaction('rw', database.findings, database.photos, database.outbox, async () => {
@@ -21,6 +21,10 @@ export async function saveFinding(database: PlummetDb, finding: FindingRecord, n
     } else {
       const changed = findingUpdateOf(finding, previous);
       if (changed) await enqueueChange(database, finding.id, { entity: 'finding', action: 'update', payload: changed });
+    }
+    if (finding.assigneeId !== (previous?.assigneeId ?? null)) {
+      // Given to a foreman while recording: the assignment travels with the record, offline too.
+      await enqueueChange(database, finding.id, { entity: 'finding', action: 'assign', payload: { assigneeId: finding.assigneeId, dueAt: finding.dueAt } });
     }
     if (finding.state === 'made-safe' && previous?.state !== 'made-safe') {
       await enqueueChange(database, finding.id, {

@@ -1,3 +1,4 @@
+import { mustBeMadeSafeNow, type Foreman } from '@plummet/shared';
 import { IonButton, IonContent, IonFooter, useIonRouter } from '@ionic/react';
 import { useState } from 'react';
 import { AppHeader } from '../../../components/AppHeader';
@@ -30,6 +31,8 @@ interface FindingEditorProps {
   units: Units;
   backHref: string;
   readOnly: boolean;
+  /** The organisation's foremen, to give the finding to one (empty: the choice is hidden). */
+  foremen?: readonly Foreman[];
 }
 
 const range = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
@@ -38,13 +41,16 @@ const range = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
  * The finding form. The estimate is computed in render from the form (shared estimateFinding →
  * assessDrop, synchronous, no debounce), so it follows every keystroke within the same frame.
  */
-export function FindingEditor({ initialForm, existing, owner, scaffold, catalogue, storedPhotos, windSpeedMps, units, backHref, readOnly }: FindingEditorProps) {
+export function FindingEditor({ initialForm, existing, owner, scaffold, catalogue, storedPhotos, windSpeedMps, units, backHref, readOnly, foremen = [] }: FindingEditorProps) {
   const router = useIonRouter();
   const save = useSaveFindingMutation();
   const [form, setForm] = useState(initialForm);
   const [pending, setPending] = useState<PendingPhoto[]>([]);
   const [explaining, setExplaining] = useState(false);
   const [showProblems, setShowProblems] = useState(false);
+  const [assigneeId, setAssigneeId] = useState<string>(existing?.assigneeId ?? '');
+  // Asked once per save: a High finding with people below is made safe before the inspector leaves the bay.
+  const [askedToMakeSafe, setAskedToMakeSafe] = useState(false);
   const patch = (changes: Partial<FindingForm>) => setForm((current) => ({ ...current, ...changes }));
 
   const catalogueItem = catalogue.find((item) => item.id === form.catalogueItemId);
@@ -61,7 +67,12 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
       setShowProblems(true);
       return;
     }
-    const finding = buildFindingRecord(owner, form, reading.item, reading.input, result, existing, new Date());
+    const built = buildFindingRecord(owner, form, reading.item, reading.input, result, existing, new Date());
+    const finding = { ...built, assigneeId: assigneeId || null, handBack: assigneeId && assigneeId !== existing?.assigneeId ? null : built.handBack };
+    if (!existing && finding.state === 'open' && mustBeMadeSafeNow(finding.riskBand, finding.exposure) && !askedToMakeSafe) {
+      setAskedToMakeSafe(true);
+      return;
+    }
     save.mutate(
       { finding, photos: pending },
       { onSuccess: leave },
@@ -160,6 +171,33 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
               </label>
             )}
           </FormSection>
+          {foremen.length > 0 && (
+            <FormSection title="Who fixes it">
+              <SelectField<string>
+                label="Give to foreman"
+                value={assigneeId}
+                onChange={(value) => setAssigneeId(String(value))}
+                options={[{ value: '', label: 'Nobody yet (the scaffold’s foreman)' }, ...foremen.map((f) => ({ value: f.id, label: f.position ? `${f.name}, ${f.position}` : f.name }))]}
+                testId="finding-assignee"
+              />
+            </FormSection>
+          )}
+          {askedToMakeSafe && !form.madeSafe && (
+            <div className="make-safe-now" role="alert" data-testid="make-safe-prompt">
+              <p>
+                <strong>Make it safe before you leave this bay.</strong> This is a High finding with people below: secure or
+                remove the item, or close the zone underneath, and record what you did.
+              </p>
+              <div className="bottom-actions">
+                <IonButton onClick={() => patch({ madeSafe: true })} data-testid="make-safe-prompt-yes">
+                  Record it made safe
+                </IonButton>
+                <IonButton fill="outline" disabled={save.isPending} onClick={submit} data-testid="make-safe-prompt-later">
+                  Save, still open
+                </IonButton>
+              </div>
+            </div>
+          )}
           {showProblems && firstProblem && (
             <p className="field-error" role="alert">
               Not saved yet: {firstProblem}

@@ -13,6 +13,7 @@ import { useScaffold } from '../../scaffolds/scaffolds.queries';
 import { FindingEditor } from '../components/FindingEditor';
 import { formOfFinding, newFindingForm } from '../finding-form';
 import { useFinding } from '../findings.queries';
+import { useForemen } from '../foremen.queries';
 
 /**
  * A new finding (`/inspections/:id/findings/new?elevation=&lift=&bay=`, from a tap on the grid)
@@ -30,6 +31,7 @@ export function FindingEditorPage() {
   const scaffold = useScaffold(existing?.scaffoldId ?? inspection?.scaffoldId);
   const catalogue = useCatalogue();
   const storedPhotos = usePhotos('finding', existing?.id);
+  const foremen = useForemen();
 
   const loading =
     (findingId && existing === undefined) ||
@@ -92,6 +94,7 @@ export function FindingEditorPage() {
         units={units}
         backHref={backHref}
         readOnly={inspection?.status === 'finished' && !!existing}
+        foremen={session.user.role === 'foreman' ? [] : (foremen ?? [])}
       />
     </IonPage>
   );

@@ -3,6 +3,7 @@ import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
+import { FixLoopShortcut } from '../../fix-loop/components/FixLoopShortcut';
 import { SitesOverview } from '../../sites/components/SitesOverview';
 import './HomePage.css';
 
@@ -28,7 +29,10 @@ export function HomePage() {
       </IonHeader>
       <IonContent className="ion-padding" data-testid="app-shell">
         {signedIn ? (
-          <SitesOverview session={session} expired={status === 'expired'} />
+          <>
+            <FixLoopShortcut userId={session.user.id} role={session.user.role} />
+            <SitesOverview session={session} expired={status === 'expired'} />
+          </>
         ) : (
           <div className="home-page">
             <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />

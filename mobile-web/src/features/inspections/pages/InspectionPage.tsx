@@ -30,6 +30,8 @@ export function InspectionPage() {
   const checks = useControlChecks(inspectionId);
   const [tab, setTab] = useState<Tab>('walk');
   const finished = inspection?.status === 'finished';
+  // What earlier walks left: still to fix, or fixed and not yet verified. Listed first so nothing is forgotten between walks.
+  const carriedOver = (scaffoldFindings ?? []).filter((f) => f.inspectionId !== inspectionId && (f.state === 'open' || f.state === 'made-safe' || f.state === 'fixed'));
 
   return (
     <IonPage>
@@ -56,6 +58,17 @@ export function InspectionPage() {
                   {inspection.windSpeedMps !== null ? ` · wind ${formatQuantity('wind', inspection.windSpeedMps, units)}` : ' · wind not measured'}
                   {finished ? ` · finished ${formatDateTime(inspection.finishedAt)} by ${inspection.reporterName}` : ''}
                 </p>
+              )}
+              {inspection && !finished && tab === 'walk' && carriedOver.length > 0 && (
+                <details className="carried-over" open data-testid="carried-over">
+                  <summary>
+                    From earlier walks: {carriedOver.filter((f) => f.state !== 'fixed').length} still to fix, {carriedOver.filter((f) => f.state === 'fixed').length} fixed and waiting to be
+                    verified
+                  </summary>
+                  {carriedOver.map((finding) => (
+                    <FindingRow key={finding.id} finding={finding} units={units} />
+                  ))}
+                </details>
               )}
               {inspection && scaffold && tab === 'walk' && (
                 <ScaffoldElevations

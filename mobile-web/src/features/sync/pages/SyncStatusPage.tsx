@@ -11,6 +11,7 @@ import { dismissRejected } from '../../../sync/sync-state';
 import { useSyncStatus } from '../../../sync/sync-status';
 import { lastSyncWords, pendingWords, UNSYNCED_WARNING_TEXT } from '../../../sync/sync-words';
 import { RequireSession } from '../../auth/components/RequireSession';
+import { OverdueFixes } from '../../fix-loop/components/FixLoopShortcut';
 import { ConflictCard } from '../components/ConflictCard';
 import './SyncStatusPage.css';
 
@@ -53,6 +54,7 @@ export function SyncStatusPage() {
                   <p data-testid="sync-pending" data-count={status.pending}>
                     {pendingWords(status.pending)}
                   </p>
+                  {session.user.role === 'foreman' && <OverdueFixes userId={session.user.id} />}
                   {status.lastError && status.state !== 'idle' && <p className="muted">{status.lastError}</p>}
                   <IonButton expand="block" disabled={status.state === 'syncing'} onClick={() => void syncNow()} data-testid="sync-now">
                     {status.state === 'syncing' ? 'Syncing…' : 'Sync now'}
