@@ -23,7 +23,7 @@ function ScaffoldShiftCard({ scaffold, findings, units, now }: { scaffold: Scaff
       {scaffold && (
         <p>
           <ScaffoldStatusTag status={scaffold.status} /> {scaffold.description}
-          {scaffold.status !== 'Safe to use' && <span className="muted"> · restrictions: see the tag on the scaffold and its last report</span>}
+          {scaffold.status !== 'cleared' && <span className="muted"> · restrictions: see the tag on the scaffold and its last report</span>}
         </p>
       )}
       <h3>Zones in force</h3>
