@@ -171,3 +171,36 @@ describe('versions decided by the server', () => {
     expect((await api.call('demo:inspector', 'PATCH', `/findings/${id}`, { notes: 'Second', version: 1 })).status).toBe(409);
   });
 });
+
+describe('the fix loop through one pushed batch', () => {
+  it('applies the rules within the batch: the fixer’s own verification is refused, an alteration marks the scaffold, a reassignment clears a hand back', async () => {
+    const body = findingBody(DEMO.unmannedScaffold, { elevation: 'South' });
+    const fixId = randomUUID();
+    const res = await api.call('demo:inspector', 'POST', '/sync/push', {
+      clientId: randomUUID(),
+      mutations: [
+        { id: 1, entity: 'finding', entityId: body.id, action: 'create', baseVersion: 0, payload: body },
+        { id: 2, entity: 'finding', entityId: body.id, action: 'state', baseVersion: 1, payload: { to: 'fixed', control: 'fit-netting', photoIds: [randomUUID()], recordId: fixId } },
+        { id: 3, entity: 'finding', entityId: body.id, action: 'state', baseVersion: 2, payload: { to: 'verified' } },
+      ],
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.results.map((r: { outcome: string }) => r.outcome)).toEqual(['applied', 'applied', 'rejected']);
+    expect(res.body.results[2].reason).toMatch(/cannot verify/);
+    const scaffold = await api.t.drizzle.execute<{ altered_at: string | null; next_due_at: string | null; fixed_at: string }>(
+      sql`select s.altered_at::text, s.next_due_at::text, f.fixed_at::text from scaffolds s, fixes f where s.id = ${DEMO.unmannedScaffold}::uuid and f.id = ${fixId}::uuid`,
+    );
+    expect(scaffold.rows[0]!.altered_at).toBe(scaffold.rows[0]!.fixed_at);
+    expect(scaffold.rows[0]!.next_due_at).toBe(scaffold.rows[0]!.fixed_at);
+
+    const other = await open();
+    await push('demo:inspector', { entityId: other, action: 'assign', payload: { assigneeId: api.userIds['demo:foreman'] } });
+    expect((await push('demo:foreman', { entityId: other, action: 'hand-back', payload: { reason: 'needs-scaffolders' } })).outcome).toBe('applied');
+    expect((await get(other)).handBack).toMatchObject({ reason: 'needs-scaffolders' });
+    expect((await push('demo:manager', { entityId: other, action: 'assign', payload: { assigneeId: api.userIds['demo:foreman'] } })).outcome).toBe('applied');
+    expect((await get(other)).handBack).toBeNull();
+    const notForeman = await push('demo:manager', { entityId: other, action: 'assign', payload: { assigneeId: api.userIds['demo:inspector'] } });
+    expect(notForeman).toMatchObject({ outcome: 'rejected' });
+    expect(notForeman.reason).toMatch(/Not a foreman/);
+  });
+});
