@@ -67,7 +67,8 @@ export class FindingCommands {
     const item = resolveItem(input.item, input.item.catalogueItemId === undefined ? undefined : await store.catalogueItem(input.item.catalogueItemId));
     const values = newFindingRow(user, input, item, scaffold.id, wind);
     const dueAt = fixDueAt(values.riskBand, await store.now(), await store.settings(), scaffold.nextDueAt);
-    const row = await store.insertFinding({ ...values, dueAt, syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, actor.clientId) });
+    const now = await store.now();
+    const row = await store.insertFinding({ ...values, dueAt, syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, actor.clientId, user.userId, now.toISOString()) });
     if (!row) {
       const raced = await store.findingAnyOrg(input.id);
       if (!raced) throw new AppError(ErrorCode.Conflict, 'The finding id is taken');
@@ -114,6 +115,8 @@ export class FindingCommands {
       baseVersion,
       clientId: actor.clientId,
       nextVersion: current.version + 1,
+      userId: actor.user.userId,
+      at: (await store.now()).toISOString(),
     });
     if (!Object.keys(merge.changes).length) return applied(current, 'Nothing to change');
     const fields = { ...before, ...merge.changes } as typeof before;
@@ -134,6 +137,8 @@ export class FindingCommands {
         replacedValue: c.replacedValue ?? null,
         replacedVersion: c.replacedStamp.v,
         replacedClientId: c.replacedStamp.c,
+        replacedUserId: c.replacedStamp.u ?? null,
+        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
         winnerClientId: actor.clientId ?? SERVER_CLIENT,
         winnerUserId: actor.user.userId,
         mutationId: actor.mutationId ?? 0,

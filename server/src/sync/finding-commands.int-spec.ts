@@ -157,6 +157,9 @@ describe('versions decided by the server', () => {
       sql`select field, replaced_value, current_value from sync_conflicts where id = ${pushed.conflictIds[0]}::uuid`,
     );
     expect(rows.rows[0]).toEqual({ field: 'notes', replaced_value: 'Office: coupler is wired on', current_value: 'Phone: coupler loose' });
+    // The conflict names who wrote the replaced value, and when.
+    const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${id}`);
+    expect(list.body.items[0]).toMatchObject({ replacedUserId: api.userIds['demo:inspector'], replacedAt: expect.any(String), winnerUserId: api.userIds['demo:inspector'] });
   });
 
   it('records no conflict when the phone had seen the REST edit', async () => {

@@ -14,6 +14,9 @@ export type FindingSyncField = (typeof FINDING_SYNC_FIELDS)[number];
 export interface FieldStamp {
   v: number;
   c: string | null;
+  /** The user who wrote it and when (ISO), so a conflict names them; absent on stamps written before these were kept. */
+  u?: string | null;
+  t?: string;
 }
 export type FieldStamps = Record<string, FieldStamp>;
 
@@ -69,6 +72,9 @@ export interface FieldMergeInput {
   clientId: string | null;
   /** The record's version after this write. */
   nextVersion: number;
+  /** Who writes, and when (ISO): kept on the stamps so a later conflict names the replaced value's writer. */
+  userId?: string | null;
+  at?: string;
 }
 
 export interface FieldMergeResult {
@@ -95,14 +101,15 @@ export function mergeFieldPatch(input: FieldMergeInput): FieldMergeResult {
     const unseen = stamp.v > input.baseVersion && stamp.c !== input.clientId;
     if (unseen) conflicts.push({ field, currentValue: value, replacedValue: input.current[field] ?? null, replacedStamp: stamp });
     changes[field] = value;
-    stamps[field] = { v: input.nextVersion, c: input.clientId };
+    stamps[field] = { v: input.nextVersion, c: input.clientId, ...(input.userId !== undefined ? { u: input.userId } : {}), ...(input.at ? { t: input.at } : {}) };
   }
   return { changes, stamps, conflicts };
 }
 
 /** Stamps for a record made by `clientId`: every given field written at version 1. */
-export function stampsOfCreate(fields: readonly string[], clientId: string | null): FieldStamps {
-  return Object.fromEntries(fields.map((field) => [field, { v: 1, c: clientId }]));
+export function stampsOfCreate(fields: readonly string[], clientId: string | null, userId?: string, at?: string): FieldStamps {
+  const who = { ...(userId !== undefined ? { u: userId } : {}), ...(at ? { t: at } : {}) };
+  return Object.fromEntries(fields.map((field) => [field, { v: 1, c: clientId, ...who }]));
 }
 
 export type StateCommandDecision =
