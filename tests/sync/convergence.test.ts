@@ -122,7 +122,7 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
         await phone.change(id, { [step.field]: value }, { entity: 'finding', action: 'update', payload: { [step.field]: value } });
       }
       if (step.kind === 'state' && (await phone.db.findings.get(id))) {
-        await phone.change(id, { state: step.to }, { entity: 'finding', action: 'state', payload: { to: step.to, note: '' } });
+        await phone.change(id, { state: step.to }, { entity: 'finding', action: 'state', payload: { to: step.to, note: 'Seen on the walk', photoIds: [randomUUID()] } });
       }
     }
 

@@ -54,7 +54,7 @@ describe('the inspection data API as a whole', () => {
     ['get', '/api/inspections'], ['post', '/api/inspections'], ['get', '/api/inspections/{id}'], ['patch', '/api/inspections/{id}'],
     ['post', '/api/inspections/{id}/finish'], ['put', '/api/inspections/{id}/control-checks/{control}'],
     ['get', '/api/findings'], ['post', '/api/findings'], ['get', '/api/findings/{id}'], ['patch', '/api/findings/{id}'],
-    ['post', '/api/findings/{id}/state'], ['post', '/api/findings/{id}/assign'],
+    ['post', '/api/findings/{id}/state'], ['post', '/api/findings/{id}/assign'], ['post', '/api/findings/{id}/hand-back'], ['get', '/api/findings/{id}/history'],
     ['get', '/api/catalogue'], ['post', '/api/catalogue'], ['get', '/api/catalogue/{id}'], ['patch', '/api/catalogue/{id}'], ['delete', '/api/catalogue/{id}'],
     ['get', '/api/audit'],
   ] as const;

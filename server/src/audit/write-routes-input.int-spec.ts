@@ -112,6 +112,14 @@ const ROUTES: WriteRoute[] = [
     outOfRange: [{ assigneeId: null, dueAt: '2099-13-45T00:00:00Z' }, 'dueAt'],
   },
   {
+    name: 'POST /findings/:id/hand-back',
+    who: 'demo:foreman',
+    method: 'POST',
+    path: () => `/findings/${ids.finding}/hand-back`,
+    wrongTypes: { reason: 3 },
+    outOfRange: [{ reason: 'needs-scaffolders', note: LONG_NOTE }, 'note'],
+  },
+  {
     name: 'POST /catalogue',
     who: 'demo:admin',
     method: 'POST',

@@ -11,12 +11,19 @@ import type { AccessTokenClaims } from './auth.types.js';
 import { hashOpaqueToken, newOpaqueToken } from './opaque-token.js';
 import { RefreshTokensRepository } from './refresh-tokens.repository.js';
 
+/**
+ * A refresh token presented again this soon after its first use is a retry whose answer was lost
+ * (the phone went into a lift), not a theft: it gets a new token of the same family. Later, reuse
+ * revokes the family. 30 s is common practice, no source: long enough for a mobile retry.
+ */
+export const REFRESH_RETRY_GRACE_MS = 30_000;
+
 type RefreshOutcome = { ok: true; profile: ProfileRow; refreshToken: string } | { ok: false; message: string };
 
 /**
  * Sessions: a short-lived access JWT plus a single-use refresh token. Each refresh replaces the
  * token with a new one of the same family; presenting a replaced token again means it leaked,
- * so the whole family is revoked.
+ * so the whole family is revoked (after a short grace window for a retry, REFRESH_RETRY_GRACE_MS).
  */
 @Injectable()
 export class SessionsService {
@@ -40,7 +47,8 @@ export class SessionsService {
     const outcome = await this.db.transaction(async (tx): Promise<RefreshOutcome> => {
       const row = await this.refreshTokens.findByHashForUpdate(tokenHash, tx);
       if (!row || row.revokedAt) return { ok: false, message: 'The session has ended; sign in again' };
-      if (row.usedAt) {
+      const retried = row.usedAt !== null && Date.now() - row.usedAt.getTime() <= REFRESH_RETRY_GRACE_MS;
+      if (row.usedAt && !retried) {
         // Committed before answering 401, so the revocation sticks.
         await this.refreshTokens.revokeFamily(row.familyId, tx);
         return { ok: false, message: 'This session was already renewed elsewhere and has been ended; sign in again' };
@@ -51,7 +59,8 @@ export class SessionsService {
         await this.refreshTokens.revokeFamily(row.familyId, tx);
         return { ok: false, message: 'The session has ended; sign in again' };
       }
-      await this.refreshTokens.markUsed(row.id, tx);
+      // A retry keeps the first use's time, so the window never stretches.
+      if (!retried) await this.refreshTokens.markUsed(row.id, tx);
       const next = await this.addRefreshToken(row.userId, row.organisationId, row.familyId, tx);
       return { ok: true, profile, refreshToken: next };
     });

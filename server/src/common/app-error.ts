@@ -7,6 +7,8 @@ export enum ErrorCode {
   Forbidden = 'FORBIDDEN',
   NotFound = 'NOT_FOUND',
   Conflict = 'CONFLICT',
+  /** Separation of duties: whoever marked a finding fixed may not verify it (an organisation setting). */
+  VerifierIsFixer = 'VERIFIER_IS_FIXER',
   RateLimited = 'RATE_LIMITED',
   UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
   ServiceUnavailable = 'SERVICE_UNAVAILABLE',
@@ -21,6 +23,7 @@ const STATUS: Record<ErrorCode, number> = {
   [ErrorCode.Forbidden]: 403,
   [ErrorCode.NotFound]: 404,
   [ErrorCode.Conflict]: 409,
+  [ErrorCode.VerifierIsFixer]: 403,
   [ErrorCode.RateLimited]: 429,
   [ErrorCode.UnsupportedMediaType]: 415,
   [ErrorCode.ServiceUnavailable]: 503,

@@ -11,12 +11,14 @@ import {
   type FindingItemInput,
   type LikelihoodAnswers,
   RiskInputError,
+  sameValue,
   type ShapeSpec,
 } from '@plummet/shared';
 import { AppError, ErrorCode, type ErrorIssue } from '../common/app-error.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import type { AuthUser } from '../auth/auth.types.js';
+import type { FindingRow } from './finding.mapper.js';
 import type { FindingInsert } from './findings.repository.js';
 
 /** Every column that follows from the inspector's input: position, item copy, estimate and risk. */
@@ -127,4 +129,42 @@ export function newFindingRow(
     notes: input.notes,
     createdBy: user.userId,
   };
+}
+
+/** The syncable fields of a stored finding, as a patch names them. */
+export function findingFieldValues(row: FindingRow): FindingFields & { notes: string } {
+  return {
+    elevation: row.elevation,
+    lift: row.lift,
+    bay: row.bay,
+    heightM: row.heightM,
+    item: { catalogueItemId: row.catalogueItemId, name: row.itemName, massKg: row.massKg, shape: (row.shape as ShapeSpec | null) ?? null },
+    exposure: row.exposure,
+    likelihoodAnswers: row.likelihoodAnswers as LikelihoodAnswers,
+    notes: row.notes,
+  };
+}
+
+const f4 = Math.fround;
+
+/** A repeated create with the body the finding was made from (then it is a retry, not a conflict). */
+export function sameCreate(row: FindingRow, input: FindingCreate): boolean {
+  const item = input.item.catalogueItemId !== undefined
+    ? row.catalogueItemId === input.item.catalogueItemId
+    : row.catalogueItemId === null &&
+      row.itemName === input.item.name &&
+      f4(row.massKg) === f4(input.item.massKg!) &&
+      sameValue(row.shape ?? null, input.item.shape ?? null);
+  return (
+    item &&
+    row.scaffoldId === input.scaffoldId &&
+    row.inspectionId === input.inspectionId &&
+    row.elevation === input.elevation &&
+    row.lift === input.lift &&
+    row.bay === input.bay &&
+    f4(row.heightM) === f4(input.heightM) &&
+    row.exposure === input.exposure &&
+    sameValue(row.likelihoodAnswers, input.likelihoodAnswers) &&
+    row.notes === input.notes
+  );
 }

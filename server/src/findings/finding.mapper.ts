@@ -5,7 +5,8 @@ import type { findings } from '../db/schema/index.js';
 export const FINDING_API_COLUMNS = [
   'id', 'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName',
   'massKg', 'shape', 'exposure', 'likelihoodAnswers', 'likelihood', 'estimate', 'severity', 'riskScore', 'riskBand', 'state',
-  'assigneeId', 'dueAt', 'notes', 'madeSafeNote', 'createdBy', 'createdAt', 'updatedAt', 'version',
+  'assigneeId', 'dueAt', 'notes', 'madeSafeNote', 'madeSafeControl', 'zoneRadiusM', 'madeSafePhotoIds', 'madeSafeUntil', 'handBack',
+  'createdBy', 'createdAt', 'updatedAt', 'version',
 ] as const;
 
 export type FindingRow = typeof findings.$inferSelect;
@@ -44,9 +45,11 @@ export function toFinding(row: FindingApiRow, now = Date.now()): Finding {
     overdue: isOverdue(row, now),
     notes: row.notes,
     madeSafeNote: row.madeSafeNote,
-    // Stored from the fix loop on; until then no finding carries either.
-    madeSafeUntil: null,
-    handBack: null,
+    madeSafeUntil: row.madeSafeUntil?.toISOString() ?? null,
+    handBack: (row.handBack as Finding['handBack']) ?? null,
+    madeSafeControl: (row.madeSafeControl as Finding['madeSafeControl']) ?? null,
+    zoneRadiusM: row.zoneRadiusM,
+    madeSafePhotoIds: row.madeSafePhotoIds,
     createdBy: row.createdBy,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),

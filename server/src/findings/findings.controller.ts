@@ -3,6 +3,8 @@ import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nest
 import {
   FindingAssignSchema,
   FindingCreateSchema,
+  FindingHandBackInputSchema,
+  FindingHistorySchema,
   FindingListQuerySchema,
   FindingListResponseSchema,
   FindingSchema,
@@ -11,10 +13,9 @@ import {
 } from '@plummet/shared';
 import type { Response } from 'express';
 import { createZodDto } from 'nestjs-zod';
-import { CurrentUser, Roles } from '../auth/auth.decorators.js';
+import { CurrentUser } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';
-import { FindingWorkflowService } from './finding-workflow.service.js';
 import { FindingsService } from './findings.service.js';
 
 class FindingDto extends createZodDto(FindingSchema) {}
@@ -24,15 +25,14 @@ class FindingCreateDto extends createZodDto(FindingCreateSchema) {}
 class FindingUpdateDto extends createZodDto(FindingUpdateSchema) {}
 class FindingStateChangeDto extends createZodDto(FindingStateChangeSchema) {}
 class FindingAssignDto extends createZodDto(FindingAssignSchema) {}
+class FindingHandBackDto extends createZodDto(FindingHandBackInputSchema) {}
+class FindingHistoryDto extends createZodDto(FindingHistorySchema) {}
 
 @ApiTags('findings')
 @ApiBearerAuth()
 @Controller('findings')
 export class FindingsController {
-  constructor(
-    private readonly findings: FindingsService,
-    private readonly workflow: FindingWorkflowService,
-  ) {}
+  constructor(private readonly findings: FindingsService) {}
 
   /**
    * Highest risk first by default. A foreman sees only findings on their scaffolds or assigned to them.
@@ -50,9 +50,17 @@ export class FindingsController {
     return this.findings.get(user, id);
   }
 
+  /** State changes, fixes, verifications, assignments and hand backs with who, when, note, control and photos, oldest first. */
+  @Get(':id/history')
+  @ApiOkResponse({ type: FindingHistoryDto })
+  history(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string) {
+    return this.findings.history(user, id);
+  }
+
+  // Writes: the role and scope checks are the commands' own (finding-commands.ts), the same as for a push.
+
   /** The estimate is computed here with the shared physics; estimate fields in the body are ignored. 200 for a retry. */
   @Post()
-  @Roles('inspector')
   @ApiCreatedResponse({ type: FindingDto })
   @ApiOkResponse({ type: FindingDto, description: 'A retry: the finding already existed with this body' })
   async create(@CurrentUser() user: AuthUser, @Body() body: FindingCreateDto, @Res({ passthrough: true }) res: Response) {
@@ -62,7 +70,6 @@ export class FindingsController {
   }
 
   @Patch(':id')
-  @Roles('inspector')
   @ApiOkResponse({ type: FindingDto })
   update(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: FindingUpdateDto) {
     return this.findings.update(user, id, body);
@@ -70,18 +77,24 @@ export class FindingsController {
 
   /** Checked against the transition table in shared/src/findings/finding-state.ts. */
   @Post(':id/state')
-  @Roles('inspector', 'manager', 'foreman')
   @HttpCode(200)
   @ApiOkResponse({ type: FindingDto })
   changeState(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: FindingStateChangeDto) {
-    return this.workflow.changeState(user, id, body);
+    return this.findings.changeState(user, id, body);
   }
 
   @Post(':id/assign')
-  @Roles('manager', 'admin', 'inspector')
   @HttpCode(200)
   @ApiOkResponse({ type: FindingDto })
   assign(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: FindingAssignDto) {
-    return this.workflow.assign(user, id, body);
+    return this.findings.assign(user, id, body);
+  }
+
+  /** A foreman returns a finding they cannot fix, with a reason; a manager reassigns it. */
+  @Post(':id/hand-back')
+  @HttpCode(200)
+  @ApiOkResponse({ type: FindingDto })
+  handBack(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string, @Body() body: FindingHandBackDto) {
+    return this.findings.handBack(user, id, body);
   }
 }

@@ -1,9 +1,9 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, inArray, type SQL, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 import type { FindingListQuery } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { findings, fixes, scaffolds, verifications } from '../db/schema/index.js';
+import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
 import { FINDING_API_COLUMNS, type FindingRow } from './finding.mapper.js';
 
 const SORTS: Record<FindingListQuery['sort'], SortKey> = {
@@ -96,5 +96,54 @@ export class FindingsRepository {
 
   async insertVerification(values: typeof verifications.$inferInsert, executor: DbExecutor = this.db): Promise<void> {
     await executor.insert(verifications).values(values);
+  }
+
+  /** The organisation's stored settings (read with readOrganisationSettings). */
+  async organisationSettings(organisationId: string, executor: DbExecutor = this.db): Promise<unknown> {
+    const [row] = await executor.select({ settings: organisations.settings }).from(organisations).where(eq(organisations.id, organisationId));
+    return row?.settings ?? {};
+  }
+
+  /** Who owns each of these photo ids already (any organisation): a photo belongs to one record only. */
+  async photoOwners(ids: string[], executor: DbExecutor = this.db): Promise<{ id: string; ownerType: string; ownerId: string }[]> {
+    if (!ids.length) return [];
+    return executor.select({ id: photos.id, ownerType: photos.ownerType, ownerId: photos.ownerId }).from(photos).where(inArray(photos.id, ids));
+  }
+
+  /** Who made the latest fix of the finding (separation of duties). */
+  async latestFixer(findingId: string, executor: DbExecutor = this.db): Promise<string | undefined> {
+    const [row] = await executor
+      .select({ fixedBy: fixes.fixedBy })
+      .from(fixes)
+      .where(eq(fixes.findingId, findingId))
+      .orderBy(desc(fixes.fixedAt), desc(fixes.createdAt))
+      .limit(1);
+    return row?.fixedBy;
+  }
+
+  /**
+   * An alteration changed the scaffold: it is marked altered and its inspection falls due now
+   * ("inspection due before use", UK WAHR 2005 reg. 12(4)(b)).
+   */
+  async markScaffoldsAltered(scaffoldIds: string[], at: Date, executor: DbExecutor = this.db): Promise<void> {
+    if (!scaffoldIds.length) return;
+    await executor
+      .update(scaffolds)
+      .set({ alteredAt: at, nextDueAt: at, version: sql`${scaffolds.version} + 1`, updatedAt: sql`now()` })
+      .where(inArray(scaffolds.id, scaffoldIds));
+  }
+
+  async insertConflicts(rows: (typeof syncConflicts.$inferInsert)[], executor: DbExecutor = this.db) {
+    return rows.length ? executor.insert(syncConflicts).values(rows).returning({ id: syncConflicts.id, field: syncConflicts.field }) : [];
+  }
+
+  /** The audit events of one finding with the actor's name, oldest first (the finding's history). */
+  async auditTrail(organisationId: string, findingId: string, executor: DbExecutor = this.db) {
+    return executor
+      .select({ action: auditEvents.action, at: auditEvents.at, actorId: auditEvents.actorId, actorName: users.name, before: auditEvents.before, after: auditEvents.after })
+      .from(auditEvents)
+      .leftJoin(users, eq(users.id, auditEvents.actorId))
+      .where(and(eq(auditEvents.organisationId, organisationId), eq(auditEvents.entityType, 'finding'), eq(auditEvents.entityId, findingId)))
+      .orderBy(asc(auditEvents.id));
   }
 }

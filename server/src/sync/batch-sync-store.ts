@@ -4,11 +4,10 @@ import type { AuthUser } from '../auth/auth.types.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import type { FindingRow } from '../findings/finding.mapper.js';
+import type { ConflictInsert, FindingStore, FixInsert, VerificationInsert } from '../findings/finding-store.js';
 import type { FindingChanges, FindingInsert } from '../findings/findings.repository.js';
 import type { InspectionRow } from '../inspections/inspection.mapper.js';
 import { type BatchFinding, CHECKED, type CheckedFinding, type SyncBatchRepository } from './sync-batch.repository.js';
-import type { FixInsert, SyncStore, VerificationInsert } from './sync-store.js';
-import type { SyncConflictInsert } from './sync.repository.js';
 
 /**
  * The batch could not be written as computed (an id taken meanwhile, a value the database refuses):
@@ -44,7 +43,7 @@ export function realAsRead(value: number): number {
 
 /** The row as it reads back from PostgreSQL. */
 function asStored(row: FindingRow): FindingRow {
-  return { ...row, heightM: realAsRead(row.heightM), massKg: realAsRead(row.massKg) };
+  return { ...row, heightM: realAsRead(row.heightM), massKg: realAsRead(row.massKg), zoneRadiusM: row.zoneRadiusM === null ? null : realAsRead(row.zoneRadiusM) };
 }
 
 /**
@@ -53,37 +52,39 @@ function asStored(row: FindingRow): FindingRow {
  * and flush() writes the outcome with a few multi-row statements. begin()/rollback() undo what a
  * rejected mutation did, as the per-mutation savepoint does in the database.
  */
-export class BatchSyncStore implements SyncStore {
+export class BatchSyncStore implements FindingStore {
   private readonly rows = new Map<string, BatchFinding>();
   private readonly created = new Set<string>();
   private readonly changed = new Set<string>();
   private readonly inspections = new Map<string, InspectionRow | undefined>();
   private readonly catalogue = new Map<string, CatalogueItemRow | undefined>();
-  private conflicts: SyncConflictInsert[] = [];
+  private conflicts: ConflictInsert[] = [];
   private fixes: FixInsert[] = [];
   private verifications: VerificationInsert[] = [];
   private audits: AuditChange[] = [];
+  private altered: { scaffoldId: string; at: Date }[] = [];
   private undo: (() => void)[] = [];
 
   constructor(
     /** Reads of scaffolds, inspections and catalogue items go here (and are kept for the batch). */
-    private readonly reads: SyncStore,
+    private readonly reads: FindingStore,
     private readonly user: AuthUser,
     loaded: BatchFinding[],
     /** The transaction's now(): what created_at and updated_at get. */
-    private readonly now: Date,
+    private readonly now_: Date,
   ) {
     for (const r of loaded) this.rows.set(r.finding.id, r);
   }
 
   begin(): void {
-    const lengths = [this.conflicts.length, this.fixes.length, this.verifications.length, this.audits.length] as const;
+    const lengths = [this.conflicts.length, this.fixes.length, this.verifications.length, this.audits.length, this.altered.length] as const;
     this.undo = [
       () => {
         this.conflicts.length = lengths[0];
         this.fixes.length = lengths[1];
         this.verifications.length = lengths[2];
         this.audits.length = lengths[3];
+        this.altered.length = lengths[4];
       },
     ];
   }
@@ -93,8 +94,39 @@ export class BatchSyncStore implements SyncStore {
     this.undo = [];
   }
 
+  async now() {
+    return this.now_;
+  }
+
+  settings() {
+    return this.reads.settings();
+  }
+
   scaffold(id: string) {
     return this.reads.scaffold(id);
+  }
+
+  isForeman(userId: string) {
+    return this.reads.isForeman(userId);
+  }
+
+  photoOwners(ids: string[]) {
+    return this.reads.photoOwners(ids);
+  }
+
+  /** Fixes made earlier in this batch first, then the stored ones. */
+  async latestFixer(findingId: string) {
+    for (let i = this.fixes.length - 1; i >= 0; i -= 1) if (this.fixes[i]!.findingId === findingId) return this.fixes[i]!.fixedBy;
+    return this.reads.latestFixer(findingId);
+  }
+
+  /** Every finding the batch names was loaded up front, whatever its organisation. */
+  async findingAnyOrg(id: string) {
+    return this.rows.get(id)?.finding;
+  }
+
+  async markScaffoldAltered(scaffoldId: string, at: Date) {
+    this.altered.push({ scaffoldId, at });
   }
 
   async inspection(id: string) {
@@ -125,10 +157,15 @@ export class BatchSyncStore implements SyncStore {
       dueAt: null,
       notes: '',
       madeSafeNote: null,
+      madeSafeControl: null,
+      zoneRadiusM: null,
+      madeSafePhotoIds: [],
+      madeSafeUntil: null,
+      handBack: null,
       syncFields: {},
       ...(defined(values) as FindingInsert),
-      createdAt: this.now,
-      updatedAt: this.now,
+      createdAt: this.now_,
+      updatedAt: this.now_,
       version: 1,
       syncXid: '',
       syncSeq: 0,
@@ -144,7 +181,7 @@ export class BatchSyncStore implements SyncStore {
 
   async updateFinding(id: string, changes: FindingChanges) {
     const before = this.rows.get(id)!;
-    const finding = asStored({ ...before.finding, ...(defined(changes) as Partial<FindingRow>), version: before.finding.version + 1, updatedAt: this.now });
+    const finding = asStored({ ...before.finding, ...(defined(changes) as Partial<FindingRow>), version: before.finding.version + 1, updatedAt: this.now_ });
     const wasChanged = this.changed.has(id);
     this.rows.set(id, { ...before, finding });
     if (!this.created.has(id)) this.changed.add(id);
@@ -155,7 +192,7 @@ export class BatchSyncStore implements SyncStore {
     return finding;
   }
 
-  async insertConflicts(rows: SyncConflictInsert[]) {
+  async insertConflicts(rows: ConflictInsert[]) {
     const withIds = rows.map((r) => ({ ...r, id: randomUUID() }));
     this.conflicts.push(...withIds);
     return withIds;
@@ -182,6 +219,7 @@ export class BatchSyncStore implements SyncStore {
     if ((await repo.insertFixes(this.fixes, tx)) !== this.fixes.length) throw new BatchFallback('a fix record id is taken');
     if ((await repo.insertVerifications(this.verifications, tx)) !== this.verifications.length) throw new BatchFallback('a verification record id is taken');
     await repo.insertConflicts(this.conflicts, tx);
+    for (const { scaffoldId, at } of this.altered) await repo.markScaffoldAltered(scaffoldId, at, tx);
     await audit.recordMany(tx, this.user, this.audits);
   }
 

@@ -4,8 +4,7 @@ import type { DbExecutor } from '../db/db.tokens.js';
 import { findings, fixes, scaffolds, syncConflicts, verifications } from '../db/schema/index.js';
 import type { FindingRow } from '../findings/finding.mapper.js';
 import type { FindingWithScope } from '../findings/findings.repository.js';
-import type { FixInsert, VerificationInsert } from './sync-store.js';
-import type { SyncConflictInsert } from './sync.repository.js';
+import type { ConflictInsert, FixInsert, VerificationInsert } from '../findings/finding-store.js';
 
 /** Rows per statement: keeps every multi-row insert well under PostgreSQL's 65,535 parameters. */
 const CHUNK = 1000;
@@ -20,7 +19,7 @@ function chunks<T>(rows: T[]): T[][] {
 const UPDATABLE = [
   'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg', 'shape', 'exposure',
   'likelihoodAnswers', 'likelihood', 'estimate', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt', 'notes',
-  'madeSafeNote', 'version', 'syncFields',
+  'madeSafeNote', 'madeSafeControl', 'zoneRadiusM', 'madeSafePhotoIds', 'madeSafeUntil', 'handBack', 'version', 'syncFields',
 ] as const;
 
 /** A new finding's columns: the database sets the creation time and the change-feed stamp. */
@@ -104,7 +103,15 @@ export class SyncBatchRepository {
     return result.rows.length;
   }
 
-  async insertConflicts(rows: SyncConflictInsert[], tx: DbExecutor): Promise<void> {
+  /** An alteration recorded in the batch: the scaffold is marked altered and its inspection falls due (before use). */
+  async markScaffoldAltered(scaffoldId: string, at: Date, tx: DbExecutor): Promise<void> {
+    await tx
+      .update(scaffolds)
+      .set({ alteredAt: at, nextDueAt: at, version: sql`${scaffolds.version} + 1`, updatedAt: sql`now()` })
+      .where(eq(scaffolds.id, scaffoldId));
+  }
+
+  async insertConflicts(rows: ConflictInsert[], tx: DbExecutor): Promise<void> {
     for (const part of chunks(rows)) await tx.insert(syncConflicts).values(part);
   }
 

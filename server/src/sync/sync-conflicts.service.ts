@@ -12,8 +12,7 @@ import { DRIZZLE, type Db } from '../db/db.tokens.js';
 import { resolveItem } from '../findings/finding-input.js';
 import { FindingsRepository } from '../findings/findings.repository.js';
 import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
-import { FindingSyncService } from './finding-sync.service.js';
-import { MutationRejected } from './mutation-rejected.js';
+import { FindingCommands } from '../findings/finding-commands.js';
 import { toSyncConflict } from './sync.mapper.js';
 import { SyncRepository } from './sync.repository.js';
 
@@ -25,7 +24,7 @@ export class SyncConflictsService {
     private readonly sync: SyncRepository,
     private readonly findings: FindingsRepository,
     private readonly catalogue: CatalogueRepository,
-    private readonly findingSync: FindingSyncService,
+    private readonly commands: FindingCommands,
   ) {}
 
   async list(user: AuthUser, query: SyncConflictListQuery): Promise<{ items: SyncConflict[] }> {
@@ -59,13 +58,9 @@ export class SyncConflictsService {
           if (!parsed.success) throw this.invalid(parsed.error.issues[0]!.message);
           value = (parsed.data as Record<string, unknown>)[conflict.field];
         }
-        try {
-          const ctx = { user, clientId: `00000000-0000-0000-0000-000000000000`, mutationId: 0 };
-          await this.findingSync.writeFields(this.findingSync.dbStore(tx, user), ctx, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
-        } catch (error) {
-          if (error instanceof MutationRejected) throw new AppError(ErrorCode.ValidationFailed, error.reason);
-          throw error;
-        }
+        // A server-side write has seen every value: it never opens a new conflict.
+        const actor = { user, clientId: null, mutationId: null };
+        await this.commands.writeFields(this.commands.store(tx, user), actor, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
       }
       return toSyncConflict(await this.sync.markResolved(id, { resolution: input.keep, resolvedBy: user.userId }, tx));
     });

@@ -33,7 +33,7 @@ const create = (overrides: Record<string, unknown> = {}) => {
   return { entity: 'finding', entityId: body.id, action: 'create', baseVersion: 0, payload: body };
 };
 const update = (id: string, baseVersion: number, payload: Record<string, unknown>) => ({ entity: 'finding', entityId: id, action: 'update', baseVersion, payload });
-const state = (id: string, to: string, note = '') => ({ entity: 'finding', entityId: id, action: 'state', payload: { to, note } });
+const state = (id: string, to: string, note = '') => ({ entity: 'finding', entityId: id, action: 'state', payload: { to, note, photoIds: [randomUUID()] } });
 
 async function finding(id: string) {
   return (await api.call('demo:manager', 'GET', `/findings/${id}`)).body as { notes: string; heightM: number; version: number; state: string; riskScore: number };

@@ -4,7 +4,7 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { inScope } from '../findings/findings.service.js';
+import { inScope } from '../findings/finding-command-rules.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { BatchFallback, BatchSyncStore } from './batch-sync-store.js';
 import { faultAfter, faultPoint } from './fault-injection.js';

@@ -122,6 +122,10 @@ export const FindingSchema = z.object({
   madeSafeUntil: DateTimeSchema.nullable(),
   /** Set when the assigned foreman handed the finding back; cleared by the next assignment. */
   handBack: FindingHandBackSchema.nullable(),
+  /** The made-safe measure: the control taken, the radius of a closed zone (m), its proof photos. */
+  madeSafeControl: FindingControlSchema.nullable().optional(),
+  zoneRadiusM: z.number().nullable().optional(),
+  madeSafePhotoIds: z.array(IdSchema).optional(),
   createdBy: IdSchema,
   createdAt: DateTimeSchema,
   updatedAt: DateTimeSchema,

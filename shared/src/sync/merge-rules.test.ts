@@ -110,6 +110,13 @@ describe('state commands', () => {
     expect(decideStateCommand('fixed', 'verified', 'foreman', true)).toMatchObject({ kind: 'reject', code: 'role' });
     expect(decideStateCommand('open', 'fixed', 'foreman', false)).toMatchObject({ kind: 'reject', code: 'scope' });
   });
+
+  it('refuses the state a finding is already in to a caller who could never move it there', () => {
+    expect(decideStateCommand('verified', 'verified', 'foreman', true)).toMatchObject({ kind: 'reject', code: 'role' });
+    expect(decideStateCommand('fixed', 'fixed', 'foreman', false)).toMatchObject({ kind: 'reject', code: 'scope' });
+    expect(decideStateCommand('open', 'open', 'admin', false)).toMatchObject({ kind: 'reject', code: 'role' });
+    expect(decideStateCommand('open', 'open', 'manager', false)).toEqual({ kind: 'noop' });
+  });
 });
 
 describe('settling a conflict', () => {

@@ -4,7 +4,7 @@
  * conflict, how a state command resolves, and what settling a conflict writes.
  */
 import type { Role } from '../auth/roles.js';
-import { checkFindingTransition, type FindingState, type FindingTransition } from '../findings/finding-state.js';
+import { checkFindingTransition, FINDING_TRANSITIONS, type FindingState, type FindingTransition } from '../findings/finding-state.js';
 
 /** The fields of a finding a phone may patch; `item` is one field (name, mass and shape travel together). */
 export const FINDING_SYNC_FIELDS = ['elevation', 'lift', 'bay', 'heightM', 'item', 'exposure', 'likelihoodAnswers', 'notes'] as const;
@@ -14,6 +14,9 @@ export type FindingSyncField = (typeof FINDING_SYNC_FIELDS)[number];
 export interface FieldStamp {
   v: number;
   c: string | null;
+  /** The user who wrote it and when (ISO), so a conflict names them; absent on stamps written before these were kept. */
+  u?: string | null;
+  t?: string;
 }
 export type FieldStamps = Record<string, FieldStamp>;
 
@@ -65,9 +68,13 @@ export interface FieldMergeInput {
   patch: Readonly<Record<string, unknown>>;
   /** The record version the writer last saw. */
   baseVersion: number;
-  clientId: string;
+  /** The writing client; null for a write made on the server (a REST edit), which has seen every value. */
+  clientId: string | null;
   /** The record's version after this write. */
   nextVersion: number;
+  /** Who writes, and when (ISO): kept on the stamps so a later conflict names the replaced value's writer. */
+  userId?: string | null;
+  at?: string;
 }
 
 export interface FieldMergeResult {
@@ -94,14 +101,15 @@ export function mergeFieldPatch(input: FieldMergeInput): FieldMergeResult {
     const unseen = stamp.v > input.baseVersion && stamp.c !== input.clientId;
     if (unseen) conflicts.push({ field, currentValue: value, replacedValue: input.current[field] ?? null, replacedStamp: stamp });
     changes[field] = value;
-    stamps[field] = { v: input.nextVersion, c: input.clientId };
+    stamps[field] = { v: input.nextVersion, c: input.clientId, ...(input.userId !== undefined ? { u: input.userId } : {}), ...(input.at ? { t: input.at } : {}) };
   }
   return { changes, stamps, conflicts };
 }
 
 /** Stamps for a record made by `clientId`: every given field written at version 1. */
-export function stampsOfCreate(fields: readonly string[], clientId: string): FieldStamps {
-  return Object.fromEntries(fields.map((field) => [field, { v: 1, c: clientId }]));
+export function stampsOfCreate(fields: readonly string[], clientId: string | null, userId?: string, at?: string): FieldStamps {
+  const who = { ...(userId !== undefined ? { u: userId } : {}), ...(at ? { t: at } : {}) };
+  return Object.fromEntries(fields.map((field) => [field, { v: 1, c: clientId, ...who }]));
 }
 
 export type StateCommandDecision =
@@ -110,12 +118,20 @@ export type StateCommandDecision =
   | { kind: 'reject'; reason: string; code: 'illegal' | 'role' | 'scope' };
 
 /**
- * A state change is a command, checked by the one state machine: asking for the state the finding
- * is already in (two phones marking it fixed) changes nothing; an illegal or forbidden move is
- * rejected with a reason the phone shows.
+ * A state change is a command, checked by the one state machine (the same for REST and sync).
+ * Asking for the state the finding is already in (two phones marking it fixed) changes nothing and
+ * is answered as applied with a reason, through REST and push alike, provided the caller could have
+ * moved it there (a role with some transition into that state, a foreman in scope); otherwise it is
+ * refused like any move that role may not make. An illegal or forbidden move is rejected with a
+ * reason the phone shows.
  */
 export function decideStateCommand(from: FindingState, to: FindingState, role: Role, foremanInScope: boolean): StateCommandDecision {
-  if (from === to) return { kind: 'noop' };
+  if (from === to) {
+    const couldReach = FINDING_TRANSITIONS.some((t) => t.to === to && t.roles.includes(role));
+    if (!couldReach) return { kind: 'reject', reason: `Your role cannot move a finding to ${to}`, code: 'role' };
+    if (role === 'foreman' && !foremanInScope) return { kind: 'reject', reason: 'The finding is not on your scaffolds or assigned to you', code: 'scope' };
+    return { kind: 'noop' };
+  }
   const check = checkFindingTransition(from, to, role, foremanInScope);
   if (check.ok) return { kind: 'apply', transition: check.transition };
   const reason = {

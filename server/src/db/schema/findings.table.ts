@@ -1,4 +1,5 @@
 import { bigserial, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
 import { createdAt, updatedAt, version } from './columns.js';
 import { catalogueItems } from './catalogue.table.js';
 import { inspections } from './inspections.table.js';
@@ -44,6 +45,13 @@ export const findings = pgTable(
     dueAt: timestamp('due_at', { withTimezone: true }),
     notes: text('notes').notNull().default(''),
     madeSafeNote: text('made_safe_note'),
+    // The fix loop: the made-safe measure (control, closed zone radius, proof photos) and when it lapses.
+    madeSafeControl: text('made_safe_control'),
+    zoneRadiusM: real('zone_radius_m'),
+    madeSafePhotoIds: uuid('made_safe_photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
+    madeSafeUntil: timestamp('made_safe_until', { withTimezone: true }),
+    /** FindingHandBackSchema: the latest hand back by a foreman, cleared by the next assignment. */
+    handBack: jsonb('hand_back'),
     createdBy: uuid('created_by').notNull().references(() => users.id),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -69,6 +77,10 @@ export const fixes = pgTable('fixes', {
   fixedBy: uuid('fixed_by').notNull().references(() => users.id),
   fixedAt: timestamp('fixed_at', { withTimezone: true }).notNull(),
   note: text('note').notNull().default(''),
+  /** FINDING_CONTROLS; an alteration control marks the scaffold altered. */
+  control: text('control'),
+  /** Proof photos (photos owned by this fix; they may upload later). */
+  photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
   createdAt: createdAt(),
 });
 
@@ -82,6 +94,7 @@ export const verifications = pgTable('verifications', {
   verifiedAt: timestamp('verified_at', { withTimezone: true }).notNull(),
   outcome: verificationOutcomeEnum('outcome').notNull(),
   note: text('note').notNull().default(''),
+  photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
   createdAt: createdAt(),
 });
 

@@ -41,6 +41,8 @@ export const scaffolds = pgTable(
     foremanId: uuid('foreman_id').references(() => users.id, { onDelete: 'set null' }),
     lastInspectedAt: timestamp('last_inspected_at', { withTimezone: true }),
     nextDueAt: timestamp('next_due_at', { withTimezone: true }),
+    /** Last changed by a fix that alters the scaffold (toe boards, guards, netting, fans): inspect before use. */
+    alteredAt: timestamp('altered_at', { withTimezone: true }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),

@@ -83,6 +83,9 @@ export const syncConflicts = pgTable(
     replacedValue: jsonb('replaced_value'),
     replacedVersion: integer('replaced_version').notNull(),
     replacedClientId: uuid('replaced_client_id'),
+    /** Who wrote the replaced value, and when (the conflict card names them). */
+    replacedUserId: uuid('replaced_user_id').references(() => users.id, { onDelete: 'set null' }),
+    replacedAt: timestamp('replaced_at', { withTimezone: true }),
     winnerClientId: uuid('winner_client_id').notNull(),
     winnerUserId: uuid('winner_user_id').references(() => users.id, { onDelete: 'set null' }),
     mutationId: bigint('mutation_id', { mode: 'number' }).notNull(),
