@@ -6,16 +6,18 @@ import type { Request } from 'express';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { IS_PUBLIC, ROLES } from './auth.decorators.js';
 import type { AccessTokenClaims, AuthUser } from './auth.types.js';
+import { SessionStateCache } from './session-state.cache.js';
 
 /**
  * Global guard: every route needs a valid access JWT unless marked @Public(); @Roles() narrows
- * it further. Stateless, so any replica can check any token.
+ * it further. Any replica can check any token: the signature, then the user's session version.
  */
 @Injectable()
 export class AuthGuard implements CanActivate {
   constructor(
     private readonly jwt: JwtService,
     private readonly reflector: Reflector,
+    private readonly sessionStates: SessionStateCache,
   ) {}
 
   async canActivate(context: ExecutionContext): Promise<boolean> {
@@ -33,6 +35,11 @@ export class AuthGuard implements CanActivate {
     }
     if (!claims.sub || !claims.org || !ROLE_VALUES.includes(claims.role)) {
       throw new AppError(ErrorCode.Unauthenticated, 'The access token is not valid');
+    }
+    // Signatures alone cannot be revoked: the user's session version in PostgreSQL (cached a few seconds) can.
+    const state = await this.sessionStates.get(claims.sub, claims.org);
+    if (!state || !state.active || state.sessionVersion !== (claims.ver ?? 0)) {
+      throw new AppError(ErrorCode.Unauthenticated, 'The session was ended; sign in again');
     }
     req.user = { userId: claims.sub, organisationId: claims.org, role: claims.role };
     const allowed = this.reflector.getAllAndOverride<Role[] | undefined>(ROLES, targets);

@@ -12,4 +12,6 @@ export interface AccessTokenClaims {
   sub: string;
   org: string;
   role: Role;
+  /** The user's session version when the token was made; absent in tokens made before versions existed (read as 0). */
+  ver?: number;
 }

@@ -10,6 +10,12 @@ export enum ErrorCode {
   RateLimited = 'RATE_LIMITED',
   UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
   ServiceUnavailable = 'SERVICE_UNAVAILABLE',
+  /** An image whose decoded size (width × height) is above the limit, however small its file. */
+  ImageTooLarge = 'IMAGE_TOO_LARGE',
+  /** Every upload slot of this server process is busy; retry shortly (Retry-After). */
+  UploadsBusy = 'UPLOADS_BUSY',
+  /** A list or sync cursor that this server did not write (forged, truncated or from another list). */
+  InvalidCursor = 'INVALID_CURSOR',
   Internal = 'INTERNAL',
 }
 
@@ -24,6 +30,9 @@ const STATUS: Record<ErrorCode, number> = {
   [ErrorCode.RateLimited]: 429,
   [ErrorCode.UnsupportedMediaType]: 415,
   [ErrorCode.ServiceUnavailable]: 503,
+  [ErrorCode.ImageTooLarge]: 413,
+  [ErrorCode.UploadsBusy]: 503,
+  [ErrorCode.InvalidCursor]: 400,
   [ErrorCode.Internal]: 500,
 };
 
