@@ -14,8 +14,6 @@ export enum ErrorCode {
   ImageTooLarge = 'IMAGE_TOO_LARGE',
   /** Every upload slot of this server process is busy; retry shortly (Retry-After). */
   UploadsBusy = 'UPLOADS_BUSY',
-  /** A list or sync cursor that this server did not write (forged, truncated or from another list). */
-  InvalidCursor = 'INVALID_CURSOR',
   Internal = 'INTERNAL',
 }
 
@@ -32,7 +30,6 @@ const STATUS: Record<ErrorCode, number> = {
   [ErrorCode.ServiceUnavailable]: 503,
   [ErrorCode.ImageTooLarge]: 413,
   [ErrorCode.UploadsBusy]: 503,
-  [ErrorCode.InvalidCursor]: 400,
   [ErrorCode.Internal]: 500,
 };
 
