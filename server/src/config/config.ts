@@ -63,6 +63,11 @@ export const ConfigSchema = z.object({
     .enum(['true', 'false'])
     .default('true')
     .transform((v) => v === 'true'),
+  /**
+   * Applied sync mutations are kept this long (days, at least 30) to recognise a repeated push:
+   * it is the longest a phone may stay offline and still have its queued changes applied once.
+   */
+  SYNC_MUTATION_RETENTION_DAYS: z.coerce.number().int().min(30).default(45),
   MAX_JSON_BODY: z.string().default('1mb'),
   MAX_UPLOAD_BYTES: z.coerce.number().int().min(1024).default(15 * 1024 * 1024),
   /** Uploads one process reads and decodes at once; more answer 503 UPLOADS_BUSY with Retry-After. */
