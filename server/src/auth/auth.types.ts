@@ -5,6 +5,8 @@ export interface AuthUser {
   userId: string;
   organisationId: string;
   role: Role;
+  /** Set only on routes marked @AcceptsEndedSession when the token's session has ended. */
+  sessionEnded?: true;
 }
 
 /** Claims inside the access JWT. */
