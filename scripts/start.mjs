@@ -44,33 +44,43 @@ async function main() {
   await pg.ensureDatabase('plummet');
   say(`PostgreSQL on 127.0.0.1:${PG_PORT}`);
 
-  const { startFakes } = await import('./lib/fakes.mjs');
-  fakes = await startFakes({
-    mailDir: join(DATA_DIR, 'mail'),
-    s3Dir: join(DATA_DIR, 's3'),
-    smtpPort: SMTP_PORT,
-    s3Port: S3_PORT,
-    bucket: BUCKET,
-  });
-  say(`mail fake on 127.0.0.1:${fakes.smtpPort} (messages in ${join(DATA_DIR, 'mail')}), object store on ${fakes.s3Endpoint}`);
+  // NODE_ENV is set explicitly: the server treats an unset NODE_ENV as production.
+  const nodeEnv = process.env.NODE_ENV ?? 'development';
+  const production = nodeEnv === 'production';
+  if (!production) {
+    const { startFakes } = await import('./lib/fakes.mjs');
+    fakes = await startFakes({
+      mailDir: join(DATA_DIR, 'mail'),
+      s3Dir: join(DATA_DIR, 's3'),
+      smtpPort: SMTP_PORT,
+      s3Port: S3_PORT,
+      bucket: BUCKET,
+    });
+    say(`mail fake on 127.0.0.1:${fakes.smtpPort} (messages in ${join(DATA_DIR, 'mail')}), object store on ${fakes.s3Endpoint}`);
+  } else {
+    say('NODE_ENV=production: no local fakes; SMTP_*, S3_*, JWT_SECRET and PUBLIC_URL come from the environment');
+  }
 
   say('building…');
   await buildAll();
 
   const env = {
     ...process.env,
-    NODE_ENV: process.env.NODE_ENV ?? 'development',
+    NODE_ENV: nodeEnv,
     HOST: '127.0.0.1',
     PORT: String(PORT),
     DATABASE_URL: pg.url('plummet'),
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(fakes.smtpPort),
-    MAIL_DIR: join(DATA_DIR, 'mail'),
-    S3_ENDPOINT: fakes.s3Endpoint,
-    S3_BUCKET: BUCKET,
-    PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${PORT}`,
+    ...(production
+      ? {}
+      : {
+          SMTP_HOST: '127.0.0.1',
+          SMTP_PORT: String(fakes.smtpPort),
+          MAIL_DIR: join(DATA_DIR, 'mail'),
+          S3_ENDPOINT: fakes.s3Endpoint,
+          S3_BUCKET: BUCKET,
+          PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${PORT}`,
+        }),
   };
-  const production = env.NODE_ENV === 'production';
   if (production) say('NODE_ENV=production: migrating only; the demo data is never seeded in production');
   await migrateAndSeed(env, { migrateOnly: production }).catch((e) => fail(e.message));
   server = await startServer(env);
@@ -81,12 +91,14 @@ async function main() {
     }
   });
 
-  const { DEMO_USERS, DEMO_PASSWORD } = await import(join(ROOT, 'server/dist/seed/demo-data.js'));
   say(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   console.log(`\n  Plummet is running at http://127.0.0.1:${PORT}   (API under /api, docs at /api/docs)\n`);
-  console.log(`  Demo sign-ins (password: ${DEMO_PASSWORD}):`);
-  for (const u of DEMO_USERS) console.log(`    ${u.email.padEnd(22)} ${u.role}`);
-  console.log(`\n  Captured e-mail: ${join(DATA_DIR, 'mail')}/*.eml`);
+  if (!production) {
+    const { DEMO_USERS, DEMO_PASSWORD } = await import(join(ROOT, 'server/dist/seed/demo-data.js'));
+    console.log(`  Demo sign-ins (password: ${DEMO_PASSWORD}):`);
+    for (const u of DEMO_USERS) console.log(`    ${u.email.padEnd(22)} ${u.role}`);
+    console.log(`\n  Captured e-mail: ${join(DATA_DIR, 'mail')}/*.eml`);
+  }
   console.log('  Ctrl-C stops everything.\n');
 }
 

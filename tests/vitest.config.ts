@@ -3,7 +3,7 @@ import { defineProject } from 'vitest/config';
 export default defineProject({
   test: {
     name: 'e2e',
-    include: ['e2e/**/*.test.ts', 'api/**/*.test.ts', 'sync/**/*.test.ts'],
+    include: ['e2e/**/*.test.ts', 'api/**/*.test.ts', 'sync/**/*.test.ts', 'security/**/*.test.ts'],
     environment: 'node',
     // One browser journey at a time: the CI machine has two cores.
     fileParallelism: false,

@@ -21,9 +21,26 @@ import { FindingsModule } from './findings/findings.module.js';
 import { CatalogueModule } from './catalogue/catalogue.module.js';
 import { SyncModule } from './sync/sync.module.js';
 import { OrganisationsModule } from './organisations/organisations.module.js';
+import { HousekeepingModule } from './housekeeping/housekeeping.module.js';
 
 /** Feature modules are listed here once each. */
-const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule, OrganisationsModule];
+const FEATURES = [
+  HealthModule,
+  RateLimitModule,
+  MailModule,
+  UsersModule,
+  AuthModule,
+  PhotosModule,
+  AuditModule,
+  SitesModule,
+  ScaffoldsModule,
+  InspectionsModule,
+  FindingsModule,
+  CatalogueModule,
+  SyncModule,
+  OrganisationsModule,
+  HousekeepingModule,
+];
 
 @Module({})
 export class AppModule {

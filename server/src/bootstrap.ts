@@ -16,7 +16,7 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), { bufferLogs: true, bodyParser: false });
   app.useLogger(app.get(Logger));
   app.enableShutdownHooks();
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.TRUST_PROXY);
   app.disable('x-powered-by');
   app.use(
     helmet({

@@ -41,12 +41,12 @@ export async function startTestApp(options: { seed?: boolean; env?: Record<strin
     baseUrl: `http://127.0.0.1:${address.port}`,
     async tokenFor(email: string) {
       const [row] = await drizzle
-        .select({ userId: users.id, org: memberships.organisationId, role: memberships.role })
+        .select({ userId: users.id, org: memberships.organisationId, role: memberships.role, ver: users.sessionVersion })
         .from(users)
         .innerJoin(memberships, eq(memberships.userId, users.id))
         .where(eq(users.email, email));
       if (!row) throw new Error(`no seeded user ${email}`);
-      return jwt.signAsync({ sub: row.userId, org: row.org, role: row.role });
+      return jwt.signAsync({ sub: row.userId, org: row.org, role: row.role, ver: row.ver });
     },
     async close() {
       await app.close();

@@ -18,6 +18,15 @@ const FINDINGS = 100_000;
 const CONNECTIONS = 100;
 const DURATION_S = Number(process.env.BENCH_DURATION_S ?? 10);
 const JWT_SECRET = 'bench-secret-bench-secret-bench-secret-0123456789';
+// Production refuses development defaults; the bench sends no mail and stores no photo.
+const PRODUCTION_STAND_INS = {
+  PUBLIC_URL: 'http://127.0.0.1',
+  SMTP_HOST: '127.0.0.1',
+  MAIL_FROM: 'Plummet bench <bench@plummet.test>',
+  S3_BUCKET: 'plummet-bench',
+  S3_ACCESS_KEY_ID: 'bench-access-key',
+  S3_SECRET_ACCESS_KEY: 'bench-secret-key',
+};
 
 let pg;
 let server;
@@ -125,7 +134,7 @@ async function main() {
   const token = accessToken({ sub: userId, org: orgId, role: 'manager' });
 
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
+  server = await startServer({ ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
   const base = `http://127.0.0.1:${port}/api`;
   const headers = { authorization: `Bearer ${token}` };
 

@@ -17,6 +17,15 @@ import { ensurePostgresBinaries, LocalPostgres } from '../../scripts/lib/postgre
 const PUSH = 1000;
 const PULL = 10_000;
 const JWT_SECRET = 'bench-secret-bench-secret-bench-secret-0123456789';
+// Production refuses development defaults; the bench sends no mail and stores no photo.
+const PRODUCTION_STAND_INS = {
+  PUBLIC_URL: 'http://127.0.0.1',
+  SMTP_HOST: '127.0.0.1',
+  MAIL_FROM: 'Plummet bench <bench@plummet.test>',
+  S3_BUCKET: 'plummet-bench',
+  S3_ACCESS_KEY_ID: 'bench-access-key',
+  S3_SECRET_ACCESS_KEY: 'bench-secret-key',
+};
 
 let postgres;
 let server;
@@ -76,7 +85,7 @@ async function main() {
   const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: postgres.url('plummet_bench'), JWT_SECRET, LOG_LEVEL: 'warn', HOST: '127.0.0.1' };
   await migrateAndSeed(env);
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port), MAX_JSON_BODY: '5mb' }, { stdio: ['ignore', 'ignore', 'inherit'] });
+  server = await startServer({ ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, PORT: String(port), MAX_JSON_BODY: '5mb' }, { stdio: ['ignore', 'ignore', 'inherit'] });
   const base = `http://127.0.0.1:${port}/api`;
 
   const db = new pg.Client({ connectionString: postgres.url('plummet_bench') });

@@ -3,6 +3,8 @@ import { APP_GUARD } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { AuthGuard } from './auth.guard.js';
+import { SessionStateCache } from './session-state.cache.js';
+import { SessionStateRepository } from './session-state.repository.js';
 
 /** JWT signing/verification and the global guard; sign-in routes live in AuthModule. */
 @Global()
@@ -17,7 +19,7 @@ import { AuthGuard } from './auth.guard.js';
       }),
     }),
   ],
-  providers: [{ provide: APP_GUARD, useClass: AuthGuard }],
-  exports: [JwtModule],
+  providers: [{ provide: APP_GUARD, useClass: AuthGuard }, SessionStateRepository, SessionStateCache],
+  exports: [JwtModule, SessionStateRepository, SessionStateCache],
 })
 export class AuthCoreModule {}

@@ -16,7 +16,7 @@ import { InvitationsService } from './invitations.service.js';
 import { PasswordResetService } from './password-reset.service.js';
 import { SessionsService } from './sessions.service.js';
 
-/** The client's address as Express sees it (X-Forwarded-For only from a loopback proxy; see bootstrap). */
+/** The client's address as Express sees it (X-Forwarded-For only from proxies trusted by TRUST_PROXY). */
 function clientAddress(req: Request): string {
   return req.ip ?? req.socket.remoteAddress ?? 'unknown';
 }

@@ -8,7 +8,7 @@ import { AuthService, SIGN_IN_REFUSED } from './auth.service.js';
 import type { PasswordHasher } from './password-hasher.js';
 import type { SessionsService } from './sessions.service.js';
 
-const config = { SIGN_IN_ACCOUNT_LIMIT: 5, SIGN_IN_ADDRESS_LIMIT: 30, SIGN_IN_WINDOW_S: 900 } as AppConfig;
+const config = { SIGN_IN_ACCOUNT_LIMIT: 5, SIGN_IN_ADDRESS_LIMIT: 30, SIGN_IN_WINDOW_S: 900, SIGN_IN_DELAY_BASE_S: 2, SIGN_IN_DELAY_MAX_S: 300 } as AppConfig;
 
 const account: SignInCandidate = {
   userId: '11111111-1111-4111-8111-111111111111',
@@ -17,6 +17,7 @@ const account: SignInCandidate = {
   position: 'Inspector',
   units: 'si',
   active: true,
+  sessionVersion: 0,
   role: 'inspector',
   organisationId: '22222222-2222-4222-8222-222222222222',
   organisationName: 'Harrow & Span Access Ltd',
@@ -27,7 +28,12 @@ function setUp(found: SignInCandidate | null, passwordMatches: boolean) {
   const users = { findSignInCandidate: vi.fn(async () => found) };
   const passwords = { verify: vi.fn(async () => passwordMatches) };
   const sessions = { start: vi.fn(async () => ({ accessToken: 'a', refreshToken: 'r', user: {} })) };
-  const limits = { consume: vi.fn(async () => undefined), reset: vi.fn(async () => undefined) };
+  const limits = {
+    consume: vi.fn(async () => undefined),
+    attemptWithDelay: vi.fn(async () => undefined),
+    refund: vi.fn(async () => undefined),
+    reset: vi.fn(async () => undefined),
+  };
   const service = new AuthService(
     config,
     users as unknown as UsersRepository,
@@ -68,14 +74,19 @@ describe('AuthService.signIn with the repositories replaced', () => {
     expect(inactiveSetUp.sessions.start).not.toHaveBeenCalled();
   });
 
-  it('counts the attempt against the address and the account before checking the password', async () => {
+  it('keeps a wrong password counted against the address (its /64 for IPv6) and the account', async () => {
     const { service, limits } = setUp(account, false);
-    await refusal(service.signIn(input, '203.0.113.7'));
-    expect(limits.consume.mock.calls.map((c) => (c as unknown as [{ key: string }])[0].key)).toEqual([
-      'sign-in:address:203.0.113.7',
-      'sign-in:account:inspector@demo.test',
-    ]);
+    await refusal(service.signIn(input, '2001:db8:1:2:aaaa::7'));
+    expect(limits.consume.mock.calls.map((c) => (c as unknown as [{ key: string }])[0].key)).toEqual(['sign-in:address:2001:db8:1:2::/64']);
+    expect(limits.attemptWithDelay.mock.calls.map((c) => (c as unknown as [string])[0])).toEqual(['sign-in:account:inspector@demo.test']);
+    expect(limits.refund).not.toHaveBeenCalled();
     expect(limits.reset).not.toHaveBeenCalled();
+  });
+
+  it('gives the attempt back to the address when the password was right', async () => {
+    const { service, limits } = setUp(account, true);
+    await service.signIn(input, '203.0.113.7');
+    expect(limits.refund).toHaveBeenCalledWith('sign-in:address:203.0.113.7');
   });
 
   it('checks no password at all once a limit is reached', async () => {

@@ -2,6 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Session, SignIn } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { addressLimitKey } from '../rate-limit/client-address.js';
 import { RateLimitService } from '../rate-limit/rate-limit.service.js';
 import { UsersRepository } from '../users/users.repository.js';
 import { PasswordHasher } from './password-hasher.js';
@@ -22,18 +23,34 @@ export class AuthService {
 
   /**
    * Checks the password (always, even for unknown or inactive accounts, so timing is alike) under
-   * two limits: attempts per client address, and attempts per account since its last success.
+   * two limits. Per client address (IPv6 by its /64): a fixed window of attempts, taken before the
+   * check so concurrent guesses cannot all slip through, and given back when the password was
+   * right, so a successful sign-in never counts. Per account: no lockout, a growing delay between
+   * attempts once several have failed; a success forgets the failures.
    */
   async signIn(input: SignIn, address: string): Promise<Session> {
     const windowS = this.config.SIGN_IN_WINDOW_S;
-    await this.limits.consume({ key: `sign-in:address:${address}`, limit: this.config.SIGN_IN_ADDRESS_LIMIT, windowS });
+    const addressKey = `sign-in:address:${addressLimitKey(address)}`;
+    await this.limits.consume({ key: addressKey, limit: this.config.SIGN_IN_ADDRESS_LIMIT, windowS });
     const accountKey = `sign-in:account:${input.email}`;
-    await this.limits.consume({ key: accountKey, limit: this.config.SIGN_IN_ACCOUNT_LIMIT, windowS });
+    try {
+      await this.limits.attemptWithDelay(accountKey, {
+        freeAttempts: this.config.SIGN_IN_ACCOUNT_LIMIT,
+        quietS: windowS,
+        baseDelayS: this.config.SIGN_IN_DELAY_BASE_S,
+        maxDelayS: this.config.SIGN_IN_DELAY_MAX_S,
+      });
+    } catch (error) {
+      // Refused before any password was looked at: not an attempt against the address either.
+      await this.limits.refund(addressKey);
+      throw error;
+    }
 
     const candidate = await this.users.findSignInCandidate(input.email);
     const matches = await this.passwords.verify(candidate?.passwordHash ?? null, input.password);
     if (!candidate || !matches || !candidate.active) throw new AppError(ErrorCode.Unauthenticated, SIGN_IN_REFUSED);
 
+    await this.limits.refund(addressKey);
     await this.limits.reset(accountKey);
     const { passwordHash: _hash, ...profile } = candidate;
     return this.sessions.start(profile);

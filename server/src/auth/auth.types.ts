@@ -5,6 +5,8 @@ export interface AuthUser {
   userId: string;
   organisationId: string;
   role: Role;
+  /** Set only on routes marked @AcceptsEndedSession when the token's session has ended. */
+  sessionEnded?: true;
 }
 
 /** Claims inside the access JWT. */
@@ -12,4 +14,6 @@ export interface AccessTokenClaims {
   sub: string;
   org: string;
   role: Role;
+  /** The user's session version when the token was made; absent in tokens made before versions existed (read as 0). */
+  ver?: number;
 }

@@ -146,15 +146,21 @@ describe('an invitation while the mail server is unreachable', () => {
     await t?.close();
   });
 
-  it('answers 503 SERVICE_UNAVAILABLE and keeps neither the user nor the link', async () => {
+  it('answers 503 SERVICE_UNAVAILABLE after the commit: the invitation stays pending and inviting again renews it', async () => {
     const adminToken = await t.tokenFor('admin@demo.test');
-    const before = await accountTablesDigest(t.drizzle);
-    const res = await api(t.baseUrl, 'POST', '/users/invitations', {
-      body: { email: 'unsent@demo.test', name: 'Never Sent', role: 'inspector' },
-      token: adminToken,
-    });
+    const invite = () =>
+      api(t.baseUrl, 'POST', '/users/invitations', {
+        body: { email: 'unsent@demo.test', name: 'Never Sent', role: 'inspector' },
+        token: adminToken,
+      });
+    const res = await invite();
     expect(res.status).toBe(503);
     expect(res.body.code).toBe('SERVICE_UNAVAILABLE');
-    expect(await accountTablesDigest(t.drizzle)).toEqual(before);
+    expect(res.body.message).toMatch(/invite again/);
+    const [pending] = await t.drizzle.select().from(users).where(eq(users.email, 'unsent@demo.test'));
+    expect(pending?.passwordHash).toBeNull();
+    expect((await invite()).body.code).toBe('SERVICE_UNAVAILABLE');
+    const links = await t.drizzle.select().from(emailTokens).where(eq(emailTokens.userId, pending!.id));
+    expect(links.filter((l) => l.usedAt === null)).toHaveLength(1);
   });
 });

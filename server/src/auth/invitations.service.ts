@@ -30,12 +30,14 @@ export class InvitationsService {
 
   /**
    * Creates the account (no password yet) and membership, or renews a pending invitation of the
-   * same organisation. The e-mail is sent inside the transaction: if it cannot go, nothing is kept.
+   * same organisation, then sends the e-mail after the commit (a slow mail server must not hold a
+   * database transaction). If it cannot go, the invitation stays pending and inviting again
+   * renews it with a fresh link.
    */
   async invite(admin: AuthUser, input: InvitationCreate): Promise<Member> {
     const inviter = await this.users.findProfile(admin.userId, admin.organisationId);
     if (!inviter) throw AppError.notFound('User');
-    return this.db.transaction(async (tx) => {
+    const { member, link } = await this.db.transaction(async (tx) => {
       const existing = await this.users.findUserByEmail(input.email, tx);
       let userId: string;
       if (existing) {
@@ -69,11 +71,15 @@ export class InvitationsService {
         },
         tx,
       );
-      const link = publicLink(this.config.PUBLIC_URL, this.config.HOST, this.config.PORT, '/accept-invite', token);
-      const validDays = Math.max(1, Math.round(ttlS / 86_400));
-      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }));
-      return toMember(member);
+      return { member, link: publicLink(this.config.PUBLIC_URL, this.config.HOST, this.config.PORT, '/accept-invite', token) };
     });
+    const validDays = Math.max(1, Math.round(this.config.INVITE_TOKEN_TTL_S / 86_400));
+    try {
+      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }));
+    } catch {
+      throw new AppError(ErrorCode.ServiceUnavailable, 'The invitation is saved but its e-mail could not be sent; invite again to send a new link');
+    }
+    return toMember(member);
   }
 
   /** Spends the invitation, sets the password and opens a session in the inviting organisation. */

@@ -11,7 +11,8 @@ import { EmailTokensRepository } from './email-tokens.repository.js';
 import { LINK_REFUSED } from './invitations.service.js';
 import { hashOpaqueToken, newOpaqueToken } from './opaque-token.js';
 import { PasswordHasher } from './password-hasher.js';
-import { RefreshTokensRepository } from './refresh-tokens.repository.js';
+import { SessionStateCache } from './session-state.cache.js';
+import { SessionStateRepository } from './session-state.repository.js';
 
 /** Password reset by e-mailed link; the request never reveals whether an account exists. */
 @Injectable()
@@ -23,7 +24,8 @@ export class PasswordResetService {
     @Inject(APP_CONFIG) private readonly config: AppConfig,
     private readonly users: UsersRepository,
     private readonly emailTokens: EmailTokensRepository,
-    private readonly refreshTokens: RefreshTokensRepository,
+    private readonly sessionStates: SessionStateRepository,
+    private readonly sessionCache: SessionStateCache,
     private readonly passwords: PasswordHasher,
     private readonly limits: RateLimitService,
     private readonly mail: MailService,
@@ -37,7 +39,14 @@ export class PasswordResetService {
     if (!account || !account.active) return;
     const { token, hash } = newOpaqueToken();
     const ttlS = this.config.PASSWORD_RESET_TOKEN_TTL_S;
-    await this.emailTokens.insert({ kind: 'password-reset', userId: account.userId, tokenHash: hash, expiresAt: new Date(Date.now() + ttlS * 1000) });
+    // Only the newest link works: an older one lying in a mailbox is spent by asking again.
+    await this.db.transaction(async (tx) => {
+      await this.emailTokens.spendAllForUser(account.userId, tx, 'password-reset');
+      await this.emailTokens.insert(
+        { kind: 'password-reset', userId: account.userId, tokenHash: hash, expiresAt: new Date(Date.now() + ttlS * 1000) },
+        tx,
+      );
+    });
     const link = publicLink(this.config.PUBLIC_URL, this.config.HOST, this.config.PORT, '/reset-password', token);
     // Not awaited: waiting for SMTP only when the account exists would tell the caller that it does.
     this.mail
@@ -50,13 +59,14 @@ export class PasswordResetService {
     const tokenHash = hashOpaqueToken(input.token);
     if (!(await this.emailTokens.findUsable('password-reset', tokenHash))) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
     const passwordHash = await this.passwords.hash(input.password);
-    await this.db.transaction(async (tx) => {
+    const userId = await this.db.transaction(async (tx) => {
       const token = await this.emailTokens.findUsable('password-reset', tokenHash, tx, true);
       const account = token ? await this.users.findUser(token.userId, tx) : null;
       if (!token || !account || !account.active) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
       await this.users.updateUser(account.id, { passwordHash }, tx);
       await this.emailTokens.spendAllForUser(account.id, tx);
-      await this.refreshTokens.revokeAllForUser(account.id, tx);
+      // Whoever knew the old password may hold tokens: every access and refresh token of the user ends.
+      await this.sessionStates.endAllSessions(account.id, tx);
       const profile = await this.users.findSignInCandidate(account.email, tx);
       if (profile) {
         await this.users.insertAudit(
@@ -64,6 +74,8 @@ export class PasswordResetService {
           tx,
         );
       }
+      return account.id;
     });
+    this.sessionCache.forget(userId);
   }
 }

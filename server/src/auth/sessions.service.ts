@@ -61,7 +61,8 @@ export class SessionsService {
       }
       // A retry keeps the first use's time, so the window never stretches.
       if (!retried) await this.refreshTokens.markUsed(row.id, tx);
-      const next = await this.addRefreshToken(row.userId, row.organisationId, row.familyId, tx);
+      // The new token inherits the family's expiry: refreshing never lengthens a session past REFRESH_TOKEN_TTL_S.
+      const next = await this.addRefreshToken(row.userId, row.organisationId, row.familyId, tx, row.expiresAt);
       return { ok: true, profile, refreshToken: next };
     });
     if (!outcome.ok) throw new AppError(ErrorCode.Unauthenticated, outcome.message);
@@ -73,15 +74,20 @@ export class SessionsService {
     await this.refreshTokens.revokeFamilyOfToken(hashOpaqueToken(refreshToken));
   }
 
-  private async addRefreshToken(userId: string, organisationId: string, familyId: string, ex: DbExecutor): Promise<string> {
+  private async addRefreshToken(
+    userId: string,
+    organisationId: string,
+    familyId: string,
+    ex: DbExecutor,
+    expiresAt = new Date(Date.now() + this.config.REFRESH_TOKEN_TTL_S * 1000),
+  ): Promise<string> {
     const { token, hash } = newOpaqueToken();
-    const expiresAt = new Date(Date.now() + this.config.REFRESH_TOKEN_TTL_S * 1000);
     await this.refreshTokens.insert({ userId, organisationId, familyId, tokenHash: hash, expiresAt }, ex);
     return token;
   }
 
   private async session(profile: ProfileRow, refreshToken: string): Promise<Session> {
-    const claims: AccessTokenClaims = { sub: profile.userId, org: profile.organisationId, role: profile.role };
+    const claims: AccessTokenClaims = { sub: profile.userId, org: profile.organisationId, role: profile.role, ver: profile.sessionVersion };
     const accessToken = await this.jwt.signAsync(claims);
     return { accessToken, refreshToken, user: toUserProfile(profile) };
   }

@@ -12,6 +12,10 @@ export enum ErrorCode {
   RateLimited = 'RATE_LIMITED',
   UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
   ServiceUnavailable = 'SERVICE_UNAVAILABLE',
+  /** An image whose decoded size (width × height) is above the limit, however small its file. */
+  ImageTooLarge = 'IMAGE_TOO_LARGE',
+  /** Every upload slot of this server process is busy; retry shortly (Retry-After). */
+  UploadsBusy = 'UPLOADS_BUSY',
   Internal = 'INTERNAL',
 }
 
@@ -27,6 +31,8 @@ const STATUS: Record<ErrorCode, number> = {
   [ErrorCode.RateLimited]: 429,
   [ErrorCode.UnsupportedMediaType]: 415,
   [ErrorCode.ServiceUnavailable]: 503,
+  [ErrorCode.ImageTooLarge]: 413,
+  [ErrorCode.UploadsBusy]: 503,
   [ErrorCode.Internal]: 500,
 };
 

@@ -7,6 +7,7 @@
 import { type AnyColumn, type SQL, sql } from 'drizzle-orm';
 import { decodeCursor, encodeCursor, type ListResponse, type SortOrder } from '@plummet/shared';
 import { AppError, ErrorCode } from './app-error.js';
+import { castsCleanly } from './cursor-values.js';
 
 export type SortCast = 'integer' | 'bigint' | 'real' | 'text' | 'timestamptz' | 'uuid';
 
@@ -48,8 +49,8 @@ export function keyset(key: SortKey, id: AnyColumn, query: KeysetQuery, idCast: 
   let after: SQL | undefined;
   if (query.cursor !== undefined) {
     const position = decodeCursor(query.cursor, query.sort, query.order);
-    if (!position || typeof position.value !== 'string') {
-      throw new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [
+    if (!position || typeof position.value !== 'string' || !castsCleanly(position.value, key.cast) || !castsCleanly(position.id, idCast)) {
+      throw new AppError(ErrorCode.ValidationFailed, 'The cursor is not one this list gave out; start again from the first page', [
         { path: ['cursor'], code: 'invalid_cursor', message: 'Not a cursor of this list with this sort and order' },
       ]);
     }

@@ -18,6 +18,10 @@ import * as schema from './schema/index.js';
           max: config.DATABASE_POOL_MAX,
           connectionTimeoutMillis: 5_000,
           idleTimeoutMillis: 30_000,
+          // Set per connection by PostgreSQL itself: a stuck query or a transaction left open by a
+          // stalled request is ended by the server, so it cannot hold a pooled connection for ever.
+          statement_timeout: config.DATABASE_STATEMENT_TIMEOUT_MS,
+          idle_in_transaction_session_timeout: config.DATABASE_IDLE_IN_TRANSACTION_TIMEOUT_MS,
         });
         // An idle client losing its connection must not crash the process.
         pool.on('error', () => undefined);

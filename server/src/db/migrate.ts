@@ -22,6 +22,8 @@ export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultM
   }
   const client = await pool.connect();
   try {
+    // Waiting for another replica's migrations, and a long migration, may outlast the pool's timeouts.
+    await client.query('SET statement_timeout = 0; SET idle_in_transaction_session_timeout = 0');
     await client.query('SELECT pg_advisory_lock($1)', [MIGRATION_LOCK_KEY]);
     try {
       await migrate(drizzle(client), { migrationsFolder });
@@ -29,6 +31,7 @@ export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultM
     } finally {
       await client.query('SELECT pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY]);
     }
+    await client.query('RESET statement_timeout; RESET idle_in_transaction_session_timeout');
   } finally {
     client.release();
   }

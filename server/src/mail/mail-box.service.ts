@@ -25,7 +25,7 @@ export class MailBoxService {
   constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
 
   private folder(): string {
-    if (!this.config.MAIL_DIR || this.config.NODE_ENV === 'production') {
+    if (!this.config.MAIL_DIR || (this.config.NODE_ENV !== 'development' && this.config.NODE_ENV !== 'test')) {
       throw new AppError(ErrorCode.NotFound, 'Captured mail is only available with the local mail fake (MAIL_DIR)');
     }
     return resolve(this.config.MAIL_DIR);

@@ -21,9 +21,9 @@ export class MailService implements OnModuleDestroy {
       secure: false,
       // The loopback fake speaks plain SMTP; anything else upgrades with STARTTLS when offered.
       ignoreTLS: isLoopback(config.SMTP_HOST),
-      connectionTimeout: 5_000,
-      greetingTimeout: 5_000,
-      socketTimeout: 10_000,
+      connectionTimeout: config.SMTP_CONNECT_TIMEOUT_MS,
+      greetingTimeout: config.SMTP_CONNECT_TIMEOUT_MS,
+      socketTimeout: config.SMTP_SOCKET_TIMEOUT_MS,
     });
   }
 

@@ -5,10 +5,11 @@ import { PHOTO_ACCEPTED_MEDIA_TYPES, PHOTO_MAX_EDGE_PX, PHOTO_THUMBNAIL_EDGE_PX 
 import { AppError, ErrorCode } from '../common/app-error.js';
 
 /**
- * Decoded size above which an upload is refused before it fills memory (a small file can
- * decode to a huge bitmap). 120 megapixels is above any phone's full-resolution output.
+ * Decoded size above which an upload is refused before it is decoded (a small file can decode to
+ * a huge bitmap: 40 MP of RGBA is 160 MB). 40 megapixels is above what phone cameras store by
+ * default; larger sensors' full-resolution modes are refused with their own code.
  */
-const MAX_INPUT_PIXELS = 120_000_000;
+export const MAX_INPUT_PIXELS = 40_000_000;
 const PHOTO_JPEG_QUALITY = 85;
 const THUMBNAIL_JPEG_QUALITY = 75;
 
@@ -38,7 +39,7 @@ export async function detectImageType(bytes: Buffer): Promise<string> {
 function undecodable(mime: string, error: unknown): AppError {
   const message = error instanceof Error ? error.message : String(error);
   if (/pixel limit/i.test(message)) {
-    return new AppError(ErrorCode.PayloadTooLarge, 'The image has too many pixels (limit 120 megapixels)');
+    return new AppError(ErrorCode.ImageTooLarge, `The image has too many pixels (limit ${MAX_INPUT_PIXELS / 1_000_000} megapixels)`);
   }
   if (mime === 'image/heic' || mime === 'image/heif') {
     return new AppError(

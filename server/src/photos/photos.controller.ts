@@ -7,6 +7,7 @@ import { CurrentUser } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { PhotoDto, PhotoIdParamsDto, PhotoListDto, PhotoListQueryDto, PhotoUploadDto } from './photos.dto.js';
 import { PhotosService, type PhotoVariant, type UploadedImage } from './photos.service.js';
+import { UploadSlotsInterceptor } from './upload-slots.interceptor.js';
 
 /** Stored images never change under their id (content-addressed), so caches may keep them. */
 const IMAGE_CACHE_CONTROL = 'private, max-age=31536000, immutable';
@@ -27,7 +28,7 @@ export class PhotosController {
 
   /** Every role may call it; who may attach to what is decided per owner (see photo-access.ts). */
   @Post()
-  @UseInterceptors(FileInterceptor('file'))
+  @UseInterceptors(UploadSlotsInterceptor, FileInterceptor('file'))
   @ApiConsumes('multipart/form-data')
   @ApiBody({
     schema: {

@@ -6,10 +6,12 @@ import { StorageModule } from '../storage/storage.module.js';
 import { PhotosController } from './photos.controller.js';
 import { PhotosRepository } from './photos.repository.js';
 import { PhotosService } from './photos.service.js';
+import { UploadSlotsInterceptor } from './upload-slots.interceptor.js';
 
 /**
- * Photo uploads (kept in memory up to MAX_UPLOAD_BYTES, one file per request, a few short text
- * fields), processed with sharp and stored by content hash in object storage.
+ * Photo uploads (kept in memory up to MAX_UPLOAD_BYTES, at most MAX_CONCURRENT_UPLOADS at once per
+ * process, one file per request, a few short text fields), processed with sharp and stored by
+ * content hash in object storage.
  */
 @Module({
   imports: [
@@ -23,6 +25,6 @@ import { PhotosService } from './photos.service.js';
     }),
   ],
   controllers: [PhotosController],
-  providers: [PhotosService, PhotosRepository],
+  providers: [PhotosService, PhotosRepository, UploadSlotsInterceptor],
 })
 export class PhotosModule {}

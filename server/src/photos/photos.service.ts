@@ -33,8 +33,8 @@ export class PhotosService {
 
   /**
    * Stores a photo once: a repeated id answers with the first upload (`created: false`), identical
-   * bytes share one object. The objects are written before the row; if the row cannot be written,
-   * the objects stay (content-addressed, so a later upload or a clean-up reuses or removes them).
+   * bytes share one object. The objects are written before the row, outside the transaction; if
+   * the row cannot be written, the objects stay (content-addressed, so a later upload reuses them).
    */
   async upload(user: AuthUser, fields: PhotoUpload, file: UploadedImage | undefined): Promise<{ photo: Photo; created: boolean }> {
     if (!file) {
@@ -51,10 +51,11 @@ export class PhotosService {
     const image = await processPhoto(file.buffer, mime, { keepLocation });
     const keys = photoObjectKeys(image.contentHash);
 
+    // The objects go first and outside any transaction: a slow or stalled store then holds no
+    // database connection and no lock, and a row never points at an object that was not written.
+    await this.storeObjects(keys, image);
     const inserted = await this.photos.transaction(async (tx) => {
       await this.photos.lockContent(image.contentHash, tx);
-      await this.storage.putIfAbsent(keys.storageKey, image.photo, PHOTO_STORED_MEDIA_TYPE);
-      await this.storage.putIfAbsent(keys.thumbnailKey, image.thumbnail, PHOTO_STORED_MEDIA_TYPE);
       const row = await this.photos.insertIfAbsent(
         {
           id: fields.id,
@@ -81,6 +82,13 @@ export class PhotosService {
       }
       return row;
     });
+    // A photo with the same bytes deleted meanwhile may have taken the shared objects with it:
+    // writing them again when missing (a HEAD when present) keeps this row whole.
+    if (inserted) {
+      await this.storeObjects(keys, image).catch((error: unknown) => {
+        this.logger.warn(`photo ${inserted.id}: could not re-check its objects after commit (${String(error)})`);
+      });
+    }
     if (inserted) return { photo: toPhoto(inserted), created: true };
     // A concurrent upload of the same id committed first: answer as for a retry.
     const winner = await this.photos.findByIdInAnyOrganisation(fields.id);
@@ -112,16 +120,16 @@ export class PhotosService {
   }
 
   /**
-   * Deletes the row (and its audit event) and, when no row of any organisation still points at
-   * the same content, the objects. Under the content lock, so no upload can adopt an object that
-   * is being removed. A failed object removal leaves an unreferenced object, never a broken row.
+   * Deletes the row (and its audit event) and then, when no row of any organisation still points
+   * at the same content, the objects. A failed object removal leaves an unreferenced object,
+   * never a broken row.
    */
   async remove(user: AuthUser, id: string): Promise<void> {
     const row = await this.get(user, id);
     if (!mayDeletePhoto(user, row.uploadedBy)) {
       throw new AppError(ErrorCode.Forbidden, 'Only the uploader, a manager or an admin can delete this photo');
     }
-    await this.photos.transaction(async (tx) => {
+    const orphaned = await this.photos.transaction(async (tx) => {
       await this.photos.lockContent(row.contentHash, tx);
       const deleted = await this.photos.delete(user.organisationId, id, tx);
       if (!deleted) throw AppError.notFound('Photo');
@@ -129,13 +137,21 @@ export class PhotosService {
         { organisationId: user.organisationId, actorId: user.userId, entityId: id, action: 'delete', before: toPhoto(deleted), after: null },
         tx,
       );
-      if ((await this.photos.countByContent(deleted.contentHash, tx)) > 0) return;
-      for (const key of [deleted.storageKey, deleted.thumbnailKey]) {
-        await this.storage.remove(key).catch((error: unknown) => {
-          this.logger.warn(`photo ${id}: object ${key} left in storage (${String(error)})`);
-        });
-      }
+      return (await this.photos.countByContent(deleted.contentHash, tx)) > 0 ? null : deleted;
     });
+    // After the commit, never inside the transaction: the store may be slow. An upload of the same
+    // bytes racing with this removal writes the objects again after its own commit.
+    if (!orphaned) return;
+    for (const key of [orphaned.storageKey, orphaned.thumbnailKey]) {
+      await this.storage.remove(key).catch((error: unknown) => {
+        this.logger.warn(`photo ${id}: object ${key} left in storage (${String(error)})`);
+      });
+    }
+  }
+
+  private async storeObjects(keys: { storageKey: string; thumbnailKey: string }, image: { photo: Buffer; thumbnail: Buffer }): Promise<void> {
+    await this.storage.putIfAbsent(keys.storageKey, image.photo, PHOTO_STORED_MEDIA_TYPE);
+    await this.storage.putIfAbsent(keys.thumbnailKey, image.thumbnail, PHOTO_STORED_MEDIA_TYPE);
   }
 
   private async owner(user: AuthUser, ownerType: PhotoOwnerType, ownerId: string): Promise<PhotoOwnerRow> {

@@ -26,12 +26,52 @@ export class RateLimitRepository {
     return { count: Number(row.count), retryAfterS: Number(row.retry_after_s) };
   }
 
+  /**
+   * One attempt under a growing delay: `freeAttempts` in a quiet period pass at once; from the
+   * last of them on, each sets a wait of baseDelayS·2ⁿ (n = 0, 1, …; at most maxDelayS) before
+   * the next is taken. The caller clears the key after a success. Null when
+   * taken; the seconds to wait when refused. One UPDATE per attempt: concurrent attempts from any
+   * replica are serialised on the row, and a refused attempt changes nothing.
+   */
+  async attemptWithDelay(
+    key: string,
+    rule: { freeAttempts: number; quietS: number; baseDelayS: number; maxDelayS: number },
+    ex: DbExecutor = this.db,
+  ): Promise<number | null> {
+    await ex.execute(sql`INSERT INTO rate_limits (key, "count", reset_at) VALUES (${key}, 0, now()) ON CONFLICT (key) DO NOTHING`);
+    const taken = await ex.execute<{ count: number }>(sql`
+      WITH next AS (
+        SELECT CASE WHEN reset_at <= now() THEN 1 ELSE "count" + 1 END AS n FROM rate_limits WHERE key = ${key}
+      )
+      UPDATE rate_limits SET
+        "count" = next.n,
+        reset_at = now() + (${rule.quietS}::int * interval '1 second'),
+        blocked_until = CASE WHEN next.n >= ${rule.freeAttempts}::int
+          THEN now() + least(${rule.maxDelayS}::float8, ${rule.baseDelayS}::float8 * power(2, next.n - ${rule.freeAttempts}::int)) * interval '1 second'
+          ELSE NULL END
+      FROM next
+      WHERE key = ${key} AND (blocked_until IS NULL OR blocked_until <= now() OR reset_at <= now())
+      RETURNING "count"`);
+    if (taken.rows.length > 0) return null;
+    const wait = await ex.execute<{ s: number }>(
+      sql`SELECT greatest(1, ceil(extract(epoch FROM blocked_until - now())))::int AS s FROM rate_limits WHERE key = ${key}`,
+    );
+    return Number(wait.rows[0]?.s ?? 1);
+  }
+
+  /** Gives back one hit of the current window (an attempt that turned out legitimate). */
+  async refund(key: string, ex: DbExecutor = this.db): Promise<void> {
+    await ex.execute(sql`UPDATE rate_limits SET "count" = greatest(0, "count" - 1) WHERE key = ${key}`);
+  }
+
   async clear(key: string, ex: DbExecutor = this.db): Promise<void> {
     await ex.execute(sql`DELETE FROM rate_limits WHERE key = ${key}`);
   }
 
-  /** Drops windows that closed a while ago (they would restart at 1 anyway). */
-  async purgeExpired(ex: DbExecutor = this.db): Promise<void> {
-    await ex.execute(sql`DELETE FROM rate_limits WHERE reset_at < now() - interval '1 hour'`);
+  /** Drops windows that closed a while ago (they would restart at 1 anyway); returns how many. */
+  async purgeExpired(ex: DbExecutor = this.db): Promise<number> {
+    const result = await ex.execute(sql`
+      DELETE FROM rate_limits WHERE reset_at < now() - interval '1 hour' AND (blocked_until IS NULL OR blocked_until < now())`);
+    return result.rowCount ?? 0;
   }
 }

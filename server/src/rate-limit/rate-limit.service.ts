@@ -27,6 +27,17 @@ export class RateLimitService {
     if (count > rule.limit) throw new RateLimitedError(retryAfterS);
   }
 
+  /** Takes one attempt under a growing delay; throws 429 RATE_LIMITED with the wait when it comes too soon. */
+  async attemptWithDelay(key: string, rule: { freeAttempts: number; quietS: number; baseDelayS: number; maxDelayS: number }): Promise<void> {
+    const waitS = await this.repository.attemptWithDelay(key, rule);
+    if (waitS !== null) throw new RateLimitedError(waitS);
+  }
+
+  /** Gives back one hit (an attempt that succeeded must not count against anyone). */
+  async refund(key: string): Promise<void> {
+    await this.repository.refund(key);
+  }
+
   /** Forgets a key's window (e.g. an account's failed sign-ins after a successful one). */
   async reset(key: string): Promise<void> {
     await this.repository.clear(key);

@@ -3,6 +3,7 @@ import { Inject, Injectable, Logger } from '@nestjs/common';
 import {
   DeleteObjectCommand,
   GetObjectCommand,
+  HeadBucketCommand,
   HeadObjectCommand,
   ListObjectsV2Command,
   PutObjectCommand,
@@ -46,6 +47,11 @@ export class ObjectStorage {
     @Inject(APP_CONFIG) config: AppConfig,
   ) {
     this.bucket = config.S3_BUCKET;
+  }
+
+  /** Resolves when the bucket answers (health check); one attempt, no retries. */
+  async ping(): Promise<void> {
+    await this.s3.send(new HeadBucketCommand({ Bucket: this.bucket }), { abortSignal: AbortSignal.timeout(2_000) });
   }
 
   async exists(key: string): Promise<boolean> {

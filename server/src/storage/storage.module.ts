@@ -25,6 +25,8 @@ import { S3_CLIENT } from './storage.tokens.js';
           requestChecksumCalculation: 'WHEN_REQUIRED',
           responseChecksumValidation: 'WHEN_REQUIRED',
           maxAttempts: 3,
+          // Without these a store that accepts the connection and never answers holds the request for ever.
+          requestHandler: { connectionTimeout: config.S3_CONNECT_TIMEOUT_MS, requestTimeout: config.S3_REQUEST_TIMEOUT_MS, throwOnRequestTimeout: true },
         }),
     },
     ObjectStorage,

@@ -11,9 +11,10 @@ import {
   SyncPushSchema,
 } from '@plummet/shared';
 import { createZodDto } from 'nestjs-zod';
-import { CurrentUser, Roles } from '../auth/auth.decorators.js';
+import { AcceptsEndedSession, CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';
+import { EndedSessionPushes } from './ended-session-pushes.js';
 import { SyncConflictsService } from './sync-conflicts.service.js';
 import { SyncPullService } from './sync-pull.service.js';
 import { SyncPushService } from './sync-push.service.js';
@@ -35,14 +36,21 @@ export class SyncController {
     private readonly pushes: SyncPushService,
     private readonly pulls: SyncPullService,
     private readonly conflicts: SyncConflictsService,
+    private readonly endedSessions: EndedSessionPushes,
   ) {}
 
-  /** Every role: what a mutation may do is checked per mutation (rejected with a reason). */
+  /**
+   * Every role: what a mutation may do is checked per mutation (rejected with a reason). Also
+   * takes work of a member deactivated while offline, flagged for a manager (EndedSessionPushes).
+   */
   @Post('push')
   @HttpCode(200)
+  @AcceptsEndedSession()
   @ApiOkResponse({ type: SyncPushResponseDto })
-  push(@CurrentUser() user: AuthUser, @Body() body: SyncPushDto) {
-    return this.pushes.push(user, body);
+  async push(@CurrentUser() user: AuthUser, @Body() body: SyncPushDto) {
+    const result = await this.pushes.push(user, body);
+    if (user.sessionEnded) await this.endedSessions.flag(user, body);
+    return result;
   }
 
   @Get('pull')

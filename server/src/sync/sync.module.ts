@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { AuditModule } from '../audit/audit.module.js';
+import { EndedSessionPushes } from './ended-session-pushes.js';
 import { CatalogueModule } from '../catalogue/catalogue.module.js';
 import { FindingsModule } from '../findings/findings.module.js';
 import { InspectionsModule } from '../inspections/inspections.module.js';
@@ -17,6 +18,6 @@ import { SyncRepository } from './sync.repository.js';
 @Module({
   imports: [AuditModule, FindingsModule, ScaffoldsModule, InspectionsModule, CatalogueModule],
   controllers: [SyncController],
-  providers: [SyncRepository, SyncBatchRepository, SyncPullRepository, FindingSyncService, SyncPushService, SyncPullService, SyncConflictsService],
+  providers: [EndedSessionPushes, SyncRepository, SyncBatchRepository, SyncPullRepository, FindingSyncService, SyncPushService, SyncPullService, SyncConflictsService],
 })
 export class SyncModule {}

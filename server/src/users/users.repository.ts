@@ -12,6 +12,7 @@ const profileColumns = {
   position: users.position,
   units: users.units,
   active: users.active,
+  sessionVersion: users.sessionVersion,
   role: memberships.role,
   organisationId: organisations.id,
   organisationName: organisations.name,
@@ -35,6 +36,7 @@ export type ProfileRow = {
   position: string;
   units: 'si' | 'imperial';
   active: boolean;
+  sessionVersion: number;
   role: Role;
   organisationId: string;
   organisationName: string;

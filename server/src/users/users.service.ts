@@ -2,6 +2,8 @@ import { Inject, Injectable } from '@nestjs/common';
 import { MemberListQuerySchema, type ForemanListResponse } from '@plummet/shared';
 import type { Member, MemberListQuery, MemberListResponse, MemberUpdate, UserProfile, UserProfileUpdate } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
+import { SessionStateCache } from '../auth/session-state.cache.js';
+import { SessionStateRepository } from '../auth/session-state.repository.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
@@ -16,6 +18,8 @@ export class UsersService {
   constructor(
     @Inject(DRIZZLE) private readonly db: Db,
     private readonly users: UsersRepository,
+    private readonly sessionStates: SessionStateRepository,
+    private readonly sessionCache: SessionStateCache,
   ) {}
 
   async me(caller: AuthUser): Promise<UserProfile> {
@@ -67,12 +71,16 @@ export class UsersService {
     if (userId === caller.userId && (demotesSelf || patch.active === false)) {
       throw new AppError(ErrorCode.Forbidden, 'You cannot change your own role or deactivate yourself; ask another admin');
     }
-    return this.db.transaction(async (tx) => {
+    const member = await this.db.transaction(async (tx) => {
       const before = await this.users.findMember(caller.organisationId, userId, tx, true);
       if (!before) throw AppError.notFound('User');
       if (patch.role !== undefined) await this.users.updateRole(userId, caller.organisationId, patch.role, tx);
       if (patch.active !== undefined) await this.users.updateUser(userId, { active: patch.active }, tx);
       const after = (await this.users.findMember(caller.organisationId, userId, tx))!;
+      // Neither must wait for old access tokens to expire. A deactivation ends every session; after
+      // a role change the phone's next refresh brings a token with the new role.
+      if (before.active && !after.active) await this.sessionStates.endAllSessions(userId, tx);
+      else if (after.role !== before.role) await this.sessionStates.bumpVersion(userId, tx);
       await this.users.insertAudit(
         {
           organisationId: caller.organisationId,
@@ -87,5 +95,7 @@ export class UsersService {
       );
       return toMember(after);
     });
+    this.sessionCache.forget(userId);
+    return member;
   }
 }

@@ -119,7 +119,14 @@ export const SyncConflictResolveSchema = z
 export type SyncConflictResolve = z.infer<typeof SyncConflictResolveSchema>;
 
 /** Position in the change feed: `<transaction id>.<sequence>`; absent from the start. */
-export const SyncCursorSchema = z.string().regex(/^\d{1,20}\.\d{1,20}$/, 'A cursor from an earlier pull');
+export const SyncCursorSchema = z
+  .string()
+  .regex(/^\d{1,20}\.\d{1,20}$/, 'A cursor from an earlier pull')
+  // The transaction id is a PostgreSQL xid8 (unsigned 64 bits), the sequence a bigint.
+  .refine((c) => {
+    const [xid, seq] = c.split('.');
+    return BigInt(xid) <= 2n ** 64n - 1n && BigInt(seq) <= 2n ** 63n - 1n;
+  }, 'A cursor from an earlier pull');
 
 export const SyncPullQuerySchema = z.object({
   cursor: SyncCursorSchema.optional(),

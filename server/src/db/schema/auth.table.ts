@@ -40,4 +40,6 @@ export const rateLimits = pgTable('rate_limits', {
   key: text('key').primaryKey(),
   count: integer('count').notNull(),
   resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
+  /** For growing delays (sign-in per account): no attempt is taken before this. */
+  blockedUntil: timestamp('blocked_until', { withTimezone: true }),
 });

@@ -1,4 +1,4 @@
-import { boolean, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { organisations } from './organisations.table.js';
 
 export const unitsEnum = pgEnum('units', ['si', 'imperial']);
@@ -15,6 +15,11 @@ export const users = pgTable('users', {
   active: boolean('active').notNull().default(true),
   /** Display units chosen by the user; values are always stored in SI. */
   units: unitsEnum('units').notNull().default('si'),
+  /**
+   * Carried in every access token; raised when the user's sessions must end before their tokens
+   * expire (deactivation, role change, password reset). The guard refuses tokens of an older version.
+   */
+  sessionVersion: integer('session_version').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -1,0 +1,38 @@
+import { Inject, Injectable, Logger } from '@nestjs/common';
+import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { HousekeepingRepository } from './housekeeping.repository.js';
+
+export interface PurgeCounts {
+  refreshTokens: number;
+  emailTokens: number;
+  rateLimits: number;
+  syncMutations: number;
+}
+
+/**
+ * The periodic purge. Safe to run from any replica at any time and more than once (each step is
+ * one DELETE by age). Meant to be scheduled once a day through the job queue, so exactly one
+ * replica runs it.
+ */
+@Injectable()
+export class HousekeepingService {
+  private readonly logger = new Logger(HousekeepingService.name);
+
+  constructor(
+    private readonly repository: HousekeepingRepository,
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+  ) {}
+
+  async purge(): Promise<PurgeCounts> {
+    const counts: PurgeCounts = {
+      refreshTokens: await this.repository.purgeExpiredRefreshTokens(),
+      emailTokens: await this.repository.purgeStaleEmailTokens(),
+      rateLimits: await this.repository.purgeClosedRateLimits(),
+      // A phone offline longer than this may send a mutation again after its record of being
+      // applied is gone; SYNC_MUTATION_RETENTION_DAYS is therefore the longest allowed offline period.
+      syncMutations: await this.repository.purgeAppliedSyncMutations(this.config.SYNC_MUTATION_RETENTION_DAYS),
+    };
+    this.logger.log(`purged ${JSON.stringify(counts)}`);
+    return counts;
+  }
+}
