@@ -25,7 +25,8 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
         useDefaults: true,
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
-          'worker-src': ["'self'"],
+          // blob: for the photo-compression worker, which browser-image-compression starts from a blob URL.
+          'worker-src': ["'self'", 'blob:'],
           'connect-src': ["'self'"],
           'upgrade-insecure-requests': null,
         },
