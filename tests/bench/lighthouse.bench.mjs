@@ -17,6 +17,7 @@ import { ensurePostgresBinaries, LocalPostgres } from '../../scripts/lib/postgre
 const CHROME_PATH = process.env.CHROME_PATH ?? '/usr/bin/chromium';
 const DEMO_EMAIL = 'inspector@demo.test';
 const DEMO_PASSWORD = 'plummet-demo';
+const JWT_SECRET = 'lighthouse-secret-lighthouse-secret-0123456789';
 
 let pg;
 let server;
@@ -66,7 +67,7 @@ async function main() {
   await pg.init();
   await pg.start();
   await pg.ensureDatabase('plummet_lighthouse');
-  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1' };
+  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1', JWT_SECRET };
   await migrateAndSeed(env);
   const port = await freePort();
   server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
