@@ -13,7 +13,8 @@ function builtAssets(): string[] {
   return (readdirSync(DIST, { recursive: true, withFileTypes: true }) as import('node:fs').Dirent[])
     .filter((entry) => entry.isFile())
     .map((entry) => '/' + relative(DIST, join(entry.parentPath, entry.name)).split(sep).join('/'))
-    .filter((path) => !/\.(map|br|gz)$/.test(path));
+    // Dot files (the build's input hash) are never served.
+    .filter((path) => !/\.(map|br|gz)$/.test(path) && !path.split('/').some((part) => part.startsWith('.')));
 }
 
 const hasBrotli = (path: string) => existsSync(join(DIST, `${path}.br`));

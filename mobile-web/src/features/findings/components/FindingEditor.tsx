@@ -91,7 +91,8 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
           </FormSection>
 
           <FormSection title="Where">
-            <div className="field-row">
+            {/* One above the other: each stepper needs the full width for its 56 px buttons. */}
+            <div>
               <SelectField label="Elevation" value={form.elevation} onChange={(elevation) => patch({ elevation })} options={scaffold.elevations.map((e) => ({ value: e, label: e }))} testId="where-elevation" />
               <Stepper label="Lift" value={form.lift} min={1} max={scaffold.lifts} onChange={(lift) => patch({ lift })} testId="where-lift" />
               <Stepper label="Bay" value={form.bay} min={1} max={scaffold.baysPerElevation} onChange={(bay) => patch({ bay })} testId="where-bay" />
