@@ -24,7 +24,7 @@ export function FindingRow({ finding, units, showScaffold }: { finding: FindingR
         <span className="finding-row__item">{finding.item.name}</span>
         <span className="finding-row__where">
           {showScaffold ? `${showScaffold} · ` : ''}
-          {finding.elevation} · lift {finding.lift} · bay {finding.bay} · {formatQuantity('height', finding.heightM, units)} up
+          {finding.elevation} · lift {finding.lift} · bay {finding.bay} · <span className="finding-row__nowrap">{formatQuantity('height', finding.heightM, units)} up</span>
         </span>
         <span className="finding-row__figures">
           {formatQuantity('energy', finding.estimate.impactEnergyJ, units)} · {finding.estimate.severity.label}
