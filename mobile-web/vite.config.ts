@@ -1,8 +1,11 @@
 import { fileURLToPath } from 'node:url';
+import { constants as zlibConstants } from 'node:zlib';
 import react from '@vitejs/plugin-react';
 import { defineConfig, defaultClientConditions, type Plugin } from 'vite';
+import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { VitePWA } from 'vite-plugin-pwa';
 import { initialJsSize } from './scripts/initial-js-size.ts';
+import { precompressLateFiles } from './scripts/precompress-late-files.ts';
 
 const apiTarget = process.env.PLUMMET_API_URL ?? 'http://127.0.0.1:3000';
 const apiProxy = { '/api': { target: apiTarget, changeOrigin: true } };
@@ -112,5 +115,15 @@ export default defineConfig({
       devOptions: { enabled: false },
     }),
     initialJsSize({ budgetKiB: 200 }),
+    // Brotli and gzip files beside each text asset, made once at build time at the highest levels;
+    // the server picks one by Accept-Encoding (server/src/web/static-web.ts). Maps stay uncompressed.
+    compression({
+      include: /\.(html|css|js|mjs|json|svg|webmanifest|txt)$/,
+      exclude: /\.map$/,
+      threshold: 1024,
+      algorithms: [defineAlgorithm('brotliCompress', { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 11 } }), defineAlgorithm('gzip', { level: 9 })],
+      logLevel: 'silent',
+    }),
+    precompressLateFiles({ outDir: fileURLToPath(new URL('./dist/', import.meta.url)), threshold: 1024 }),
   ],
 });

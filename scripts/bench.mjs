@@ -16,6 +16,10 @@ const BENCHES = {
   api: async () => {
     await run('node', ['tests/bench/api.bench.mjs'], { cwd: ROOT, label: 'API benchmark' });
   },
+  // First load in Lighthouse: tests/bench/lighthouse.bench.mjs sets up its own database and server.
+  lighthouse: async () => {
+    await run('node', ['tests/bench/lighthouse.bench.mjs'], { cwd: ROOT, label: 'Lighthouse benchmark' });
+  },
   // Sync push and pull: tests/bench/sync.bench.mjs sets up its own database and server.
   sync: async () => {
     await run('node', ['tests/bench/sync.bench.mjs'], { cwd: ROOT, label: 'sync benchmark' });

@@ -3,7 +3,7 @@
 // seeds the demo, builds and serves Plummet on one port. Ctrl-C stops everything it started.
 // The first steps use only Node's built-ins: node_modules may not exist yet.
 import { join } from 'node:path';
-import { buildAll, migrateAndSeed, startServer, stopChild } from './lib/app.mjs';
+import { buildChanged, migrateAndSeed, startServer, stopChild } from './lib/app.mjs';
 import { ensureDependencies } from './lib/deps.mjs';
 import { fail, handleFatal, say } from './lib/log.mjs';
 import { DATA_DIR, ROOT } from './lib/paths.mjs';
@@ -61,8 +61,8 @@ async function main() {
     say('NODE_ENV=production: no local fakes; SMTP_*, S3_*, JWT_SECRET and PUBLIC_URL come from the environment');
   }
 
-  say('building…');
-  await buildAll();
+  const built = await buildChanged();
+  say(built.length ? `built ${built.join(', ')}` : 'nothing changed since the last build: builds skipped');
 
   const env = {
     ...process.env,

@@ -1,14 +1,34 @@
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
 import { ROOT } from './paths.mjs';
-import { FatalError } from './log.mjs';
+import { inputHash, isUpToDate, recordBuild } from './build-cache.mjs';
+import { FatalError, say } from './log.mjs';
 import { run } from './run.mjs';
 
-/** Builds shared (emitted JS for Node), the server and the PWA. */
+/** Builds shared (emitted JS for Node), the server and the PWA, and records what each was built from. */
 export async function buildAll({ web = true } = {}) {
-  await run('npm', ['run', '--silent', 'build', '-w', 'shared'], { cwd: ROOT, label: 'build of shared' });
-  await run('npm', ['run', '--silent', 'build', '-w', 'server'], { cwd: ROOT, label: 'build of server' });
-  if (web) await run('npm', ['run', '--silent', 'build', '-w', 'mobile-web'], { cwd: ROOT, label: 'build of mobile-web' });
+  for (const workspace of ['shared', 'server', ...(web ? ['mobile-web'] : [])]) await buildWorkspace(workspace);
+}
+
+async function buildWorkspace(workspace) {
+  const hash = inputHash(workspace);
+  await run('npm', ['run', '--silent', 'build', '-w', workspace], { cwd: ROOT, label: `build of ${workspace}` });
+  recordBuild(workspace, hash);
+}
+
+/**
+ * Like buildAll, but builds only the workspaces whose inputs changed since their last build
+ * (a change in shared rebuilds all three). Returns the names of the workspaces it built.
+ */
+export async function buildChanged({ web = true } = {}) {
+  const built = [];
+  for (const workspace of ['shared', 'server', ...(web ? ['mobile-web'] : [])]) {
+    if (isUpToDate(workspace)) continue;
+    say(`building ${workspace}…`);
+    await buildWorkspace(workspace);
+    built.push(workspace);
+  }
+  return built;
 }
 
 /** Applies migrations and, unless `migrateOnly`, seeds the demo scenario. */

@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import compression from 'compression';
 import type { Express, NextFunction, Request, Response } from 'express';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
@@ -24,7 +25,8 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
         useDefaults: true,
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
-          'worker-src': ["'self'"],
+          // blob: for the photo-compression worker, which browser-image-compression starts from a blob URL.
+          'worker-src': ["'self'", 'blob:'],
           'connect-src': ["'self'"],
           'upgrade-insecure-requests': null,
         },
@@ -32,6 +34,9 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
       crossOriginEmbedderPolicy: false,
     }),
   );
+  // API answers above 1 KiB go out compressed (gzip/deflate by Accept-Encoding); built assets are
+  // precompressed at build time and carry their own Content-Encoding, which compression leaves alone.
+  app.use('/api', compression({ threshold: 1024 }));
   app.useBodyParser('json', { limit: config.MAX_JSON_BODY });
   app.setGlobalPrefix('api');
 

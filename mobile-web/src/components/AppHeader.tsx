@@ -11,7 +11,7 @@ interface AppHeaderProps {
   children?: ReactNode;
 }
 
-/** A page's toolbar with the connection and outbox status under it, where a glance finds them. */
+/** A page's toolbar with one compact connection and outbox status in it that opens the Sync status screen. */
 export function AppHeader({ title, backHref, children }: AppHeaderProps) {
   return (
     <IonHeader>
@@ -22,11 +22,12 @@ export function AppHeader({ title, backHref, children }: AppHeaderProps) {
           </IonButtons>
         )}
         <IonTitle>{title}</IonTitle>
+        {/* One compact status at the toolbar's end: only what needs a look shows in words. */}
+        <div slot="end" className="app-status">
+          <OnlineStatusBadge />
+          <SyncBadge />
+        </div>
       </IonToolbar>
-      <div className="app-status">
-        <OnlineStatusBadge />
-        <SyncBadge />
-      </div>
       {children}
     </IonHeader>
   );

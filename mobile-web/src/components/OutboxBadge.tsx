@@ -6,7 +6,7 @@ import { useWaitingChangeCount } from '../local-db/outbox.queries';
 export function OutboxBadge() {
   const count = useWaitingChangeCount();
   if (count === undefined) return null;
-  const text = count === 0 ? 'All changes sent' : count === 1 ? '1 change waiting to send' : `${count} changes waiting to send`;
+  const text = count === 0 ? 'All changes sent' : count === 1 ? '1 change waiting' : `${count} changes waiting`;
   return (
     <span className={`status-chip ${count > 0 ? 'status-chip--waiting' : ''}`} data-testid="outbox-count" data-count={count} role="status">
       <IonIcon icon={count > 0 ? cloudUploadOutline : checkmarkDoneOutline} aria-hidden="true" />

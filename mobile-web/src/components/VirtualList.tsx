@@ -1,10 +1,10 @@
-import { useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
-import { visibleRows } from './virtual-range';
+import { useVirtualizer } from '@tanstack/react-virtual';
+import { useRef, type ReactNode } from 'react';
 import './VirtualList.css';
 
 interface VirtualListProps<T> {
   items: readonly T[];
-  /** Every row has this height, px (the row's CSS must keep to it). */
+  /** The usual height of a row, px: the first guess before a row is measured (rows may differ). */
   rowHeight: number;
   rowKey(item: T): string;
   renderRow(item: T, index: number): ReactNode;
@@ -14,46 +14,36 @@ interface VirtualListProps<T> {
 
 /**
  * A list that renders only the rows in view (and a few spare), so thousands of findings scroll
- * smoothly: the DOM holds about twenty rows whatever the length. Fixed row height keeps the maths
- * exact and free of measuring.
+ * smoothly: the DOM holds about twenty rows whatever the length. @tanstack/react-virtual measures
+ * each rendered row, so a row that wraps onto two lines (large text, a narrow phone) gets its room.
  */
 export function VirtualList<T>({ items, rowHeight, rowKey, renderRow, label, testId }: VirtualListProps<T>) {
   const scroller = useRef<HTMLDivElement>(null);
-  const [scrollTop, setScrollTop] = useState(0);
-  const [viewportHeight, setViewportHeight] = useState(800);
-  const frame = useRef(0);
-
-  useLayoutEffect(() => {
-    const element = scroller.current;
-    if (!element) return;
-    setViewportHeight(element.clientHeight || 800);
-    const observer = new ResizeObserver(() => setViewportHeight(element.clientHeight || 800));
-    observer.observe(element);
-    return () => observer.disconnect();
-  }, []);
-
-  useEffect(() => () => cancelAnimationFrame(frame.current), []);
-
-  function onScroll() {
-    cancelAnimationFrame(frame.current);
-    frame.current = requestAnimationFrame(() => setScrollTop(scroller.current?.scrollTop ?? 0));
-  }
-
-  const { start, end } = visibleRows(scrollTop, viewportHeight, rowHeight, items.length);
-  const rows: ReactNode[] = [];
-  for (let index = start; index < end; index++) {
-    const item = items[index] as T;
-    rows.push(
-      <div key={rowKey(item)} className="virtual-list__row" role="listitem" style={{ top: index * rowHeight, height: rowHeight }}>
-        {renderRow(item, index)}
-      </div>,
-    );
-  }
+  const virtualizer = useVirtualizer({
+    count: items.length,
+    getScrollElement: () => scroller.current,
+    estimateSize: () => rowHeight,
+    getItemKey: (index) => rowKey(items[index] as T),
+    overscan: 6,
+    // Before layout (and in tests without one) show a screenful rather than nothing.
+    initialRect: { width: 390, height: 800 },
+  });
 
   return (
-    <div ref={scroller} className="virtual-list" onScroll={onScroll} data-testid={testId} aria-label={label}>
-      <div className="virtual-list__spacer" role="list" aria-rowcount={items.length} style={{ height: items.length * rowHeight }}>
-        {rows}
+    <div ref={scroller} className="virtual-list" data-testid={testId} aria-label={label}>
+      <div className="virtual-list__spacer" role="list" aria-rowcount={items.length} style={{ height: virtualizer.getTotalSize() }}>
+        {virtualizer.getVirtualItems().map((row) => (
+          <div
+            key={row.key}
+            ref={virtualizer.measureElement}
+            data-index={row.index}
+            className="virtual-list__row"
+            role="listitem"
+            style={{ transform: `translateY(${row.start}px)` }}
+          >
+            {renderRow(items[row.index] as T, row.index)}
+          </div>
+        ))}
       </div>
     </div>
   );

@@ -1,3 +1,4 @@
+import { createSecretKey } from 'node:crypto';
 import { Global, Module } from '@nestjs/common';
 import { APP_GUARD } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
@@ -13,7 +14,9 @@ import { SessionStateRepository } from './session-state.repository.js';
     JwtModule.registerAsync({
       inject: [APP_CONFIG],
       useFactory: (config: AppConfig) => ({
-        secret: config.JWT_SECRET,
+        // A key object made once: given a string, jsonwebtoken first tries to parse it as a public
+        // key (which throws) and then builds a secret key, on every sign and verify.
+        secret: createSecretKey(Buffer.from(config.JWT_SECRET)) as unknown as string,
         signOptions: { expiresIn: config.ACCESS_TOKEN_TTL_S, algorithm: 'HS256' },
         verifyOptions: { algorithms: ['HS256'] },
       }),

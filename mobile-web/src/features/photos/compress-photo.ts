@@ -1,8 +1,12 @@
 /**
  * Photos are shrunk on the phone before they are stored: a 12-megapixel camera JPEG of 4–6 MB
  * becomes about 200–400 KB at 1600 px and quality 0.8, which keeps a day of findings within the
- * browser's storage and the later upload short on a weak signal. Canvas-based, no library.
+ * browser's storage and the later upload short on a weak signal. browser-image-compression does
+ * the work in a web worker, so the screen stays responsive while a large photo is re-encoded.
  */
+import imageCompression from 'browser-image-compression';
+// The worker loads the library by URL; serve our own copy (precached, works offline) rather than a CDN's.
+import libraryUrl from 'browser-image-compression/dist/browser-image-compression.js?url';
 
 /** Longest edge of a stored photo, px. */
 export const PHOTO_MAX_EDGE = 1600;
@@ -21,42 +25,32 @@ export function fitWithin(width: number, height: number, maxEdge: number = PHOTO
   return { width: Math.max(1, Math.round(width * scale)), height: Math.max(1, Math.round(height * scale)) };
 }
 
-async function encodeJpeg(bitmap: ImageBitmap, width: number, height: number): Promise<Blob> {
-  if (typeof OffscreenCanvas !== 'undefined') {
-    const canvas = new OffscreenCanvas(width, height);
-    const context = canvas.getContext('2d');
-    if (!context) throw new Error('This browser cannot draw the photo.');
-    context.drawImage(bitmap, 0, 0, width, height);
-    return canvas.convertToBlob({ type: 'image/jpeg', quality: PHOTO_JPEG_QUALITY });
+async function sizeOf(blob: Blob): Promise<{ width: number; height: number }> {
+  const bitmap = await createImageBitmap(blob);
+  try {
+    return { width: bitmap.width, height: bitmap.height };
+  } finally {
+    bitmap.close();
   }
-  const canvas = document.createElement('canvas');
-  canvas.width = width;
-  canvas.height = height;
-  const context = canvas.getContext('2d');
-  if (!context) throw new Error('This browser cannot draw the photo.');
-  context.drawImage(bitmap, 0, 0, width, height);
-  return new Promise((resolve, reject) =>
-    canvas.toBlob((blob) => (blob ? resolve(blob) : reject(new Error('The photo could not be encoded.'))), 'image/jpeg', PHOTO_JPEG_QUALITY),
-  );
 }
 
 /** Decodes a camera file (EXIF orientation applied), scales it to 1600 px at most and re-encodes it as JPEG. */
 export async function compressPhoto(file: Blob): Promise<CompressedPhoto> {
-  let bitmap: ImageBitmap;
+  const asFile = file instanceof File ? file : new File([file], 'photo', { type: file.type });
+  let blob: Blob;
   try {
-    bitmap = await createImageBitmap(file, { imageOrientation: 'from-image' });
+    blob = await imageCompression(asFile, {
+      maxWidthOrHeight: PHOTO_MAX_EDGE,
+      initialQuality: PHOTO_JPEG_QUALITY,
+      fileType: 'image/jpeg',
+      useWebWorker: true,
+      libURL: new URL(libraryUrl, location.href).href,
+      // No size target: one pass at the chosen quality, as before.
+      maxIteration: 1,
+    });
   } catch {
     throw new Error('That file could not be read as a photo. Try taking it again.');
   }
-  try {
-    const size = fitWithin(bitmap.width, bitmap.height);
-    const blob = await encodeJpeg(bitmap, size.width, size.height);
-    // A small JPEG straight from the camera can be smaller than its re-encoding: keep the smaller.
-    if (file.type === 'image/jpeg' && size.width === bitmap.width && size.height === bitmap.height && file.size <= blob.size) {
-      return { blob: file, ...size };
-    }
-    return { blob, ...size };
-  } finally {
-    bitmap.close();
-  }
+  // The library hands back the original when it is already small enough and re-encoding would not help.
+  return { blob, ...(await sizeOf(blob)) };
 }

@@ -6,6 +6,7 @@ import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { FormSection } from '../../../components/FormSection';
 import { NumberField } from '../../../components/NumberField';
 import { SelectField } from '../../../components/SelectField';
+import { Stepper } from '../../../components/Stepper';
 import { Switch } from '../../../components/Switch';
 import type { CatalogueItemRecord, FindingRecord, PhotoRecord, ScaffoldRecord } from '../../../local-db/records';
 import { PhotoPicker } from '../../photos/components/PhotoPicker';
@@ -35,7 +36,6 @@ interface FindingEditorProps {
   foremen?: readonly Foreman[];
 }
 
-const range = (n: number) => Array.from({ length: n }, (_, i) => i + 1);
 
 /**
  * The finding form. The estimate is computed in render from the form (shared estimateFinding →
@@ -102,10 +102,11 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
           </FormSection>
 
           <FormSection title="Where">
-            <div className="field-row">
+            {/* One above the other: each stepper needs the full width for its 56 px buttons. */}
+            <div>
               <SelectField label="Elevation" value={form.elevation} onChange={(elevation) => patch({ elevation })} options={scaffold.elevations.map((e) => ({ value: e, label: e }))} testId="where-elevation" />
-              <SelectField label="Lift" value={form.lift} onChange={(lift) => patch({ lift })} options={range(scaffold.lifts).map((n) => ({ value: n, label: String(n) }))} testId="where-lift" />
-              <SelectField label="Bay" value={form.bay} onChange={(bay) => patch({ bay })} options={range(scaffold.baysPerElevation).map((n) => ({ value: n, label: String(n) }))} testId="where-bay" />
+              <Stepper label="Lift" value={form.lift} min={1} max={scaffold.lifts} onChange={(lift) => patch({ lift })} testId="where-lift" />
+              <Stepper label="Bay" value={form.bay} min={1} max={scaffold.baysPerElevation} onChange={(bay) => patch({ bay })} testId="where-bay" />
             </div>
             <ChoiceGroup<HeightMode>
               legend="Height it could fall"

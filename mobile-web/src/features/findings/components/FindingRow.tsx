@@ -1,5 +1,5 @@
 import { IonIcon } from '@ionic/react';
-import { chevronForward, shieldCheckmarkOutline } from 'ionicons/icons';
+import { alertCircleOutline, chevronForward, shieldCheckmarkOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord } from '../../../local-db/records';
@@ -13,7 +13,7 @@ const STATE_WORDS: Record<FindingRecord['state'], string> = {
   verified: 'Verified',
 };
 
-/** One finding as a row: risk in words, the item, where, and its energy. 88 px tall (virtual lists rely on it). */
+/** One finding as a row: risk in words, the item, where, its energy and its state in a word. At least 88 px tall; grows when text wraps. */
 export function FindingRow({ finding, units, showScaffold }: { finding: FindingRecord; units: Units; showScaffold?: string }) {
   return (
     <Link to={`/findings/${finding.id}`} className="finding-row" data-testid="finding-row" data-finding-id={finding.id}>
@@ -24,15 +24,13 @@ export function FindingRow({ finding, units, showScaffold }: { finding: FindingR
         <span className="finding-row__item">{finding.item.name}</span>
         <span className="finding-row__where">
           {showScaffold ? `${showScaffold} · ` : ''}
-          {finding.elevation} · lift {finding.lift} · bay {finding.bay} · {formatQuantity('height', finding.heightM, units)} up
+          {finding.elevation} · lift {finding.lift} · bay {finding.bay} · <span className="finding-row__nowrap">{formatQuantity('height', finding.heightM, units)} up</span>
         </span>
         <span className="finding-row__figures">
           {formatQuantity('energy', finding.estimate.impactEnergyJ, units)} · {finding.estimate.severity.label}
-          {finding.state !== 'open' && (
-            <span className="finding-row__state">
-              <IonIcon icon={shieldCheckmarkOutline} aria-hidden="true" /> {STATE_WORDS[finding.state]}
-            </span>
-          )}
+          <span className={`finding-row__state finding-row__state--${finding.state}`} data-testid="finding-state">
+            <IonIcon icon={finding.state === 'open' ? alertCircleOutline : shieldCheckmarkOutline} aria-hidden="true" /> {STATE_WORDS[finding.state]}
+          </span>
         </span>
       </span>
       <IonIcon className="finding-row__chevron" icon={chevronForward} aria-hidden="true" />

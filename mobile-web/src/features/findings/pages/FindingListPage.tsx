@@ -10,7 +10,9 @@ import { useUnits } from '../../auth/session.queries';
 import { useScaffoldsOfSite } from '../../scaffolds/scaffolds.queries';
 import { useLocalSite } from '../../sites/sites.queries';
 import { FindingRow } from '../components/FindingRow';
+import { groupByScaffoldAndLift, matchesSearch } from '../finding-groups';
 import { useFindingsOfSite } from '../findings.queries';
+import './FindingListPage.css';
 
 const ROW_HEIGHT = 88;
 type Filter = 'all' | RiskBand;
@@ -23,8 +25,13 @@ export function FindingListPage() {
   const findings = useFindingsOfSite(siteId);
   const scaffolds = useScaffoldsOfSite(siteId);
   const [filter, setFilter] = useState<Filter>('all');
+  const [search, setSearch] = useState('');
   const references = useMemo(() => new Map((scaffolds ?? []).map((s) => [s.id, s.reference])), [scaffolds]);
-  const shown = useMemo(() => (findings ?? []).filter((f) => filter === 'all' || f.riskBand === filter), [findings, filter]);
+  const shown = useMemo(
+    () => (findings ?? []).filter((f) => (filter === 'all' || f.riskBand === filter) && matchesSearch(f, search)),
+    [findings, filter, search],
+  );
+  const entries = useMemo(() => groupByScaffoldAndLift(shown, (id) => references.get(id) ?? 'Scaffold'), [shown, references]);
   const count = (band: RiskBand) => (findings ?? []).filter((f) => f.riskBand === band).length;
 
   return (
@@ -41,19 +48,41 @@ export function FindingListPage() {
             { value: 'Low', label: `Low ${count('Low')}` },
           ]}
         />
+        <div className="finding-search">
+          <label htmlFor="finding-search" className="visually-hidden">
+            Search findings by item
+          </label>
+          <input
+            id="finding-search"
+            type="search"
+            className="finding-search__input"
+            placeholder="Search by item, e.g. clip"
+            value={search}
+            onChange={(event) => setSearch(event.target.value)}
+            data-testid="finding-search"
+          />
+        </div>
       </AppHeader>
       <IonContent scrollY={false} data-testid="finding-list-page">
         <RequireSession>
           {() =>
             shown.length === 0 ? (
-              <p className="empty-note ion-margin">{findings === undefined ? 'Opening…' : 'No findings here.'}</p>
+              <p className="empty-note ion-margin">{findings === undefined ? 'Opening…' : search ? 'No item matches that search.' : 'No findings here.'}</p>
             ) : (
               <VirtualList
-                items={shown}
+                items={entries}
                 rowHeight={ROW_HEIGHT}
-                rowKey={(finding) => finding.id}
-                renderRow={(finding) => <FindingRow finding={finding} units={units} showScaffold={references.get(finding.scaffoldId)} />}
-                label="Findings, highest risk first"
+                rowKey={(entry) => entry.key}
+                renderRow={(entry) =>
+                  entry.kind === 'heading' ? (
+                    <h2 className="finding-group" data-testid="finding-group">
+                      {entry.text} <span className="finding-group__count">· {entry.count === 1 ? '1 finding' : `${entry.count} findings`}</span>
+                    </h2>
+                  ) : (
+                    <FindingRow finding={entry.finding} units={units} />
+                  )
+                }
+                label="Findings by scaffold and lift, highest risk first"
                 testId="finding-list"
               />
             )

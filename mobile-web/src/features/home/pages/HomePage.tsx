@@ -1,4 +1,4 @@
-import { IonButton, IonButtons, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { IonButton, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { SyncBadge } from '../../../components/SyncBadge';
@@ -17,15 +17,12 @@ export function HomePage() {
       <IonHeader>
         <IonToolbar>
           <IonTitle>Plummet</IonTitle>
-          <IonButtons slot="end" className="home-page__status">
+          {/* The same compact status as every page's header (components/AppHeader.tsx). */}
+          <div slot="end" className="app-status">
             <OnlineStatusBadge />
-          </IonButtons>
-        </IonToolbar>
-        {signedIn && (
-          <div className="app-status">
-            <SyncBadge />
+            {signedIn && <SyncBadge />}
           </div>
-        )}
+        </IonToolbar>
       </IonHeader>
       <IonContent className="ion-padding" data-testid="app-shell">
         {signedIn ? (
