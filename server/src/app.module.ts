@@ -20,9 +20,12 @@ import { InspectionsModule } from './inspections/inspections.module.js';
 import { FindingsModule } from './findings/findings.module.js';
 import { CatalogueModule } from './catalogue/catalogue.module.js';
 import { SyncModule } from './sync/sync.module.js';
+import { OverviewModule } from './overview/overview.module.js';
+import { TrendsModule } from './trends/trends.module.js';
+import { ScaffoldReportsModule } from './scaffold-reports/scaffold-reports.module.js';
 
 /** Feature modules are listed here once each. */
-const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule];
+const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule, OverviewModule, TrendsModule, ScaffoldReportsModule];
 
 @Module({})
 export class AppModule {

@@ -4,14 +4,18 @@ import { CatalogueModule } from '../catalogue/catalogue.module.js';
 import { InspectionsModule } from '../inspections/inspections.module.js';
 import { ScaffoldsModule } from '../scaffolds/scaffolds.module.js';
 import { FindingWorkflowService } from './finding-workflow.service.js';
+import { FindingsExportController } from './findings-export.controller.js';
+import { FindingsExportRepository } from './findings-export.repository.js';
+import { FindingsExportService } from './findings-export.service.js';
 import { FindingsController } from './findings.controller.js';
 import { FindingsRepository } from './findings.repository.js';
 import { FindingsService } from './findings.service.js';
 
 @Module({
   imports: [AuditModule, ScaffoldsModule, InspectionsModule, CatalogueModule],
-  controllers: [FindingsController],
-  providers: [FindingsRepository, FindingsService, FindingWorkflowService],
+  // The export first: its fixed path must win over `:id`.
+  controllers: [FindingsExportController, FindingsController],
+  providers: [FindingsRepository, FindingsService, FindingWorkflowService, FindingsExportRepository, FindingsExportService],
   exports: [FindingsRepository],
 })
 export class FindingsModule {}
