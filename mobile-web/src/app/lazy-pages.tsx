@@ -20,6 +20,11 @@ export const FindingEditorPage = page(() => import('../features/findings/pages/F
 export const CalculatorPage = page(() => import('../features/calculator/pages/CalculatorPage'), 'CalculatorPage');
 export const SettingsPage = page(() => import('../features/settings/pages/SettingsPage'), 'SettingsPage');
 export const SyncStatusPage = page(() => import('../features/sync/pages/SyncStatusPage'), 'SyncStatusPage');
+export const OverviewPage = page(() => import('../features/manager/pages/OverviewPage'), 'OverviewPage');
+export const FindingsTablePage = page(() => import('../features/manager/pages/FindingsTablePage'), 'FindingsTablePage');
+export const ManagerFindingPage = page(() => import('../features/manager/pages/ManagerFindingPage'), 'ManagerFindingPage');
+export const TrendsPage = page(() => import('../features/manager/pages/TrendsPage'), 'TrendsPage');
+export const ReportsPage = page(() => import('../features/manager/pages/ReportsPage'), 'ReportsPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
 

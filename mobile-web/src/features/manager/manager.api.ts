@@ -2,6 +2,8 @@ import {
   FindingHistorySchema,
   FindingListResponseSchema,
   FindingSchema,
+  InspectionSchema,
+  type Inspection,
   MemberListResponseSchema,
   OverviewSchema,
   PhotoListSchema,
@@ -111,4 +113,22 @@ export async function fetchPhotoThumbnail(photoId: string): Promise<string> {
 
 export async function fetchFindingPhotos(findingId: string): Promise<Photo[]> {
   return PhotoListSchema.parse(await authorisedFetch(`/photos?ownerType=finding&ownerId=${findingId}`)).items;
+}
+
+export type ReportOpening = { kind: 'pdf' } | { kind: 'record'; record: Inspection };
+
+/**
+ * Opens an inspection's PDF report in a new tab; where the server has no report route yet (404),
+ * answers the inspection's own record for the screen to show instead.
+ */
+export async function openInspectionReport(inspectionId: string): Promise<ReportOpening> {
+  const response = await fetchWithAccessToken()(`/api/inspections/${inspectionId}/report.pdf`);
+  if (response.status === 404) {
+    return { kind: 'record', record: InspectionSchema.parse(await authorisedFetch(`/inspections/${inspectionId}`)) };
+  }
+  if (!response.ok) throw new ApiError(response.status, 'REPORT_FAILED', 'The report could not be opened; try again.');
+  const url = URL.createObjectURL(await response.blob());
+  window.open(url, '_blank', 'noopener');
+  setTimeout(() => URL.revokeObjectURL(url), 60_000);
+  return { kind: 'pdf' };
 }
