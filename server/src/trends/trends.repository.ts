@@ -41,13 +41,17 @@ export class TrendsRepository {
   async timeToFix(organisationId: string, since: Date, siteId?: string, ex: DbExecutor = this.db) {
     const result = await ex.execute<{ band: RiskBand; median_hours: number | null; fixes: number }>(sql`
       WITH first_fix AS (
-        SELECT finding_id, min(fixed_at) AS fixed_at FROM fixes WHERE organisation_id = ${organisationId} GROUP BY finding_id
+        -- Only fixes in the period, and only where no earlier fix exists: the first fix, without grouping every fix ever made.
+        SELECT x.finding_id, min(x.fixed_at) AS fixed_at FROM fixes x
+        WHERE x.organisation_id = ${organisationId} AND x.fixed_at >= ${since.toISOString()}::timestamptz
+          AND NOT EXISTS (SELECT 1 FROM fixes e WHERE e.organisation_id = x.organisation_id AND e.finding_id = x.finding_id AND e.fixed_at < ${since.toISOString()}::timestamptz)
+        GROUP BY x.finding_id
       )
       SELECT f.risk_band AS band,
         percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM ff.fixed_at - f.created_at) / 3600.0)::float8 AS median_hours,
         count(*)::int AS fixes
       FROM first_fix ff JOIN findings f ON f.id = ff.finding_id
-      WHERE ff.fixed_at >= ${since.toISOString()}::timestamptz ${onSite(organisationId, siteId, sql`f.scaffold_id`)}
+      WHERE true ${onSite(organisationId, siteId, sql`f.scaffold_id`)}
       GROUP BY f.risk_band`);
     return result.rows.map((r) => ({ band: r.band, medianHours: r.median_hours, fixes: r.fixes }));
   }

@@ -138,7 +138,7 @@ export function FindingsTablePage() {
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="is-clickable" data-testid="finding-row" onClick={() => navigate(`/review/${row.id}`)}>
+              <tr key={row.id} className="is-clickable" data-testid="finding-row" data-finding-id={row.id} onClick={() => navigate(`/review/${row.id}`)}>
                 {row.getVisibleCells().map((cell) => (
                   <td key={cell.id}>
                     <table.FlexRender cell={cell} />
