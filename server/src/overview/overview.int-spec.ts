@@ -42,6 +42,7 @@ afterAll(async () => {
 describeAccessMatrix('overview, trends and reports: every route by every role of both organisations', () => api, [
   { route: 'GET /overview', request: async () => ({ path: '/overview' }), expect: [200, 200, 403, 403, 200, 200, 403, 403] },
   { route: 'GET /overview?siteId', request: async () => ({ path: `/overview?siteId=${DEMO.quaysideSite}` }), expect: [200, 200, 403, 403, 404, 404, 403, 403] },
+  { route: 'GET /overview/people', request: async () => ({ path: '/overview/people' }), expect: [200, 200, 200, 403, 200, 200, 200, 403] },
   { route: 'GET /trends', request: async () => ({ path: '/trends' }), expect: [200, 200, 403, 403, 200, 200, 403, 403] },
   { route: 'GET /trends?siteId', request: async () => ({ path: `/trends?siteId=${DEMO.quaysideSite}` }), expect: [200, 200, 403, 403, 404, 404, 403, 403] },
   {
@@ -103,6 +104,16 @@ describe('the overview of a hand-built site', () => {
     const res = await api.call('demo:manager', 'GET', '/overview?siteId=nope');
     expect(res.status).toBe(400);
     expect(JSON.stringify(res.body.issues)).toContain('siteId');
+  });
+});
+
+describe('the people a manager assigns to', () => {
+  it('are the organisation’s members with their roles, and nobody of another organisation', async () => {
+    const res = await api.call('demo:manager', 'GET', '/overview/people');
+    const ids = res.body.items.map((p: { id: string }) => p.id);
+    expect(ids).toContain(api.userIds['demo:foreman']);
+    expect(ids).not.toContain(api.userIds['other:foreman']);
+    expect(res.body.items.find((p: { id: string }) => p.id === api.userIds['demo:foreman']).role).toBe('foreman');
   });
 });
 

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { type SQL, sql } from 'drizzle-orm';
-import type { RiskBand, ScaffoldStatus } from '@plummet/shared';
+import type { RiskBand, Role, ScaffoldStatus } from '@plummet/shared';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 
 export interface SiteFindingCounts { siteId: string; band: RiskBand; open: number; overdue: number; fixed: number }
@@ -19,6 +19,15 @@ export class OverviewRepository {
       SELECT id::text AS id, name FROM sites
       WHERE organisation_id = ${organisationId} ${siteId ? sql`AND id = ${siteId}` : sql``}
       ORDER BY name, id`);
+    return result.rows;
+  }
+
+  async people(organisationId: string, ex: DbExecutor = this.db): Promise<{ id: string; name: string; role: Role }[]> {
+    const result = await ex.execute<{ id: string; name: string; role: Role }>(sql`
+      SELECT u.id::text AS id, u.name, m.role::text AS role
+      FROM memberships m JOIN users u ON u.id = m.user_id
+      WHERE m.organisation_id = ${organisationId} AND u.active
+      ORDER BY u.name, u.id`);
     return result.rows;
   }
 

@@ -1,6 +1,7 @@
 /** The managers' overview: counts computed by SQL aggregates on the server, per organisation and per site. */
 import { z } from 'zod';
 import { DateTimeSchema, IdSchema } from '../common/fields.schema.js';
+import { ROLE_VALUES } from '../auth/roles.js';
 import { ScaffoldStatusSchema } from '../scaffolds/scaffold.schema.js';
 
 export const OverviewQuerySchema = z.object({
@@ -43,3 +44,8 @@ export const OverviewSchema = z.object({
   sites: z.array(OverviewSiteSchema),
 });
 export type Overview = z.infer<typeof OverviewSchema>;
+
+/** GET /overview/people: the organisation's active members by name, for assigning and for names in the tables. */
+export const PersonSchema = z.object({ id: IdSchema, name: z.string(), role: z.enum(ROLE_VALUES) });
+export type Person = z.infer<typeof PersonSchema>;
+export const PeopleSchema = z.object({ items: z.array(PersonSchema) });

@@ -4,7 +4,7 @@ import {
   FindingSchema,
   InspectionSchema,
   type Inspection,
-  MemberListResponseSchema,
+  PeopleSchema,
   OverviewSchema,
   PhotoListSchema,
   type Photo,
@@ -16,7 +16,7 @@ import {
   type Finding,
   type FindingListItem,
   type ListResponse,
-  type Member,
+  type Person,
   type Overview,
   type Scaffold,
   type ScaffoldReports,
@@ -70,7 +70,7 @@ export async function fetchFindingConflicts(id: string): Promise<SyncConflict[]>
 
 export const fetchSites = () => fetchAllPages<Site>('/sites', {}, SiteListResponseSchema);
 export const fetchScaffolds = () => fetchAllPages<Scaffold>('/scaffolds', {}, ScaffoldListResponseSchema);
-export const fetchMembers = () => fetchAllPages<Member>('/users', {}, MemberListResponseSchema);
+export const fetchMembers = async (): Promise<Person[]> => PeopleSchema.parse(await authorisedFetch('/overview/people')).items;
 
 export async function fetchScaffoldReports(scaffoldId: string): Promise<ScaffoldReports> {
   return ScaffoldReportsSchema.parse(await authorisedFetch(`/reports/scaffold?scaffoldId=${scaffoldId}`));

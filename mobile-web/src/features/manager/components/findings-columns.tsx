@@ -1,5 +1,5 @@
 import { type ColumnDef, createColumnHelper, columnVisibilityFeature, rowSelectionFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
-import type { FindingListItem, Member, Scaffold } from '@plummet/shared';
+import type { FindingListItem, Person, Scaffold } from '@plummet/shared';
 import { formatHeight } from '../manager-units';
 import type { Units } from '../../settings/units';
 
@@ -9,7 +9,7 @@ const column = createColumnHelper<typeof findingsTableFeatures, FindingListItem>
 export interface ColumnContext {
   units: Units;
   scaffolds: Map<string, Scaffold>;
-  members: Map<string, Member>;
+  members: Map<string, Person>;
 }
 
 const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' }) : '—');

@@ -103,7 +103,7 @@ export function FindingsTablePage() {
             Assign to{' '}
             <select value={assignee} onChange={(e) => setAssignee(e.target.value)} data-testid="bulk-assignee">
               <option value="">Choose a foreman</option>
-              {members.data?.filter((m) => m.role === 'foreman' && m.active).map((m) => <option key={m.id} value={m.id}>{m.name}</option>)}
+              {members.data?.filter((m) => m.role === 'foreman').map((m) => <option key={m.id} value={m.id}>{m.name}</option>)}
             </select>
           </label>
           <button type="button" disabled={!assignee || assign.isPending} data-testid="bulk-assign"

@@ -28,7 +28,7 @@ export function ManagerFindingPage() {
   const [reopenNote, setReopenNote] = useState('');
   const f = finding.data;
   const nameOf = (id: string | null) => (id ? (members.data?.find((m) => m.id === id)?.name ?? 'Someone') : 'Nobody');
-  const foremen = members.data?.filter((m) => m.role === 'foreman' && m.active) ?? [];
+  const foremen = members.data?.filter((m) => m.role === 'foreman') ?? [];
 
   return (
     <ManagerLayout title="Finding" loadedAt={finding.dataUpdatedAt} refreshFailed={finding.isError} testId="manager-finding-page">
