@@ -22,6 +22,9 @@ import { CatalogueModule } from './catalogue/catalogue.module.js';
 import { SyncModule } from './sync/sync.module.js';
 import { OrganisationsModule } from './organisations/organisations.module.js';
 import { HousekeepingModule } from './housekeeping/housekeeping.module.js';
+import { OverviewModule } from './overview/overview.module.js';
+import { TrendsModule } from './trends/trends.module.js';
+import { ScaffoldReportsModule } from './scaffold-reports/scaffold-reports.module.js';
 
 /** Feature modules are listed here once each. */
 const FEATURES = [
@@ -40,6 +43,9 @@ const FEATURES = [
   SyncModule,
   OrganisationsModule,
   HousekeepingModule,
+  OverviewModule,
+  TrendsModule,
+  ScaffoldReportsModule,
 ];
 
 @Module({})

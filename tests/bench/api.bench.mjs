@@ -5,7 +5,7 @@
 // p50/p95/p99 latency and the ratios. Leaves nothing behind. A benchmark, not a test: nothing is
 // asserted about speed.
 import { createHmac } from 'node:crypto';
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import autocannon from 'autocannon';
@@ -61,7 +61,13 @@ SELECT gen_random_uuid(), t.organisation_id, NULL, t.scaffold_id, t.elevation, t
   t.assignee_id, CASE WHEN g % 3 = 0 THEN now() + ((g % 240) - 120) * interval '1 hour' END,
   'Bench finding ' || g, NULL, t.created_by, now() - (g % 50000) * interval '1 minute', now(), 1
 FROM generate_series(1, ${FINDINGS}) g CROSS JOIN c JOIN t ON t.n = g % c.k;
-ANALYZE findings;`;
+INSERT INTO fixes (id, organisation_id, finding_id, fixed_by, fixed_at)
+SELECT gen_random_uuid(), f.organisation_id, f.id, f.created_by, f.created_at + (abs(hashtext(f.id::text)) % 96) * interval '1 hour'
+FROM findings f WHERE f.state IN ('fixed', 'verified') AND f.notes LIKE 'Bench finding %';
+INSERT INTO verifications (id, organisation_id, finding_id, verified_by, verified_at, outcome)
+SELECT gen_random_uuid(), x.organisation_id, x.finding_id, x.fixed_by, x.fixed_at + interval '2 hours', 'verified'
+FROM fixes x JOIN findings f ON f.id = x.finding_id WHERE f.state = 'verified' AND f.notes LIKE 'Bench finding %';
+ANALYZE findings; ANALYZE fixes; ANALYZE verifications;`;
 
 /** An HS256 access token like the server's own (claims sub, org, role), valid for an hour. */
 function accessToken(claims) {
@@ -76,10 +82,10 @@ function percentile(sorted, p) {
 }
 
 /** Runs autocannon and keeps every response time, so p95 is exact rather than the nearest reported bucket. */
-function load(url, headers, durationS) {
+function load(url, headers, durationS, connections = CONNECTIONS) {
   return new Promise((resolve, reject) => {
     const latencies = [];
-    const instance = autocannon({ url, connections: CONNECTIONS, duration: durationS, headers }, (error, result) => {
+    const instance = autocannon({ url, connections, duration: durationS, headers }, (error, result) => {
       if (error) return reject(error);
       latencies.sort((a, b) => a - b);
       resolve({
@@ -94,6 +100,50 @@ function load(url, headers, durationS) {
     });
     instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
   });
+}
+
+/** One request at a time, `n` times: the latency a manager opening the screen sees. */
+async function sequential(url, headers, n) {
+  const times = [];
+  for (let i = 0; i < n; i++) {
+    const started = performance.now();
+    const res = await fetch(url, { headers });
+    await res.arrayBuffer();
+    if (res.status !== 200) throw new Error(`${url} answered ${res.status}`);
+    times.push(performance.now() - started);
+  }
+  times.sort((a, b) => a - b);
+  return { p50: percentile(times, 50), p95: percentile(times, 95), max: times[times.length - 1] };
+}
+
+/** Peak and current resident memory of a process, KiB, from /proc (Linux). */
+function memoryKiB(pid) {
+  try {
+    const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+    const field = (name) => Number(status.match(new RegExp(`${name}:\\s+(\\d+)`))?.[1] ?? NaN);
+    return { peak: field('VmHWM'), now: field('VmRSS') };
+  } catch {
+    return { peak: NaN, now: NaN };
+  }
+}
+
+/** Downloads the whole export, reading it as a stream, and reports rows, bytes, time and the server's RSS around it. */
+async function exportRun(url, headers, pid) {
+  const before = memoryKiB(pid);
+  const started = performance.now();
+  const res = await fetch(url, { headers });
+  if (res.status !== 200) throw new Error(`${url} answered ${res.status}`);
+  let bytes = 0;
+  let lines = 0;
+  let peakDuring = before.now;
+  const sampler = setInterval(() => (peakDuring = Math.max(peakDuring, memoryKiB(pid).now)), 20);
+  for await (const chunk of res.body) {
+    bytes += chunk.length;
+    for (const b of chunk) if (b === 10) lines++;
+  }
+  clearInterval(sampler);
+  const after = memoryKiB(pid);
+  return { rows: lines - 1, bytes, seconds: (performance.now() - started) / 1000, rssBeforeKiB: before.now, rssPeakDuringKiB: Math.max(peakDuring, after.now), vmHwmKiB: after.peak };
 }
 
 const fmt = (n, digits = 1) => n.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
@@ -156,6 +206,15 @@ async function main() {
   say(`GET /api/health (baseline): ${CONNECTIONS} connections for ${DURATION_S} s…`);
   const health = await load(`${base}/health`, {}, DURATION_S);
 
+  say('managers\' screens: 30 sequential requests each, then 10 connections for the same duration…');
+  const overviewSeq = await sequential(`${base}/overview`, headers, 30);
+  const trendsSeq = await sequential(`${base}/trends`, headers, 30);
+  const healthSeq = await sequential(`${base}/health`, {}, 30);
+  const overviewLoad = await load(`${base}/overview`, headers, DURATION_S, 10);
+  const trendsLoad = await load(`${base}/trends`, headers, DURATION_S, 10);
+  say('GET /api/findings/export.csv of every finding…');
+  const exported = await exportRun(`${base}/findings/export.csv`, headers, server.pid);
+
   const row = (name, r) =>
     `${name.padEnd(30)} ${fmt(r.requestsPerS, 0).padStart(9)} req/s   p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   p99 ${fmt(r.p99).padStart(7)} ms   ${fmt(r.bytesPerResponse / 1024)} KiB/response   non-2xx ${r.non2xx}, errors ${r.errors}`;
   console.log('');
@@ -164,6 +223,18 @@ async function main() {
   console.log(row('GET /api/health (baseline)', health));
   console.log(
     `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency`,
+  );
+  const seq = (name, r) => `${name.padEnd(30)} one at a time: p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   max ${fmt(r.max).padStart(7)} ms`;
+  console.log('');
+  console.log(seq('GET /api/overview', overviewSeq));
+  console.log(seq('GET /api/trends', trendsSeq));
+  console.log(seq('GET /api/health (baseline)', healthSeq));
+  console.log(row('GET /api/overview (10 conn.)', overviewLoad));
+  console.log(row('GET /api/trends (10 conn.)', trendsLoad));
+  console.log(`ratio overview / health p50: ${fmt(overviewSeq.p50 / healthSeq.p50, 1)} ×; trends / health p50: ${fmt(trendsSeq.p50 / healthSeq.p50, 1)} ×`);
+  console.log(
+    `GET /api/findings/export.csv: ${exported.rows.toLocaleString('en-GB')} rows, ${fmt(exported.bytes / 1048576)} MiB in ${fmt(exported.seconds, 2)} s; ` +
+      `server RSS ${fmt(exported.rssBeforeKiB / 1024)} MiB before, ${fmt(exported.rssPeakDuringKiB / 1024)} MiB peak while streaming (VmHWM since start ${fmt(exported.vmHwmKiB / 1024)} MiB)`,
   );
 }
 

@@ -9,6 +9,11 @@ import {
   FindingListPage,
   FixListPage,
   FixPage,
+  FindingsTablePage,
+  ManagerFindingPage,
+  OverviewPage,
+  ReportsPage,
+  TrendsPage,
   HomePage,
   InspectionFinishPage,
   InspectionPage,
@@ -42,6 +47,11 @@ export function App() {
               <Route path="/inspections/:inspectionId/finish" element={<Lazy page={InspectionFinishPage} />} />
               <Route path="/inspections/:inspectionId/findings/new" element={<Lazy page={FindingEditorPage} />} />
               <Route path="/findings/:findingId" element={<Lazy page={FindingEditorPage} />} />
+              <Route path="/overview" element={<Lazy page={OverviewPage} />} />
+              <Route path="/findings" element={<Lazy page={FindingsTablePage} />} />
+              <Route path="/review/:findingId" element={<Lazy page={ManagerFindingPage} />} />
+              <Route path="/trends" element={<Lazy page={TrendsPage} />} />
+              <Route path="/reports" element={<Lazy page={ReportsPage} />} />
               <Route path="/calculator" element={<Lazy page={CalculatorPage} />} />
               <Route path="/settings" element={<Lazy page={SettingsPage} />} />
               <Route path="/sync" element={<Lazy page={SyncStatusPage} />} />

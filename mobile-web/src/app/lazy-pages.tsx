@@ -24,6 +24,11 @@ export const FixListPage = page(() => import('../features/fix-loop/pages/FixList
 export const FixPage = page(() => import('../features/fix-loop/pages/FixPage'), 'FixPage');
 export const ShiftPage = page(() => import('../features/fix-loop/pages/ShiftPage'), 'ShiftPage');
 export const ToVerifyPage = page(() => import('../features/fix-loop/pages/ToVerifyPage'), 'ToVerifyPage');
+export const OverviewPage = page(() => import('../features/manager/pages/OverviewPage'), 'OverviewPage');
+export const FindingsTablePage = page(() => import('../features/manager/pages/FindingsTablePage'), 'FindingsTablePage');
+export const ManagerFindingPage = page(() => import('../features/manager/pages/ManagerFindingPage'), 'ManagerFindingPage');
+export const TrendsPage = page(() => import('../features/manager/pages/TrendsPage'), 'TrendsPage');
+export const ReportsPage = page(() => import('../features/manager/pages/ReportsPage'), 'ReportsPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
 

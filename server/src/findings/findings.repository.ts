@@ -4,6 +4,7 @@ import type { FindingListQuery } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
+import { findingFilters } from './finding-filters.js';
 import { FINDING_API_COLUMNS, type FindingRow } from './finding.mapper.js';
 
 const SORTS: Record<FindingListQuery['sort'], SortKey> = {
@@ -40,19 +41,7 @@ export class FindingsRepository {
   /** `foremanId`: only findings on that foreman's scaffolds or assigned to them. */
   async list(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
     const page = keyset(SORTS[query.sort], findings.id, query);
-    const scaffoldsWhere = (condition: SQL) =>
-      sql`${findings.scaffoldId} in (select ${scaffolds.id} from ${scaffolds} where ${scaffolds.organisationId} = ${organisationId} and ${condition})`;
-    const where: (SQL | undefined)[] = [eq(findings.organisationId, organisationId), page.after];
-    if (foremanId) where.push(sql`(${scaffoldsWhere(sql`${scaffolds.foremanId} = ${foremanId}`)} or ${findings.assigneeId} = ${foremanId})`);
-    if (query.siteId) where.push(scaffoldsWhere(sql`${scaffolds.siteId} = ${query.siteId}`));
-    if (query.scaffoldId) where.push(eq(findings.scaffoldId, query.scaffoldId));
-    if (query.inspectionId) where.push(eq(findings.inspectionId, query.inspectionId));
-    if (query.state) where.push(inArray(findings.state, query.state));
-    if (query.riskBand) where.push(inArray(findings.riskBand, query.riskBand));
-    if (query.assigneeId) where.push(eq(findings.assigneeId, query.assigneeId));
-    const overdue = sql`(${findings.dueAt} < now() and ${findings.state} in ('open', 'made-safe'))`;
-    if (query.overdue === true) where.push(overdue);
-    if (query.overdue === false) where.push(sql`not coalesce(${overdue}, false)`);
+    const where = [...findingFilters(organisationId, query, foremanId), page.after];
     return executor
       .select({ row: query.estimate === 'full' ? API_COLUMNS : LIST_COLUMNS, sortKey: page.sortKey })
       .from(findings)

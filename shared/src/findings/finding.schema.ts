@@ -267,6 +267,12 @@ export const FindingListQuerySchema = z.object({
   assigneeId: IdSchema.optional(),
   /** Open or made safe and past the due time. */
   overdue: QueryBooleanSchema.optional(),
+  /** Raised at or after this instant. */
+  raisedFrom: DateTimeSchema.optional(),
+  /** Raised before this instant. */
+  raisedTo: DateTimeSchema.optional(),
+  /** Free text, matched case-insensitively within the item's name and the note. */
+  q: z.string().trim().min(1).max(200).optional(),
   /** `summary` (default): FindingListItemSchema; `full`: every item as GET /findings/:id answers it (FindingFullListResponseSchema). */
   estimate: z.enum(['summary', 'full']).default('summary'),
 });
@@ -275,3 +281,7 @@ export type FindingListQuery = z.infer<typeof FindingListQuerySchema>;
 export const FindingListResponseSchema = listResponseSchema(FindingListItemSchema);
 /** The answer of GET /findings?estimate=full (parse with this one: the summary schema would drop the explanations). */
 export const FindingFullListResponseSchema = listResponseSchema(FindingSchema);
+
+/** GET /findings/export.csv: the list's filters and sort, every matching finding (no page, no limit). */
+export const FindingExportQuerySchema = FindingListQuerySchema.omit({ limit: true, cursor: true, estimate: true });
+export type FindingExportQuery = z.infer<typeof FindingExportQuerySchema>;

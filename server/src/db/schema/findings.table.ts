@@ -67,6 +67,12 @@ export const findings = pgTable(
     // The default list (highest risk first) and its keyset pages: ORDER BY risk_score DESC, id DESC.
     index('findings_org_risk_id_idx').on(t.organisationId, t.riskScore, t.id),
     index('findings_assignee_idx').on(t.assigneeId),
+    // The overview counts unfinished findings per scaffold and band from this index alone (index-only scan).
+    index('findings_overview_idx').on(t.organisationId, t.state, t.scaffoldId, t.riskBand, t.dueAt),
+    // Trends by the week raised, and repeat locations over the last 30 days.
+    index('findings_org_created_idx').on(t.organisationId, t.createdAt),
+    // Findings count of each inspection in the reports.
+    index('findings_inspection_idx').on(t.inspectionId),
   ],
 );
 
@@ -82,7 +88,10 @@ export const fixes = pgTable('fixes', {
   /** Proof photos (photos owned by this fix; they may upload later). */
   photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
   createdAt: createdAt(),
-});
+}, (t) => [
+  // First fix per finding for the median time to fix.
+  index('fixes_org_finding_idx').on(t.organisationId, t.findingId, t.fixedAt),
+]);
 
 export const verificationOutcomeEnum = pgEnum('verification_outcome', ['verified', 'reopened']);
 
@@ -96,7 +105,10 @@ export const verifications = pgTable('verifications', {
   note: text('note').notNull().default(''),
   photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
   createdAt: createdAt(),
-});
+}, (t) => [
+  // Findings closed per week in the trends.
+  index('verifications_org_verified_idx').on(t.organisationId, t.verifiedAt),
+]);
 
 /** Who changed what and when, with the record before and after; written in the same transaction. */
 export const auditEvents = pgTable(

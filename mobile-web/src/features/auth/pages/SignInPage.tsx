@@ -12,6 +12,7 @@ import {
   useIonRouter,
 } from '@ionic/react';
 import { useEffect, useState, type FormEvent } from 'react';
+import { homePathFor } from '../../../app/role-home';
 import { describeSignInError } from '../auth.api';
 import { useSignInMutation } from '../auth.mutations';
 import { useSession } from '../session.queries';
@@ -37,7 +38,7 @@ export function SignInPage() {
       return;
     }
     setFormError(null);
-    signIn.mutate({ email: email.trim(), password }, { onSuccess: () => router.push('/', 'root', 'replace') });
+    signIn.mutate({ email: email.trim(), password }, { onSuccess: (session) => router.push(homePathFor(session.user.role), 'root', 'replace') });
   }
 
   const error = formError ?? (signIn.isError ? describeSignInError(signIn.error) : null);

@@ -1,4 +1,6 @@
 import { IonButton, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { Navigate } from 'react-router-dom';
+import { homePathFor } from '../../../app/role-home';
 import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { SyncBadge } from '../../../components/SyncBadge';
@@ -11,6 +13,9 @@ import './HomePage.css';
 export function HomePage() {
   const { status, session } = useSession();
   const signedIn = session && status !== 'signed-out';
+  // Only inspectors start here; everyone else has a home of their own.
+  const home = signedIn ? homePathFor(session.user.role) : '/';
+  if (home !== '/') return <Navigate to={home} replace />;
 
   return (
     <IonPage>

@@ -1,0 +1,44 @@
+import { type ColumnDef, createColumnHelper, columnVisibilityFeature, rowSelectionFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
+import type { FindingListItem, Person, Scaffold } from '@plummet/shared';
+import { formatHeight } from '../manager-units';
+import type { Units } from '../../settings/units';
+
+export const findingsTableFeatures = tableFeatures({ rowSortingFeature, columnVisibilityFeature, rowSelectionFeature });
+const column = createColumnHelper<typeof findingsTableFeatures, FindingListItem>();
+
+export interface ColumnContext {
+  units: Units;
+  scaffolds: Map<string, Scaffold>;
+  members: Map<string, Person>;
+}
+
+const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+
+/** Column ids that the server can sort by are named as the list route's sort keys. */
+export function findingsColumns(ctx: ColumnContext): ColumnDef<typeof findingsTableFeatures, FindingListItem>[] {
+  const columns = [
+    column.display({
+      id: 'select',
+      enableHiding: false,
+      header: ({ table }) => (
+        <input type="checkbox" aria-label="Select every finding shown" checked={table.getIsAllRowsSelected()} onChange={table.getToggleAllRowsSelectedHandler()} />
+      ),
+      cell: ({ row }) => (
+        <input type="checkbox" aria-label={`Select ${row.original.item.name}`} checked={row.getIsSelected()} onChange={row.getToggleSelectedHandler()} onClick={(e) => e.stopPropagation()} />
+      ),
+    }),
+    column.accessor((f) => f.item.name, { id: 'item', header: 'Item', enableSorting: false, enableHiding: false }),
+    column.accessor('riskScore', { id: 'riskScore', header: 'Risk', cell: (c) => `${c.row.original.riskBand} ${c.getValue()}` }),
+    column.accessor('state', { id: 'state', header: 'State', enableSorting: false }),
+    column.accessor((f) => ctx.scaffolds.get(f.scaffoldId)?.reference ?? '', { id: 'scaffold', header: 'Scaffold', enableSorting: false }),
+    column.accessor((f) => `${f.elevation}, lift ${f.lift}, bay ${f.bay}`, { id: 'position', header: 'Position', enableSorting: false }),
+    column.accessor('heightM', { id: 'heightM', header: 'Height', cell: (c) => formatHeight(c.getValue(), ctx.units) }),
+    column.accessor((f) => (f.assigneeId ? (ctx.members.get(f.assigneeId)?.name ?? 'Someone') : 'Nobody'), { id: 'assignee', header: 'Assignee', enableSorting: false }),
+    column.accessor('dueAt', { id: 'dueAt', header: 'Due', cell: (c) => `${date(c.getValue())}${c.row.original.overdue ? ' (overdue)' : ''}` }),
+    column.accessor('createdAt', { id: 'createdAt', header: 'Raised', cell: (c) => date(c.getValue()) }),
+    column.accessor('updatedAt', { id: 'updatedAt', header: 'Changed', cell: (c) => date(c.getValue()) }),
+    column.accessor('notes', { id: 'notes', header: 'Note', enableSorting: false }),
+  ];
+  // The helper types each column by its value; the table takes them as one list.
+  return columns as unknown as ColumnDef<typeof findingsTableFeatures, FindingListItem>[];
+}

@@ -1,0 +1,89 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { type SQL, sql } from 'drizzle-orm';
+import { REPEAT_LOCATION_DAYS, REPEAT_LOCATION_MIN, type RiskBand } from '@plummet/shared';
+import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+
+export interface WeekBandCount { weekStart: Date; band: RiskBand; count: number }
+
+/** Only findings on the site's scaffolds, when a site is asked for. */
+function onSite(organisationId: string, siteId: string | undefined, column: SQL): SQL {
+  return siteId ? sql`AND ${column} IN (SELECT id FROM scaffolds WHERE organisation_id = ${organisationId} AND site_id = ${siteId})` : sql``;
+}
+
+/** Weeks are ISO weeks (Monday first) in UTC, so every replica and every viewer counts the same. */
+@Injectable()
+export class TrendsRepository {
+  constructor(@Inject(DRIZZLE) private readonly db: Db) {}
+
+  async raisedPerWeek(organisationId: string, since: Date, siteId?: string, ex: DbExecutor = this.db): Promise<WeekBandCount[]> {
+    const result = await ex.execute<{ week: string; band: RiskBand; count: number }>(sql`
+      SELECT to_char(date_trunc('week', created_at AT TIME ZONE 'UTC'), 'YYYY-MM-DD') AS week, risk_band AS band, count(*)::int AS count
+      FROM findings
+      WHERE organisation_id = ${organisationId} AND created_at >= ${since.toISOString()}::timestamptz
+      ${onSite(organisationId, siteId, sql`scaffold_id`)}
+      GROUP BY 1, 2`);
+    return result.rows.map((r) => ({ weekStart: new Date(`${r.week}T00:00:00Z`), band: r.band, count: r.count }));
+  }
+
+  /** Closed = verified by a second person; a finding verified twice in a week counts once. */
+  async closedPerWeek(organisationId: string, since: Date, siteId?: string, ex: DbExecutor = this.db): Promise<WeekBandCount[]> {
+    const result = await ex.execute<{ week: string; band: RiskBand; count: number }>(sql`
+      SELECT to_char(date_trunc('week', v.verified_at AT TIME ZONE 'UTC'), 'YYYY-MM-DD') AS week, f.risk_band AS band,
+        count(DISTINCT v.finding_id)::int AS count
+      FROM verifications v JOIN findings f ON f.id = v.finding_id
+      WHERE v.organisation_id = ${organisationId} AND v.outcome = 'verified' AND v.verified_at >= ${since.toISOString()}::timestamptz
+      ${onSite(organisationId, siteId, sql`f.scaffold_id`)}
+      GROUP BY 1, 2`);
+    return result.rows.map((r) => ({ weekStart: new Date(`${r.week}T00:00:00Z`), band: r.band, count: r.count }));
+  }
+
+  /** Median hours from raising to the first fix, for first fixes since `since`, by band. */
+  async timeToFix(organisationId: string, since: Date, siteId?: string, ex: DbExecutor = this.db) {
+    const result = await ex.execute<{ band: RiskBand; median_hours: number | null; fixes: number }>(sql`
+      WITH first_fix AS (
+        -- Only fixes in the period, and only where no earlier fix exists: the first fix, without grouping every fix ever made.
+        SELECT x.finding_id, min(x.fixed_at) AS fixed_at FROM fixes x
+        WHERE x.organisation_id = ${organisationId} AND x.fixed_at >= ${since.toISOString()}::timestamptz
+          AND NOT EXISTS (SELECT 1 FROM fixes e WHERE e.organisation_id = x.organisation_id AND e.finding_id = x.finding_id AND e.fixed_at < ${since.toISOString()}::timestamptz)
+        GROUP BY x.finding_id
+      )
+      SELECT f.risk_band AS band,
+        percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM ff.fixed_at - f.created_at) / 3600.0)::float8 AS median_hours,
+        count(*)::int AS fixes
+      FROM first_fix ff JOIN findings f ON f.id = ff.finding_id
+      WHERE true ${onSite(organisationId, siteId, sql`f.scaffold_id`)}
+      GROUP BY f.risk_band`);
+    return result.rows.map((r) => ({ band: r.band, medianHours: r.median_hours, fixes: r.fixes }));
+  }
+
+  /** The same scaffold, lift and bay with REPEAT_LOCATION_MIN findings or more in the last REPEAT_LOCATION_DAYS days. */
+  async repeatLocations(organisationId: string, siteId?: string, ex: DbExecutor = this.db) {
+    const result = await ex.execute<{
+      scaffold_id: string; reference: string; site_name: string; lift: number; bay: number; elevations: string[]; findings: number; last_raised_at: string;
+    }>(sql`
+      WITH repeats AS (
+        SELECT scaffold_id, lift, bay, array_agg(DISTINCT elevation ORDER BY elevation) AS elevations, count(*)::int AS findings,
+          max(created_at) AS last_raised_at
+        FROM findings
+        WHERE organisation_id = ${organisationId} AND created_at >= now() - make_interval(days => ${REPEAT_LOCATION_DAYS})
+        ${onSite(organisationId, siteId, sql`scaffold_id`)}
+        GROUP BY scaffold_id, lift, bay
+        HAVING count(*) >= ${REPEAT_LOCATION_MIN}
+      )
+      SELECT r.scaffold_id::text AS scaffold_id, sc.reference, s.name AS site_name, r.lift, r.bay, r.elevations, r.findings,
+        to_json(r.last_raised_at)#>>'{}' AS last_raised_at
+      FROM repeats r JOIN scaffolds sc ON sc.id = r.scaffold_id JOIN sites s ON s.id = sc.site_id
+      ORDER BY r.findings DESC, r.last_raised_at DESC, r.scaffold_id, r.lift, r.bay
+      LIMIT 100`);
+    return result.rows.map((r) => ({
+      scaffoldId: r.scaffold_id,
+      scaffoldReference: r.reference,
+      siteName: r.site_name,
+      lift: r.lift,
+      bay: r.bay,
+      elevations: r.elevations,
+      findings: r.findings,
+      lastRaisedAt: new Date(r.last_raised_at).toISOString(),
+    }));
+  }
+}
