@@ -20,9 +20,10 @@ import { InspectionsModule } from './inspections/inspections.module.js';
 import { FindingsModule } from './findings/findings.module.js';
 import { CatalogueModule } from './catalogue/catalogue.module.js';
 import { SyncModule } from './sync/sync.module.js';
+import { ReportsModule } from './reports/reports.module.js';
 
 /** Feature modules are listed here once each. */
-const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule];
+const FEATURES = [HealthModule, RateLimitModule, MailModule, UsersModule, AuthModule, PhotosModule, AuditModule, SitesModule, ScaffoldsModule, InspectionsModule, FindingsModule, CatalogueModule, SyncModule, ReportsModule];
 
 @Module({})
 export class AppModule {

@@ -71,7 +71,7 @@ export class InvitationsService {
       );
       const link = publicLink(this.config.PUBLIC_URL, this.config.HOST, this.config.PORT, '/accept-invite', token);
       const validDays = Math.max(1, Math.round(ttlS / 86_400));
-      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }));
+      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }), admin.organisationId);
       return toMember(member);
     });
   }

@@ -5,6 +5,7 @@ import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { toFinding } from './finding.mapper.js';
 import { FindingsRepository } from './findings.repository.js';
@@ -21,6 +22,7 @@ export class FindingWorkflowService {
     private readonly scaffolds: ScaffoldsRepository,
     private readonly findingsService: FindingsService,
     private readonly audit: AuditService,
+    private readonly reportMail: ReportMailQueue,
   ) {}
 
   /**
@@ -84,6 +86,10 @@ export class FindingWorkflowService {
       const row = await this.findings.update(id, { assigneeId: input.assigneeId, dueAt: input.dueAt ? new Date(input.dueAt) : null }, tx);
       const finding = toFinding(row);
       await this.audit.record(tx, user, { entityType: 'finding', entityId: id, action: 'assign', before: toFinding(current), after: finding });
+      // A newly assigned High finding tells its foreman, once, in this transaction.
+      if (row.assigneeId && row.assigneeId !== current.assigneeId && row.riskBand === 'High') {
+        await this.reportMail.enqueueAssignmentMail(tx, id, row.assigneeId);
+      }
       return finding;
     });
   }

@@ -2,7 +2,8 @@ import { Controller, Get, Param, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { MailListResponse } from '@plummet/shared';
-import { Roles } from '../auth/auth.decorators.js';
+import { CurrentUser, Roles } from '../auth/auth.decorators.js';
+import type { AuthUser } from '../auth/auth.types.js';
 import { MailBoxService } from './mail-box.service.js';
 import { MailListResponseDto, MailListQueryDto } from './mail.dto.js';
 
@@ -19,14 +20,14 @@ export class MailController {
 
   @Get()
   @ApiOkResponse({ type: MailListResponseDto.Output })
-  list(@Query() query: MailListQueryDto): Promise<MailListResponse> {
-    return this.mailBox.list(query);
+  list(@CurrentUser() user: AuthUser, @Query() query: MailListQueryDto): Promise<MailListResponse> {
+    return this.mailBox.list(query, user.organisationId);
   }
 
   @Get(':name')
   @ApiProduces('text/plain')
-  async read(@Param('name') name: string, @Res({ passthrough: true }) res: Response): Promise<string> {
-    const raw = await this.mailBox.read(name);
+  async read(@CurrentUser() user: AuthUser, @Param('name') name: string, @Res({ passthrough: true }) res: Response): Promise<string> {
+    const raw = await this.mailBox.read(name, user.organisationId);
     // Set only on success: errors keep the JSON body type.
     res.type('text/plain; charset=utf-8');
     return raw;
