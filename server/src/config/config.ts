@@ -36,6 +36,8 @@ export const ConfigSchema = z.object({
     .enum(['true', 'false'])
     .default('true')
     .transform((v) => v === 'true'),
+  /** Retries of a mail job before it ends failed (visible to admins at /api/mail-jobs/failed). */
+  MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).max(20).default(6),
   /** First retry delay of a mail job; pg-boss doubles it on each retry. */
   MAIL_RETRY_DELAY_S: z.coerce.number().int().min(1).max(3600).default(10),
   /** How often an idle worker looks for new mail jobs (pg-boss minimum 0.5 s). */

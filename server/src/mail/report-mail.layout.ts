@@ -104,7 +104,7 @@ export function renderReportMail(data: ReportData, photos: Map<string, ReportPho
     text.push(`${missing} further photo(s) are in the app.`);
     html.push(`<p>${missing} further photo(s) are in the app.</p>`);
   }
-  text.push(`Open the inspection in Plummet: ${inspectionUrl}`, '', '--', 'Plummet', wrapText(CAUTION_TEXT));
+  text.push("Open the inspection in Plummet:", inspectionUrl, '', '--', 'Plummet', wrapText(CAUTION_TEXT));
   html.push(
     `<p><a href="${escapeHtml(inspectionUrl)}">Open the inspection in Plummet</a><br><span style="font-size:12px">${escapeHtml(inspectionUrl)}</span></p>`,
     `<hr><p style="font-size:12px;color:#444">Plummet<br>${escapeHtml(CAUTION_TEXT)}</p></body></html>`,

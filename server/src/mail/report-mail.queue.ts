@@ -40,7 +40,7 @@ export class ReportMailQueue {
     await this.jobs.queue.send(MAIL_QUEUES.report, data, {
       id: jobIdFor('report', inspectionId),
       singletonKey: inspectionId,
-      ...retryOptions(this.config.MAIL_RETRY_DELAY_S),
+      ...retryOptions(this.config),
       db: transactionDb(tx),
     });
   }
@@ -49,7 +49,7 @@ export class ReportMailQueue {
   async enqueueReportResend(inspectionId: string, managerId: string): Promise<string> {
     const id = randomUUID();
     const data: ReportJobData = { inspectionId, resentBy: managerId };
-    await this.jobs.queue.send(MAIL_QUEUES.report, data, { id, ...retryOptions(this.config.MAIL_RETRY_DELAY_S) });
+    await this.jobs.queue.send(MAIL_QUEUES.report, data, { id, ...retryOptions(this.config) });
     return id;
   }
 
@@ -59,7 +59,7 @@ export class ReportMailQueue {
     await this.jobs.queue.send(MAIL_QUEUES.assignment, data, {
       id: jobIdFor('assignment', findingId, assigneeId),
       singletonKey: `${findingId}:${assigneeId}`,
-      ...retryOptions(this.config.MAIL_RETRY_DELAY_S),
+      ...retryOptions(this.config),
       db: transactionDb(tx),
     });
   }

@@ -10,12 +10,12 @@ export const MAIL_QUEUES = {
 export type MailQueueName = (typeof MAIL_QUEUES)[keyof typeof MAIL_QUEUES];
 
 /**
- * Retries: 6 attempts after the first with exponential backoff from 10 s (pg-boss doubles the
- * delay each time), i.e. about 10 minutes of an unreachable mail server before a job ends failed.
- * Tests shorten the first delay through MAIL_RETRY_DELAY_S.
+ * Retries with exponential backoff (pg-boss doubles the delay each time). The defaults, 6 retries
+ * from 10 s, ride out about 10 minutes of an unreachable mail server before a job ends failed.
+ * Tests shorten both through MAIL_RETRY_LIMIT and MAIL_RETRY_DELAY_S.
  */
-export function retryOptions(delaySeconds: number): { retryLimit: number; retryDelay: number; retryBackoff: boolean } {
-  return { retryLimit: 6, retryDelay: delaySeconds, retryBackoff: true };
+export function retryOptions(config: { MAIL_RETRY_LIMIT: number; MAIL_RETRY_DELAY_S: number }): { retryLimit: number; retryDelay: number; retryBackoff: boolean } {
+  return { retryLimit: config.MAIL_RETRY_LIMIT, retryDelay: config.MAIL_RETRY_DELAY_S, retryBackoff: true };
 }
 
 /**
