@@ -106,6 +106,22 @@ describe('the findings e-mail and signed report sent when an inspection is finis
     expect(text).toContain(flat(CAUTION_TEXT).slice(0, 60));
   });
 
+  it('opens in the admin’s mail viewer with its HTML rendered and its attachments listed', async () => {
+    const admin = await t.tokenFor('admin@demo.test');
+    const [name] = mail.messages();
+    const list = await api(t.baseUrl, 'GET', '/mail', { token: admin });
+    expect(list.body.items.map((m: { name: string }) => m.name)).toContain(name);
+    const view = await api(t.baseUrl, 'GET', `/mail/${name}/view`, { token: admin });
+    expect(view.status).toBe(200);
+    expect(view.body.attachments).toEqual(
+      expect.arrayContaining([expect.objectContaining({ contentType: 'application/pdf', inline: false }), expect.objectContaining({ contentType: 'image/jpeg', inline: true })]),
+    );
+    const html = await fetch(`${t.baseUrl}/api/mail/${name}/html`, { headers: { authorization: `Bearer ${admin}` } });
+    expect(html.headers.get('content-type')).toMatch(/^text\/html/);
+    expect(html.headers.get('content-security-policy')).toContain('sandbox');
+    expect(await html.text()).toContain('src="data:image/jpeg;base64,');
+  });
+
   it('queued exactly one message for the inspection', async () => {
     await new Promise((r) => setTimeout(r, 1500));
     expect(mail.messages()).toHaveLength(1);
