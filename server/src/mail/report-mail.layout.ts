@@ -72,7 +72,7 @@ export function renderReportMail(data: ReportData, photos: Map<string, ReportPho
     html.push('<p><strong>No falling-object findings were recorded in this inspection.</strong></p>');
   } else {
     text.push(`Findings, highest risk first (${list.length}):`, '');
-    html.push(`<h2 style="font-size:18px">Findings, highest risk first (${list.length})</h2><ol style="padding-left:20px">`);
+    html.push(`<h2 style="font-size:18px">Findings, highest risk first (${list.length})</h2><div>`);
   }
   list.forEach((f, index) => {
     const facts = findingFacts(f, units, tz);
@@ -91,14 +91,14 @@ export function renderReportMail(data: ReportData, photos: Map<string, ReportPho
     const rows = facts.map(([label, value]) => `<div><span style="color:#555">${escapeHtml(label)}:</span> ${escapeHtml(value)}</div>`).join('');
     const note = f.row.notes ? `<div style="white-space:pre-wrap;overflow-wrap:anywhere"><span style="color:#555">Note:</span> ${escapeHtml(f.row.notes)}</div>` : '';
     html.push(
-      `<li style="margin:0 0 14px"><table role="presentation" cellpadding="0" cellspacing="0" style="width:100%"><tr>` +
+      `<div style="margin:0 0 14px"><table role="presentation" cellpadding="0" cellspacing="0" style="width:100%"><tr>` +
         `<td style="vertical-align:top;padding-right:12px;width:96px">${img}</td>` +
         `<td style="vertical-align:top;font-size:14px"><div style="font-weight:700;font-size:15px">` +
         `<span style="${BAND_STYLE[f.row.riskBand] ?? ''};padding:1px 6px;border-radius:3px;font-size:12px">${escapeHtml(f.row.riskBand)} ${f.row.riskScore}</span> ` +
-        `${escapeHtml(f.row.itemName)}</div>${rows}${note}</td></tr></table></li>`,
+        `${index + 1}. ${escapeHtml(f.row.itemName)}</div>${rows}${note}</td></tr></table></div>`,
     );
   });
-  if (list.length > 0) html.push('</ol>');
+  if (list.length > 0) html.push('</div>');
   const missing = list.filter((f) => f.photos.length > 0 && !photos.has(f.row.id)).length;
   if (missing > 0) {
     text.push(`${missing} further photo(s) are in the app.`);

@@ -62,15 +62,16 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
   if (list.length === 0) doc.font('regular').fontSize(10).text('No falling-object findings were recorded in this inspection.', { width });
   list.forEach((f, index) => {
     const photo = photos.get(f.row.id);
-    const blockHeight = photo ? 130 : 110;
+    const blockHeight = photo ? 125 : 70;
     if (doc.y + blockHeight > doc.page.height - MARGIN - 30) doc.addPage();
     const top = doc.y;
     const textWidth = photo ? width - 120 : width;
     doc.font('bold').fontSize(11).fillColor(BAND_COLOURS[f.row.riskBand] ?? '#000').text(`${index + 1}. ${f.row.riskBand} – ${f.row.itemName}`, MARGIN, top, { width: textWidth });
     doc.fillColor('#000');
-    for (const [label, value] of findingFacts(f, units, tz)) {
-      doc.font('semibold').fontSize(9).text(`${label}: `, MARGIN, doc.y, { continued: true, width: textWidth }).font('regular').text(value);
-    }
+    // Three lines of facts per finding (few text runs: a 500-finding report stays quick to lay out).
+    const facts = findingFacts(f, units, tz).map(([label, value]) => `${label}: ${value}`);
+    doc.font('regular').fontSize(9);
+    for (const line of [facts[0], facts.slice(1, 5).join(' · '), facts.slice(5).join(' · ')]) doc.text(line, MARGIN, doc.y, { width: textWidth });
     if (f.row.notes) doc.font('regular').fontSize(9).text(`Note: ${f.row.notes}`, MARGIN, doc.y, { width: textWidth });
     if (photo) {
       try {

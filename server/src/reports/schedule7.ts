@@ -9,7 +9,8 @@ export function schedule7Fields(data: ReportData): [string, string][] {
   const { inspection: i, site, scaffold } = data;
   const tz = data.organisation.settings.timeZone;
   const client = [i.reportFor || site.clientName, site.clientAddress].filter((s) => s.trim() !== '').join(', ');
-  const matters = [i.mattersGivingRisk, `${data.findings.length} falling-object finding${data.findings.length === 1 ? '' : 's'} recorded (listed below).`];
+  const stated = i.mattersGivingRisk.trim();
+  const matters = [stated && !/[.!?]$/.test(stated) ? `${stated}.` : stated, `${data.findings.length} falling-object finding${data.findings.length === 1 ? '' : 's'} recorded (listed below).`];
   return [
     ['1. Name and address of the person for whom the inspection was carried out', client || 'not recorded'],
     ['2. Location of the work equipment inspected', [site.name, site.address, i.location].filter(Boolean).join(', ')],
