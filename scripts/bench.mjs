@@ -24,6 +24,12 @@ const BENCHES = {
   sync: async () => {
     await run('node', ['tests/bench/sync.bench.mjs'], { cwd: ROOT, label: 'sync benchmark' });
   },
+  // Report e-mail and PDF: builds shared and the server, then renders and sends to an SMTP fake.
+  mail: async () => {
+    await run('npm', ['run', '--silent', 'build', '-w', 'shared'], { cwd: ROOT, label: 'build of shared' });
+    await run('npm', ['run', '--silent', 'build', '-w', 'server'], { cwd: ROOT, label: 'build of server' });
+    await run('node', ['tests/bench/mail.bench.mjs'], { cwd: ROOT, label: 'mail benchmark' });
+  },
 };
 
 const name = process.argv[2];

@@ -38,6 +38,10 @@ async function main() {
     say('Chromium not found; installing Debian package chromium for the end-to-end tests…');
     await aptInstall(['chromium'], 'Chromium is needed for the end-to-end tests');
   }
+  if (!existsSync('/usr/bin/pdftoppm') || !existsSync('/usr/bin/pdftotext')) {
+    say('poppler-utils not found; installing it to read and render report PDFs in the tests…');
+    await aptInstall(['poppler-utils'], 'pdftotext and pdftoppm are needed for the report tests');
+  }
   const bin = await ensurePostgresBinaries();
 
   tmp = mkdtempSync(join(tmpdir(), 'plummet-test-'));

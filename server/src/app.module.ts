@@ -25,6 +25,7 @@ import { HousekeepingModule } from './housekeeping/housekeeping.module.js';
 import { OverviewModule } from './overview/overview.module.js';
 import { TrendsModule } from './trends/trends.module.js';
 import { ScaffoldReportsModule } from './scaffold-reports/scaffold-reports.module.js';
+import { ReportsModule } from './reports/reports.module.js';
 
 /** Feature modules are listed here once each. */
 const FEATURES = [
@@ -46,6 +47,7 @@ const FEATURES = [
   OverviewModule,
   TrendsModule,
   ScaffoldReportsModule,
+  ReportsModule,
 ];
 
 @Module({})

@@ -84,3 +84,63 @@ export function linkToken(decoded: string, path: string): string {
   if (!match) throw new Error(`no ${path} link in the message`);
   return match[1];
 }
+
+export interface OwnMailFake extends MailFake {
+  /** Closes the SMTP port: the server's sends fail as with a mail server that is down. */
+  stop(): Promise<void>;
+  /** Listens again on the same port. */
+  start(): Promise<void>;
+  /** The .eml files captured so far, oldest first. */
+  messages(): string[];
+}
+
+/** An SMTP fake of the test's own (never the shared one), which the test can stop and start again. */
+export async function startOwnMailFake(): Promise<OwnMailFake> {
+  const mailDir = mkdtempSync(join(tmpdir(), 'plummet-own-mail-'));
+  let port = 0;
+  let smtp: SMTPServer | null = null;
+  const listen = async () => {
+    const server = new SMTPServer({
+      authOptional: true,
+      disabledCommands: ['STARTTLS'],
+      logger: false,
+      size: 50 * 1024 * 1024,
+      onData(stream, _session, callback) {
+        const chunks: Buffer[] = [];
+        stream.on('data', (c: Buffer) => chunks.push(c));
+        stream.on('end', () => {
+          writeFileSync(join(mailDir, `${new Date().toISOString().replace(/[:.]/g, '-')}-${randomUUID().slice(0, 8)}.eml`), Buffer.concat(chunks));
+          callback();
+        });
+      },
+    });
+    port = await new Promise<number>((resolve, reject) => {
+      server.once('error', reject);
+      server.listen(port, '127.0.0.1', () => resolve((server.server.address() as { port: number }).port));
+    });
+    smtp = server;
+  };
+  const close = () => new Promise<void>((r) => (smtp ? smtp.close(() => r()) : r()));
+  await listen();
+  return {
+    env: { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(port), MAIL_DIR: mailDir },
+    mailDir,
+    async stop() {
+      await close();
+      smtp = null;
+    },
+    start: listen,
+    messages: () => readdirSync(mailDir).filter((n) => n.endsWith('.eml')).sort(),
+    async close() {
+      await close();
+      rmSync(mailDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Waits until `count` messages are in the folder (or the time is up) and returns their names. */
+export async function waitForMessages(fake: OwnMailFake, count: number, timeoutMs = 30_000): Promise<string[]> {
+  const deadline = Date.now() + timeoutMs;
+  while (fake.messages().length < count && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+  return fake.messages();
+}

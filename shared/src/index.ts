@@ -5,6 +5,7 @@ export * from './auth/password.schema.js';
 export * from './users/user.schema.js';
 export * from './users/member.schema.js';
 export * from './mail/mail.schema.js';
+export * from './mail/mail-job.schema.js';
 export * from './photos/photo.schema.js';
 export * from './units/index.js';
 export * from './physics/index.js';

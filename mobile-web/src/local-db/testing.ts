@@ -36,6 +36,8 @@ export const site: Site = {
   name: 'Quayside Library refurbishment',
   address: '14 Wharfinger Lane, Eastmouth',
   clientName: 'Eastmouth Libraries Trust',
+  clientAddress: '',
+  clientContactEmail: null,
   timeZone: 'Europe/London',
   regime: '7-day',
   reportRecipients: [],

@@ -75,7 +75,7 @@ export class InvitationsService {
     });
     const validDays = Math.max(1, Math.round(this.config.INVITE_TOKEN_TTL_S / 86_400));
     try {
-      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }));
+      await this.mail.send(input.email, invitationMail({ organisationName: inviter.organisationName, inviterName: inviter.name, link, validDays }), admin.organisationId);
     } catch {
       throw new AppError(ErrorCode.ServiceUnavailable, 'The invitation is saved but its e-mail could not be sent; invite again to send a new link');
     }

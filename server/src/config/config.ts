@@ -51,6 +51,17 @@ export const ConfigSchema = z.object({
   SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
   MAIL_FROM: z.string().default('Plummet <no-reply@plummet.test>'),
   MAIL_DIR: z.string().optional(),
+  /** Run the mail job workers in this process (every replica may; pg-boss hands each job to one). */
+  MAIL_WORKERS: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((v) => v === 'true'),
+  /** Retries of a mail job before it ends failed (visible to admins at /api/mail-jobs/failed). */
+  MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).max(20).default(6),
+  /** First retry delay of a mail job; pg-boss doubles it on each retry. */
+  MAIL_RETRY_DELAY_S: z.coerce.number().int().min(1).max(3600).default(10),
+  /** How often an idle worker looks for new mail jobs (pg-boss minimum 0.5 s). */
+  MAIL_POLL_S: z.coerce.number().min(0.5).max(60).default(2),
   S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().default('us-east-1'),
   S3_BUCKET: z.string().min(3).default('plummet-photos'),

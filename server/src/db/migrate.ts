@@ -5,6 +5,7 @@ import { drizzle } from 'drizzle-orm/node-postgres';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import type pg from 'pg';
 import { upsertBuiltinCatalogue } from '../catalogue/catalogue-builtins.js';
+import { ensureJobSchema } from '../mail/queue/job-schema.js';
 
 /** Arbitrary constant: serialises migrations when several replicas start at once. */
 const MIGRATION_LOCK_KEY = 7_243_118_001;
@@ -15,7 +16,7 @@ export function defaultMigrationsDir(): string {
   return resolve(here, '../../../drizzle/migrations');
 }
 
-/** Applies the committed drizzle-kit migrations, then upserts the built-in catalogue, under an advisory lock. */
+/** Applies the committed drizzle-kit migrations, upserts the built-in catalogue and creates the job queue's schema, under an advisory lock. */
 export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultMigrationsDir()): Promise<void> {
   if (!existsSync(resolve(migrationsFolder, 'meta/_journal.json'))) {
     throw new Error(`No migrations found in ${migrationsFolder}`);
@@ -28,6 +29,8 @@ export async function applyMigrations(pool: pg.Pool, migrationsFolder = defaultM
     try {
       await migrate(drizzle(client), { migrationsFolder });
       await upsertBuiltinCatalogue(drizzle(client));
+      // The job queue's tables (pg-boss), under the same lock, so replicas and test copies share them.
+      await ensureJobSchema(client);
     } finally {
       await client.query('SELECT pg_advisory_unlock($1)', [MIGRATION_LOCK_KEY]);
     }

@@ -22,6 +22,7 @@ import { AppError, ErrorCode } from '../common/app-error.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { InspectionsRepository } from '../inspections/inspections.repository.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
+import { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { applied, type CommandActor, type CommandResult, findingNotFound, parseInput, requireRole } from './finding-command-rules.js';
 import { checkPosition, findingColumns, findingFieldValues, newFindingRow, resolveItem, sameCreate } from './finding-input.js';
@@ -41,12 +42,13 @@ export class FindingCommands {
     private readonly inspections: InspectionsRepository,
     private readonly catalogue: CatalogueRepository,
     private readonly audit: AuditService,
+    private readonly reportMail: ReportMailQueue,
   ) {}
 
   /** Statement by statement on `tx`; `scaffolds` caches scaffolds across the mutations of one push. */
   store(tx: DbExecutor, user: AuthUser, scaffolds?: Map<string, ScaffoldRow>): FindingStore {
-    const { findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit } = this;
-    return new DbFindingStore({ findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit }, tx, user, scaffolds);
+    const { findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit, reportMail } = this;
+    return new DbFindingStore({ findings, scaffolds: scaffoldsRepo, inspections, catalogue, audit, reportMail }, tx, user, scaffolds);
   }
 
   /**

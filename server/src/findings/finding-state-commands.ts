@@ -112,6 +112,7 @@ export async function assignFinding(store: FindingStore, actor: CommandActor, id
   if (same) return applied(current, 'Already assigned so: nothing to change');
   const row = await store.updateFinding(id, { assigneeId: input.assigneeId, handBack: null, ...(dueAt ? { dueAt } : {}) });
   await store.audit({ entityType: 'finding', entityId: id, action: 'assign', before: toFinding(current), after: toFinding(row) });
+  if (row.assigneeId && row.assigneeId !== current.assigneeId && row.riskBand === 'High') await store.assignedHigh(id, row.assigneeId);
   return applied(row);
 }
 

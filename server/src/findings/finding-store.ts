@@ -1,3 +1,4 @@
+import type { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { type OrganisationSettings, readOrganisationSettings } from '@plummet/shared';
 import { sql } from 'drizzle-orm';
 import type { AuditChange, AuditService } from '../audit/audit.service.js';
@@ -48,6 +49,8 @@ export interface FindingStore {
   insertVerification(values: VerificationInsert): Promise<void>;
   markScaffoldAltered(scaffoldId: string, at: Date): Promise<void>;
   audit(change: AuditChange): Promise<void>;
+  /** A High finding was newly assigned: its foreman is told by e-mail, queued in this transaction. */
+  assignedHigh(findingId: string, assigneeId: string): Promise<void>;
 }
 
 export interface FindingStoreDeps {
@@ -56,6 +59,7 @@ export interface FindingStoreDeps {
   inspections: InspectionsRepository;
   catalogue: CatalogueRepository;
   audit: AuditService;
+  reportMail: ReportMailQueue;
 }
 
 /** Statement by statement, straight to the database (REST, the per-mutation push path, conflict settling). */
@@ -143,6 +147,10 @@ export class DbFindingStore implements FindingStore {
   async markScaffoldAltered(scaffoldId: string, at: Date) {
     await this.deps.findings.markScaffoldsAltered([scaffoldId], at, this.tx);
     this.scaffolds.delete(scaffoldId);
+  }
+
+  assignedHigh(findingId: string, assigneeId: string) {
+    return this.deps.reportMail.enqueueAssignmentMail(this.tx, findingId, assigneeId);
   }
 
   audit(change: AuditChange) {

@@ -17,6 +17,7 @@ import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { toScaffold } from '../scaffolds/scaffold.mapper.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { type InspectionRow, toControlCheck, toInspection } from './inspection.mapper.js';
@@ -47,6 +48,7 @@ export class InspectionsService {
     private readonly inspections: InspectionsRepository,
     private readonly scaffolds: ScaffoldsRepository,
     private readonly audit: AuditService,
+    private readonly reportMail: ReportMailQueue,
   ) {}
 
   async list(user: AuthUser, query: InspectionListQuery): Promise<ListResponse<Inspection>> {
@@ -139,6 +141,8 @@ export class InspectionsService {
         await this.inspections.update(id, { ...report, finishedAt, signedAt: input.signature ? finishedAt : null }, tx),
       );
       await this.audit.record(tx, user, { entityType: 'inspection', entityId: id, action: 'finish', before: toInspection(current), after: inspection });
+      // In this transaction: the finish and its report e-mail commit together or not at all.
+      await this.reportMail.enqueueInspectionReport(tx, id);
 
       const target = await this.scaffolds.findWithSite(user.organisationId, current.scaffoldId, tx);
       // An older inspection synced late must not move the scaffold's dates backwards.

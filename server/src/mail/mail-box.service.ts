@@ -5,6 +5,7 @@ import { decodeCursor, encodeCursor, type MailListQuery, type MailListResponse, 
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { parseEmlHeaders } from './eml-headers.js';
+import { ORGANISATION_HEADER } from './mail.service.js';
 
 /** `<letters, digits, dot, dash, underscore>.eml`, no path separators and no leading dot. */
 const MAIL_NAME = /^[A-Za-z0-9][A-Za-z0-9._-]{0,195}\.eml$/;
@@ -32,7 +33,7 @@ export class MailBoxService {
   }
 
   /** Newest first (by file time, then name); the cursor is the last (time, name) of the previous page. */
-  async list(query: MailListQuery): Promise<MailListResponse> {
+  async list(query: MailListQuery, organisationId: string): Promise<MailListResponse> {
     const dir = this.folder();
     let after: { mtime: number; name: string } | null = null;
     if (query.cursor !== undefined) {
@@ -60,16 +61,25 @@ export class MailBoxService {
       .filter((f): f is { name: string; mtime: number } => f.mtime !== null)
       .sort(newestFirst)
       .filter((f) => !after || newestFirst(after, f) < 0);
-    const page = files.slice(0, query.limit);
-    const items = await Promise.all(page.map((f) => this.summary(dir, f.name)));
-    const last = page[page.length - 1];
-    const nextCursor =
-      files.length > query.limit && last ? encodeCursor({ sort: 'date', order: 'desc', value: last.mtime, id: last.name }) : null;
-    return { items, nextCursor };
+    // Only the caller's organisation's messages (the header every Plummet message of an organisation carries).
+    const page: { file: { name: string; mtime: number }; item: MailMessage }[] = [];
+    let more = false;
+    for (const file of files) {
+      const { item, organisationId: owner } = await this.summary(dir, file.name);
+      if (owner !== organisationId) continue;
+      if (page.length === query.limit) {
+        more = true;
+        break;
+      }
+      page.push({ file, item });
+    }
+    const last = page[page.length - 1]?.file;
+    const nextCursor = more && last ? encodeCursor({ sort: 'date', order: 'desc', value: last.mtime, id: last.name }) : null;
+    return { items: page.map((p) => p.item), nextCursor };
   }
 
   /** The raw message text; 400 for a name that is not a plain `.eml` file name, 404 when absent. */
-  async read(name: string): Promise<string> {
+  async read(name: string, organisationId: string): Promise<string> {
     const dir = this.folder();
     if (!MAIL_NAME.test(name) || name.includes('..')) {
       throw new AppError(ErrorCode.ValidationFailed, 'Not a captured message name', [
@@ -82,14 +92,19 @@ export class MailBoxService {
       const info = await stat(file);
       if (!info.isFile()) throw AppError.notFound('Message');
       if (info.size > MAX_MESSAGE_BYTES) throw new AppError(ErrorCode.PayloadTooLarge, 'The message is too large to show');
-      return await readFile(file, 'utf8');
+      const raw = await readFile(file, 'utf8');
+      const headerEnd = raw.search(/\r?\n\r?\n/);
+      if (parseEmlHeaders(raw.slice(0, headerEnd < 0 ? raw.length : headerEnd)).get(ORGANISATION_HEADER.toLowerCase()) !== organisationId) {
+        throw AppError.notFound('Message');
+      }
+      return raw;
     } catch (error) {
       if (isMissing(error)) throw AppError.notFound('Message');
       throw error;
     }
   }
 
-  private async summary(dir: string, name: string): Promise<MailMessage> {
+  private async summary(dir: string, name: string): Promise<{ item: MailMessage; organisationId: string | undefined }> {
     let head = '';
     try {
       const handle = await open(join(dir, name), 'r');
@@ -106,11 +121,12 @@ export class MailBoxService {
     const headers = parseEmlHeaders(head);
     const date = headers.get('date');
     const parsed = date ? new Date(date) : null;
-    return {
+    const item = {
       name,
       subject: headers.get('subject') ?? '',
       to: headers.get('to') ?? '',
       date: parsed && !Number.isNaN(parsed.getTime()) ? parsed.toISOString() : null,
     };
+    return { item, organisationId: headers.get(ORGANISATION_HEADER.toLowerCase()) };
   }
 }

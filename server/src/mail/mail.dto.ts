@@ -1,5 +1,6 @@
-import { MailListQuerySchema, MailListResponseSchema } from '@plummet/shared';
+import { MailListQuerySchema, MailListResponseSchema, MailMessageViewSchema } from '@plummet/shared';
 import { createZodDto } from 'nestjs-zod';
 
 export class MailListQueryDto extends createZodDto(MailListQuerySchema) {}
 export class MailListResponseDto extends createZodDto(MailListResponseSchema) {}
+export class MailMessageViewDto extends createZodDto(MailMessageViewSchema) {}

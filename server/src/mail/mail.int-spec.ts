@@ -102,3 +102,26 @@ describe('GET /api/mail without MAIL_DIR', () => {
     }
   });
 });
+
+describe('GET /api/mail keeps organisations apart', () => {
+  it('shows an admin only the messages of their own organisation', async () => {
+    const mail = await useMailFake();
+    const t = await startTestApp({ env: mail.env });
+    try {
+      const { addOtherOrgRoles } = await import('../../test/fixtures.js');
+      await addOtherOrgRoles(t.drizzle);
+      const address = `mail-scope.${Date.now()}@demo.test`;
+      await api(t.baseUrl, 'POST', '/users/invitations', { token: await t.tokenFor('admin@demo.test'), body: { email: address, name: 'Mail Scope', role: 'inspector' } });
+      const { name } = await waitForMail(mail.mailDir, address);
+      const other = await t.tokenFor('admin@other.test');
+      const list = await api(t.baseUrl, 'GET', '/mail?limit=200', { token: other });
+      expect(list.status).toBe(200);
+      expect(list.body.items.map((m: { name: string }) => m.name)).not.toContain(name);
+      expect((await api(t.baseUrl, 'GET', `/mail/${name}`, { token: other })).status).toBe(404);
+      expect((await api(t.baseUrl, 'GET', `/mail/${name}`, { token: await t.tokenFor('admin@demo.test') })).status).toBe(200);
+    } finally {
+      await t.close();
+      await mail.close();
+    }
+  });
+});

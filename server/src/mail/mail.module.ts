@@ -1,13 +1,22 @@
 import { Global, Module } from '@nestjs/common';
+import { ReportsModule } from '../reports/reports.module.js';
+import { AssignmentMailSender } from './assignment-mail.sender.js';
 import { MailBoxService } from './mail-box.service.js';
+import { MailJobsController } from './mail-jobs.controller.js';
 import { MailController } from './mail.controller.js';
 import { MailService } from './mail.service.js';
+import { FailedMailJobsRepository } from './queue/failed-mail-jobs.repository.js';
+import { MailJobsService } from './queue/mail-jobs.service.js';
+import { ReportMailQueue } from './report-mail.queue.js';
+import { ReportMailSender } from './report-mail.sender.js';
+import { ReportSendController } from './report-send.controller.js';
 
-/** Outgoing e-mail for every feature, plus the development view of captured mail. */
+/** Outgoing e-mail for every feature (sent now or queued in PostgreSQL), plus the development view of captured mail. */
 @Global()
 @Module({
-  controllers: [MailController],
-  providers: [MailService, MailBoxService],
-  exports: [MailService],
+  imports: [ReportsModule],
+  controllers: [MailController, MailJobsController, ReportSendController],
+  providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository],
+  exports: [MailService, ReportMailQueue],
 })
 export class MailModule {}

@@ -26,7 +26,7 @@ export async function seedDemoRecords(tx: DbExecutor, people: DemoPeople): Promi
   for (const s of DEMO_SITES) {
     await tx
       .insert(sites)
-      .values({ id: s.id, organisationId: org(s.org), name: s.name, address: s.address, clientName: s.clientName, regime: s.regime, reportRecipients: [...s.reportRecipients] })
+      .values({ id: s.id, organisationId: org(s.org), name: s.name, address: s.address, clientName: s.clientName, clientAddress: s.clientAddress, clientContactEmail: s.clientContactEmail, regime: s.regime, reportRecipients: [...s.reportRecipients] })
       .onConflictDoNothing();
   }
   const siteOf = new Map<string, (typeof DEMO_SITES)[number]>(DEMO_SITES.map((s) => [s.id, s]));

@@ -9,6 +9,8 @@ export function toSite(row: SiteRow): Site {
     name: row.name,
     address: row.address,
     clientName: row.clientName,
+    clientAddress: row.clientAddress,
+    clientContactEmail: row.clientContactEmail,
     timeZone: row.timeZone,
     regime: row.regime,
     reportRecipients: row.reportRecipients,

@@ -63,6 +63,7 @@ export class BatchSyncStore implements FindingStore {
   private verifications: VerificationInsert[] = [];
   private audits: AuditChange[] = [];
   private altered: { scaffoldId: string; at: Date }[] = [];
+  private assignedMails: { findingId: string; assigneeId: string }[] = [];
   private undo: (() => void)[] = [];
 
   constructor(
@@ -77,7 +78,7 @@ export class BatchSyncStore implements FindingStore {
   }
 
   begin(): void {
-    const lengths = [this.conflicts.length, this.fixes.length, this.verifications.length, this.audits.length, this.altered.length] as const;
+    const lengths = [this.conflicts.length, this.fixes.length, this.verifications.length, this.audits.length, this.altered.length, this.assignedMails.length] as const;
     this.undo = [
       () => {
         this.conflicts.length = lengths[0];
@@ -85,6 +86,7 @@ export class BatchSyncStore implements FindingStore {
         this.verifications.length = lengths[2];
         this.audits.length = lengths[3];
         this.altered.length = lengths[4];
+        this.assignedMails.length = lengths[5];
       },
     ];
   }
@@ -210,6 +212,10 @@ export class BatchSyncStore implements FindingStore {
     this.audits.push(change);
   }
 
+  async assignedHigh(findingId: string, assigneeId: string) {
+    this.assignedMails.push({ findingId, assigneeId });
+  }
+
   /** Writes everything; call inside a savepoint. Throws BatchFallback when the database would not take it as computed. */
   async flush(tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
     const created = [...this.created].map((id) => this.rows.get(id)!.finding);
@@ -221,6 +227,8 @@ export class BatchSyncStore implements FindingStore {
     await repo.insertConflicts(this.conflicts, tx);
     for (const { scaffoldId, at } of this.altered) await repo.markScaffoldAltered(scaffoldId, at, tx);
     await audit.recordMany(tx, this.user, this.audits);
+    // Queued through the statement-by-statement store, which runs on the same transaction.
+    for (const { findingId, assigneeId } of this.assignedMails) await this.reads.assignedHigh(findingId, assigneeId);
   }
 
   /** The ids of the findings flush() wrote. */

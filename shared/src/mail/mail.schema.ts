@@ -20,3 +20,13 @@ export type MailListQuery = z.infer<typeof MailListQuerySchema>;
 
 export const MailListResponseSchema = listResponseSchema(MailMessageSchema);
 export type MailListResponse = z.infer<typeof MailListResponseSchema>;
+
+/** One captured message opened in the viewer: its parts and the attachments it carries. */
+export const MailMessageViewSchema = MailMessageSchema.extend({
+  cc: z.string(),
+  text: z.string(),
+  /** The HTML part with inline images as data: URLs; `GET /api/mail/:name/html` serves it to render. */
+  html: z.string().nullable(),
+  attachments: z.array(z.object({ filename: z.string().nullable(), contentType: z.string(), size: z.number().int(), inline: z.boolean() })),
+});
+export type MailMessageView = z.infer<typeof MailMessageViewSchema>;

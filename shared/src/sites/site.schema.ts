@@ -13,6 +13,10 @@ export const SiteSchema = z.object({
   name: z.string(),
   address: z.string(),
   clientName: z.string(),
+  /** Schedule 7 (UK WAHR 2005): the address of the person the report is made for. */
+  clientAddress: z.string(),
+  /** Receives a copy of each report (organisation setting clientCopyOfReports). */
+  clientContactEmail: z.email().nullable(),
   timeZone: z.string(),
   regime: InspectionRegimeSchema,
   reportRecipients: z.array(z.string()),
@@ -26,6 +30,8 @@ const siteFields = {
   name: NameSchema,
   address: z.string().trim().min(1).max(500),
   clientName: NameSchema,
+  clientAddress: z.string().trim().max(500),
+  clientContactEmail: z.email().max(254).nullable(),
   timeZone: TimeZoneSchema,
   regime: InspectionRegimeSchema,
   reportRecipients: z.array(z.email().max(254)).max(20),
@@ -36,6 +42,8 @@ export const SiteCreateSchema = z.object({
   timeZone: siteFields.timeZone.default('Europe/London'),
   regime: siteFields.regime.default('7-day'),
   reportRecipients: siteFields.reportRecipients.default([]),
+  clientAddress: siteFields.clientAddress.default(''),
+  clientContactEmail: siteFields.clientContactEmail.default(null),
 });
 export type SiteCreate = z.infer<typeof SiteCreateSchema>;
 

@@ -1,4 +1,4 @@
-import { index, integer, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, pgEnum, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { createdAt, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { users } from './users.table.js';
@@ -13,6 +13,10 @@ export const sites = pgTable(
     name: text('name').notNull(),
     address: text('address').notNull(),
     clientName: text('client_name').notNull(),
+    /** The client the statutory report is made for (UK WAHR 2005 Schedule 7: name and address). */
+    clientAddress: text('client_address').notNull().default(''),
+    /** Optional: receives a copy of each report unless the organisation turns client copies off. */
+    clientContactEmail: text('client_contact_email'),
     timeZone: text('time_zone').notNull().default('Europe/London'),
     regime: inspectionRegimeEnum('regime').notNull().default('7-day'),
     reportRecipients: text('report_recipients').array().notNull().default([]),
@@ -48,4 +52,15 @@ export const scaffolds = pgTable(
     version: version(),
   },
   (t) => [index('scaffolds_org_site_idx').on(t.organisationId, t.siteId), index('scaffolds_foreman_idx').on(t.foremanId)],
+);
+
+/** Managers responsible for a site; a site with none of its own reports to every manager of the organisation. */
+export const siteManagers = pgTable(
+  'site_managers',
+  {
+    siteId: uuid('site_id').notNull().references(() => sites.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.siteId, t.userId] }), index('site_managers_user_idx').on(t.userId)],
 );

@@ -1,0 +1,41 @@
+import PgBoss from 'pg-boss';
+import type pg from 'pg';
+
+/** The queues the mail feature uses; created with the schema so every database copy has them. */
+export const MAIL_QUEUES = {
+  report: 'mail-inspection-report',
+  assignment: 'mail-finding-assignment',
+  digest: 'mail-daily-digest',
+} as const;
+export type MailQueueName = (typeof MAIL_QUEUES)[keyof typeof MAIL_QUEUES];
+
+/**
+ * Retries with exponential backoff (pg-boss doubles the delay each time). The defaults, 6 retries
+ * from 10 s, ride out about 10 minutes of an unreachable mail server before a job ends failed.
+ * Tests shorten both through MAIL_RETRY_LIMIT and MAIL_RETRY_DELAY_S.
+ */
+export function retryOptions(config: { MAIL_RETRY_LIMIT: number; MAIL_RETRY_DELAY_S: number }): { retryLimit: number; retryDelay: number; retryBackoff: boolean } {
+  return { retryLimit: config.MAIL_RETRY_LIMIT, retryDelay: config.MAIL_RETRY_DELAY_S, retryBackoff: true };
+}
+
+/**
+ * Creates (or upgrades) pg-boss's schema and our queues through a client that already holds the
+ * migration lock: `npm start`, the test template and every test copy of it get the same tables,
+ * and no pg-boss connection stays open on the template (a copy would then be refused).
+ */
+export async function ensureJobSchema(client: pg.PoolClient): Promise<void> {
+  const boss = new PgBoss({
+    db: { executeSql: (text, values) => client.query(text, values) },
+    supervise: false,
+    schedule: false,
+  });
+  boss.on('error', () => undefined);
+  await boss.start();
+  try {
+    for (const name of Object.values(MAIL_QUEUES)) {
+      if (!(await boss.getQueue(name))) await boss.createQueue(name, { name, policy: 'standard' });
+    }
+  } finally {
+    await boss.stop({ graceful: false, wait: true });
+  }
+}
