@@ -19,6 +19,8 @@ export function toSyncConflict(row: SyncConflictRow): SyncConflict {
     currentValue: row.currentValue,
     replacedValue: row.replacedValue,
     winnerUserId: row.winnerUserId,
+    replacedUserId: row.replacedUserId,
+    replacedAt: row.replacedAt?.toISOString() ?? null,
     status: row.status,
     resolution: (row.resolution as SyncConflict['resolution']) ?? null,
     resolvedBy: row.resolvedBy,

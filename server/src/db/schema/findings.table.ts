@@ -62,7 +62,9 @@ export const findings = pgTable(
   ],
 );
 
-export const fixes = pgTable('fixes', {
+export const fixes = pgTable(
+  'fixes',
+  {
   id: uuid('id').primaryKey(),
   organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
   findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
@@ -70,11 +72,16 @@ export const fixes = pgTable('fixes', {
   fixedAt: timestamp('fixed_at', { withTimezone: true }).notNull(),
   note: text('note').notNull().default(''),
   createdAt: createdAt(),
-});
+  ...syncStampColumns(),
+  },
+  (t) => [index('fixes_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq), index('fixes_finding_idx').on(t.findingId)],
+);
 
 export const verificationOutcomeEnum = pgEnum('verification_outcome', ['verified', 'reopened']);
 
-export const verifications = pgTable('verifications', {
+export const verifications = pgTable(
+  'verifications',
+  {
   id: uuid('id').primaryKey(),
   organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
   findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
@@ -83,7 +90,10 @@ export const verifications = pgTable('verifications', {
   outcome: verificationOutcomeEnum('outcome').notNull(),
   note: text('note').notNull().default(''),
   createdAt: createdAt(),
-});
+  ...syncStampColumns(),
+  },
+  (t) => [index('verifications_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq), index('verifications_finding_idx').on(t.findingId)],
+);
 
 /** Who changed what and when, with the record before and after; written in the same transaction. */
 export const auditEvents = pgTable(

@@ -1,4 +1,5 @@
 import { boolean, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 
 export const unitsEnum = pgEnum('units', ['si', 'imperial']);
@@ -16,6 +17,8 @@ export const users = pgTable('users', {
   /** Display units chosen by the user; values are always stored in SI. */
   units: unitsEnum('units').notNull().default('si'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  /** The change feed carries a user's own profile and settings to their phones (read by id). */
+  ...syncStampColumns(),
 });
 
 /** A user's role in one organisation. */
