@@ -1,7 +1,7 @@
 import { accessTokenNeedsRefresh, sessionFromResponse, type StoredSession } from '../features/auth/session';
 import { readSession, saveSession } from '../features/auth/session.store';
 import { db, type PlummetDb } from '../local-db/db';
-import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
+import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
 import { ApiError, apiFetch, type ApiRequest } from './http';
 
 type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;

@@ -1,4 +1,4 @@
-import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
+import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
 
 /**
  * The one way the app calls the Plummet API. The server answers every error as

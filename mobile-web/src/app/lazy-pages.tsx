@@ -21,7 +21,7 @@ export const CalculatorPage = page(() => import('../features/calculator/pages/Ca
 export const SettingsPage = page(() => import('../features/settings/pages/SettingsPage'), 'SettingsPage');
 export const SyncStatusPage = page(() => import('../features/sync/pages/SyncStatusPage'), 'SyncStatusPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
-export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
+export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
 
 /** A route's element: the lazy page, rendering nothing until its chunk has loaded (Ionic waits for the IonPage). */
 export function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {
