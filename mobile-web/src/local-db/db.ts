@@ -3,6 +3,9 @@ import type {
   CatalogueItemRecord,
   ControlCheckRecord,
   FindingRecord,
+  FixRecord,
+  PhotoMetaRecord,
+  VerificationRecord,
   InspectionRecord,
   MetaEntry,
   OutboxEntry,
@@ -29,6 +32,9 @@ export class PlummetDb extends Dexie {
   controlChecks!: EntityTable<ControlCheckRecord, 'id'>;
   photos!: EntityTable<PhotoRecord, 'id'>;
   catalogue!: EntityTable<CatalogueItemRecord, 'id'>;
+  fixes!: EntityTable<FixRecord, 'id'>;
+  verifications!: EntityTable<VerificationRecord, 'id'>;
+  photoMeta!: EntityTable<PhotoMetaRecord, 'id'>;
   outbox!: EntityTable<OutboxEntry, 'id'>;
   meta!: EntityTable<MetaEntry, 'key'>;
 
@@ -47,6 +53,16 @@ export class PlummetDb extends Dexie {
       outbox: '++id, [entity+entityId], createdAt',
       meta: 'key',
     });
+
+    // Version 2: the change feed carries every record a phone holds; fixes, verifications and the
+    // server's photo metadata get tables of their own. New tables only: nothing to convert.
+    this.version(2)
+      .stores({
+        fixes: 'id, findingId',
+        verifications: 'id, findingId',
+        photoMeta: 'id, [ownerType+ownerId]',
+      })
+      .upgrade(() => undefined);
   }
 }
 
@@ -63,6 +79,9 @@ export function userDataTables(database: PlummetDb) {
     database.controlChecks,
     database.photos,
     database.catalogue,
+    database.fixes,
+    database.verifications,
+    database.photoMeta,
     database.outbox,
     database.meta,
   ];

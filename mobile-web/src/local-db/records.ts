@@ -10,6 +10,9 @@ import type {
   FindingCreate,
   FindingStateChangeInput,
   FindingUpdate,
+  Fix,
+  Photo,
+  Verification,
   Inspection,
   InspectionCreate,
   InspectionFinish,
@@ -71,6 +74,18 @@ export interface PhotoRecord {
   /** Set once the upload has reached the server. */
   uploadedAt?: IsoDateTime;
 }
+
+/** A fix as the change feed carries it (the foreman's record of what was done). */
+export type FixRecord = Fix;
+
+/** A verification or reopening as the change feed carries it. */
+export type VerificationRecord = Verification;
+
+/**
+ * A photo's metadata as the server has it (any phone's upload); the bytes come from its url on
+ * demand. The phone's own photos, with their bytes, are in `photos`.
+ */
+export type PhotoMetaRecord = Photo;
 
 export interface CatalogueItemRecord extends CatalogueItem {
   /** Lower-case words of the name, for prefix search (a multi-entry index). */
