@@ -43,20 +43,23 @@ function catalogueItem(id: string, name: string) {
 }
 
 describe('PlummetDb', () => {
-  it('opens at version 1 with every table the app needs', async () => {
+  it('opens at version 2 with every table the app needs', async () => {
     const database = freshDb();
     await database.open();
-    expect(database.verno).toBe(1);
+    expect(database.verno).toBe(2);
     expect(database.tables.map((table) => table.name).sort()).toEqual([
       'catalogue',
       'controlChecks',
       'findings',
+      'fixes',
       'inspections',
       'meta',
       'outbox',
+      'photoMeta',
       'photos',
       'scaffolds',
       'sites',
+      'verifications',
     ]);
   });
 
