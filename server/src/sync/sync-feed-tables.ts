@@ -66,17 +66,17 @@ function optional<T>(row: object, key: string): T | null {
   return ((row as Record<string, unknown>)[key] as T | undefined) ?? null;
 }
 
-async function read<T extends { syncXid: string; syncSeq: number }>(
-  rows: Promise<T[]>,
-  toChange: (row: T) => SyncChange,
-): Promise<StampedChange[]> {
-  return (await rows).map((row) => ({ xid: row.syncXid, seq: row.syncSeq, change: toChange(row) }));
+/** A reader: the query runs when called (one statement at a time on the pull's connection). */
+type Reader = () => Promise<StampedChange[]>;
+
+function read<T extends { syncXid: string; syncSeq: number }>(rows: PromiseLike<T[]>, toChange: (row: T) => SyncChange): Reader {
+  return async () => (await rows).map((row) => ({ xid: row.syncXid, seq: row.syncSeq, change: toChange(row) }));
 }
 
 const order = (table: { syncXid: PgColumn; syncSeq: PgColumn }) => [asc(table.syncXid), asc(table.syncSeq)];
 
 /** Every reader of the feed besides findings and conflicts, each limited to `limit` rows. */
-export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window, limit: number): Promise<StampedChange[]>[] {
+export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window, limit: number): Reader[] {
   const { organisationId: org, foremanId } = scope;
   const inOrg = (table: PgTable & { organisationId: PgColumn; syncXid: PgColumn; syncSeq: PgColumn }, extra?: SQL) =>
     and(eq(table.organisationId, org), window(table.syncXid, table.syncSeq), extra);

@@ -63,7 +63,7 @@ export class SyncPullRepository {
     // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
     // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
     const scoped = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
-    const findingRows = tx.execute<Record<string, unknown>>(sql`
+    const findingRows = await tx.execute<Record<string, unknown>>(sql`
       select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
       from findings join scaffolds s on s.id = findings.scaffold_id
       where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped}
@@ -71,15 +71,18 @@ export class SyncPullRepository {
       limit ${limit}`);
     // A foreman sees no conflicts: settling them is for inspectors and managers.
     const conflictRows = foremanId
-      ? Promise.resolve([])
-      : tx
+      ? []
+      : await tx
           .select()
           .from(syncConflicts)
           .where(and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq)))
           .orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq))
           .limit(limit);
-    // One connection runs one statement at a time; awaiting them together only saves round trips.
-    const [found, conflicts, ...others] = await Promise.all([findingRows, conflictRows, ...readOtherTables(tx, scope, window, limit)]);
+    // One connection runs one statement at a time (pg refuses overlapping queries): one after another.
+    const found = await findingRows;
+    const conflicts = await conflictRows;
+    const others: StampedChange[][] = [];
+    for (const reader of readOtherTables(tx, scope, window, limit)) others.push(await reader());
     const out: StampedChange[] = found.rows.map((r) => ({
       xid: r.feed_xid as string,
       seq: Number(r.feed_seq),
