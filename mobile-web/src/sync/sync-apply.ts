@@ -96,6 +96,9 @@ async function applyChange(database: PlummetDb, change: SyncChange, waiting: Wai
     case 'inspection': {
       if (waiting.inspection.has(change.record.id)) return;
       const local = await database.inspections.get(change.record.id);
+      // Only walks already on this phone are updated for now: the finding editor treats findings of
+      // a finished inspection on the phone as read-only, which would lock the fix loop's edits.
+      if (!local) return;
       const scaffold = await database.scaffolds.get(change.record.scaffoldId);
       const record: InspectionRecord = {
         ...change.record,
