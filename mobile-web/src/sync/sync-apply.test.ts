@@ -91,7 +91,7 @@ const everything: SyncChange[] = [
 describe('applying a pulled page', () => {
   it('stores every record type the feed carries, and the cursor', async () => {
     const database = freshDb();
-    await database.inspections.put({ ...(everything[3]!.record as never), siteId: '', status: 'in-progress', organisationId: ORG_ID });
+    await database.inspections.put({ ...(everything[3]!.record as object), siteId: '', status: 'in-progress', organisationId: ORG_ID } as never);
     await applyPulledPage(database, page(everything));
     expect(await database.sites.get(SITE_ID)).toMatchObject({ name: site.name, organisationId: ORG_ID });
     expect(await database.scaffolds.get(SCAFFOLD_ID)).toMatchObject({ reference: scaffold.reference, organisationId: ORG_ID });
@@ -115,7 +115,7 @@ describe('applying a pulled page', () => {
 
   it('drops an archived scaffold with its findings, fixes, inspections and checks, and leaves the site', async () => {
     const database = freshDb();
-    await database.inspections.put({ ...(everything[3]!.record as never), siteId: '', status: 'in-progress', organisationId: ORG_ID });
+    await database.inspections.put({ ...(everything[3]!.record as object), siteId: '', status: 'in-progress', organisationId: ORG_ID } as never);
     await applyPulledPage(database, page(everything));
     await applyPulledPage(database, page([{ type: 'tombstone', record: { recordType: 'scaffold', id: SCAFFOLD_ID, reason: 'archived' } }], '6.1'));
     expect(await database.scaffolds.count()).toBe(0);
