@@ -20,7 +20,15 @@ import { loadConfig } from '../../server/src/config/config.js';
 import { findings, syncConflicts, syncMutations } from '../../server/src/db/schema/index.js';
 import { deliverLate, loadMobile, type Network, Phone, type PhoneFinding, prng } from './sync-harness.js';
 
-const SCHEDULES = Number(process.env.SYNC_SCHEDULES ?? 200);
+/** How many random schedules to run: a positive whole number; 0 or anything else is an error, not a pass. */
+function schedulesFrom(value: string | undefined): number {
+  if (value === undefined) return 200;
+  const n = Number(value);
+  if (!/^\s*\d+\s*$/.test(value) || !Number.isSafeInteger(n) || n < 1) throw new Error(`SYNC_SCHEDULES must be a positive whole number, not "${value}"`);
+  return n;
+}
+
+const SCHEDULES = schedulesFrom(process.env.SYNC_SCHEDULES);
 const DAY_MS = 24 * 60 * 60 * 1000;
 
 let t: TestApp;
@@ -191,6 +199,14 @@ async function phoneViews(phones: Phone[], ids: string[]) {
 async function sameAsServer(phones: Phone[], ids: string[]): Promise<boolean> {
   return JSON.stringify(await phoneViews(phones, ids)) === JSON.stringify(await serverViewFor(phones, ids));
 }
+
+describe('the schedule count', () => {
+  it('is an error when SYNC_SCHEDULES is 0, negative or not a number, never a pass', () => {
+    for (const bad of ['0', '-3', 'abc', '', '2.5', 'NaN']) expect(() => schedulesFrom(bad)).toThrow(/SYNC_SCHEDULES/);
+    expect(schedulesFrom('7')).toBe(7);
+    expect(schedulesFrom(undefined)).toBe(200);
+  });
+});
 
 describe('sync convergence', () => {
   it(`brings ${PHONES} phones and the server to the same findings over ${SCHEDULES} random schedules`, async () => {

@@ -1,7 +1,7 @@
 import { accessTokenNeedsRefresh, sessionFromResponse, type StoredSession } from '../features/auth/session';
 import { readSession, saveSession } from '../features/auth/session.store';
 import { db, type PlummetDb } from '../local-db/db';
-import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
+import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
 import { ApiError, apiFetch, type ApiRequest } from './http';
 
 type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
@@ -34,16 +34,10 @@ async function refresh(database: PlummetDb, session: StoredSession, fetchImpl?: 
  * when there is no session or it can no longer be renewed.
  */
 export async function authorisedFetch<T>(path: string, request: ApiRequest = {}, database: PlummetDb = db, fetchImpl?: FetchLike): Promise<T> {
-  let session = await readSession(database);
+  const session = await readSession(database);
   if (!session) throw new ApiError(401, 'UNAUTHENTICATED', 'Sign in first.');
-  if (accessTokenNeedsRefresh(session.accessToken)) session = await refresh(database, session, fetchImpl);
-  try {
-    return await apiFetch<T>(path, { ...request, accessToken: session.accessToken }, fetchImpl);
-  } catch (error) {
-    if (!(error instanceof ApiError) || error.status !== 401) throw error;
-    const renewed = await refresh(database, session, fetchImpl);
-    return apiFetch<T>(path, { ...request, accessToken: renewed.accessToken }, fetchImpl);
-  }
+  // One refresh-and-retry for the whole app: the same one the sync transport goes through.
+  return apiFetch<T>(path, request, fetchWithAccessToken(database, fetchImpl));
 }
 
 /**

@@ -1,4 +1,4 @@
-import { isGatewayFailure, reportServerReachable } from '../app/connectivity';
+import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
 
 /**
  * The one way the app calls the Plummet API. The server answers every error as
@@ -44,9 +44,9 @@ type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
 
 /** Calls `/api${path}` and returns the parsed JSON body (undefined for 204). */
 export async function apiFetch<T>(path: string, request: ApiRequest = {}, fetchImpl: FetchLike = fetch): Promise<T> {
-  let response: Response;
-  try {
-    response = await fetchImpl(`/api${path}`, {
+  return apiSend<T>(
+    path,
+    {
       method: request.method ?? (request.body === undefined ? 'GET' : 'POST'),
       headers: {
         Accept: 'application/json',
@@ -54,9 +54,21 @@ export async function apiFetch<T>(path: string, request: ApiRequest = {}, fetchI
         ...(request.accessToken ? { Authorization: `Bearer ${request.accessToken}` } : {}),
       },
       body: request.body === undefined ? undefined : JSON.stringify(request.body),
-      credentials: 'same-origin',
       signal: request.signal,
-    });
+    },
+    fetchImpl,
+  );
+}
+
+/**
+ * The one request-and-answer path of the app: sends `init` as it is (a form upload, a prepared
+ * JSON body) to `/api${path}` and turns the answer, or its absence, into a body or an ApiError.
+ * With fetchWithAccessToken (src/api/authorised-fetch.ts) as `fetchImpl`, it renews the session once on a 401.
+ */
+export async function apiSend<T>(path: string, init: RequestInit, fetchImpl: FetchLike = fetch): Promise<T> {
+  let response: Response;
+  try {
+    response = await fetchImpl(`/api${path}`, { credentials: 'same-origin', ...init });
   } catch (error) {
     if (error instanceof DOMException && error.name === 'AbortError') throw error;
     reportServerReachable(false);

@@ -30,7 +30,7 @@ export const ManagerFindingPage = page(() => import('../features/manager/pages/M
 export const TrendsPage = page(() => import('../features/manager/pages/TrendsPage'), 'TrendsPage');
 export const ReportsPage = page(() => import('../features/manager/pages/ReportsPage'), 'ReportsPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
-export const SyncRunner = page(() => import('../sync/SyncRunner'), 'SyncRunner');
+export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
 
 /** A route's element: the lazy page, rendering nothing until its chunk has loaded (Ionic waits for the IonPage). */
 export function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {

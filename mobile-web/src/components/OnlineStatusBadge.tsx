@@ -1,6 +1,6 @@
 import { IonIcon } from '@ionic/react';
 import { cloudDoneOutline, cloudOfflineOutline } from 'ionicons/icons';
-import { useOnlineStatus } from '../app/use-online-status';
+import { useOnlineStatus } from '../lib/use-online-status';
 import './OnlineStatusBadge.css';
 
 /** "Online" / "Offline" with an icon and a word, never colour alone. */

@@ -56,6 +56,7 @@ describe('PlummetDb', () => {
       'inspections',
       'meta',
       'outbox',
+      'photoMeta',
       'photos',
       'scaffolds',
       'sites',

@@ -4,6 +4,7 @@ import type {
   ControlCheckRecord,
   FindingRecord,
   FixRecord,
+  PhotoMetaRecord,
   InspectionRecord,
   MetaEntry,
   OutboxEntry,
@@ -31,10 +32,11 @@ export class PlummetDb extends Dexie {
   controlChecks!: EntityTable<ControlCheckRecord, 'id'>;
   photos!: EntityTable<PhotoRecord, 'id'>;
   catalogue!: EntityTable<CatalogueItemRecord, 'id'>;
-  outbox!: EntityTable<OutboxEntry, 'id'>;
-  meta!: EntityTable<MetaEntry, 'key'>;
   fixes!: EntityTable<FixRecord, 'id'>;
   verifications!: EntityTable<VerificationRecord, 'id'>;
+  photoMeta!: EntityTable<PhotoMetaRecord, 'id'>;
+  outbox!: EntityTable<OutboxEntry, 'id'>;
+  meta!: EntityTable<MetaEntry, 'key'>;
 
   constructor(name: string = DB_NAME) {
     super(name);
@@ -52,13 +54,14 @@ export class PlummetDb extends Dexie {
       meta: 'key',
     });
 
-    // Version 2: the fix loop. Fixes and verifications of findings (who fixed decides who may
-    // verify), and an index to find a foreman's assigned findings. Nothing to convert: the new
-    // tables start empty and the feed fills them.
+    // Version 2: the fix loop and the change feed. Fixes and verifications of findings (who fixed
+    // decides who may verify), the server's photo metadata, and an index to find a foreman's
+    // assigned findings. New tables only: nothing to convert; the feed fills them.
     this.version(2)
       .stores({
         fixes: 'id, findingId, fixedAt',
         verifications: 'id, findingId, verifiedAt',
+        photoMeta: 'id, [ownerType+ownerId]',
         findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state], assigneeId',
       })
       .upgrade(() => undefined);
@@ -78,10 +81,11 @@ export function userDataTables(database: PlummetDb) {
     database.controlChecks,
     database.photos,
     database.catalogue,
-    database.outbox,
-    database.meta,
     database.fixes,
     database.verifications,
+    database.photoMeta,
+    database.outbox,
+    database.meta,
   ];
 }
 

@@ -11,8 +11,9 @@ import type {
   FindingCreate,
   FindingHandBackInput,
   FindingStateChangeInput,
-  Fix,
   FindingUpdate,
+  Fix,
+  Photo,
   Inspection,
   InspectionCreate,
   InspectionFinish,
@@ -81,6 +82,12 @@ export interface PhotoRecord {
   /** Set once the upload has reached the server. */
   uploadedAt?: IsoDateTime;
 }
+
+/**
+ * A photo's metadata as the server has it (any phone's upload); the bytes come from its url on
+ * demand. The phone's own photos, with their bytes, are in `photos`.
+ */
+export type PhotoMetaRecord = Photo;
 
 export interface CatalogueItemRecord extends CatalogueItem {
   /** Lower-case words of the name, for prefix search (a multi-entry index). */

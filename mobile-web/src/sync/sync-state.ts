@@ -16,6 +16,8 @@ export const SYNC_META = {
   rejected: 'sync.rejected',
   conflicts: 'sync.conflicts',
   lastSyncAt: 'sync.lastSyncAt',
+  /** The signed-in user's profile and settings as the change feed last carried them. */
+  profile: 'sync.profile',
   /** Photo id → earliest time of the next upload attempt (backoff). */
   photoRetryAt: 'sync.photoRetryAt',
 } as const;

@@ -3,6 +3,7 @@
  * access token; tests pass a flaky one), so the engine runs in Node over fake-indexeddb too.
  */
 import { SyncPullResponseSchema, SyncPushResponseSchema, type SyncPullResponse, type SyncPush, type SyncPushResponse } from '@plummet/shared';
+import { ApiError, apiSend } from '../api/http';
 import type { OutboxEntry, PhotoRecord } from '../local-db/records';
 
 export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
@@ -33,25 +34,14 @@ export interface SyncTransport {
   uploadPhoto(photo: PhotoRecord, takenAt?: string): Promise<void>;
 }
 
+/** Through the app's one HTTP client (src/api/http.ts); its ApiError becomes the engine's SyncHttpError. */
 async function call(fetchImpl: FetchLike, path: string, init: RequestInit): Promise<unknown> {
-  let response: Response;
   try {
-    response = await fetchImpl(`/api${path}`, init);
+    return await apiSend<unknown>(path, init, fetchImpl);
   } catch (error) {
-    throw new SyncHttpError(0, 'CLIENT_OFFLINE', error instanceof Error ? error.message : 'No connection');
+    if (!(error instanceof ApiError)) throw new SyncHttpError(0, 'CLIENT_OFFLINE', error instanceof Error ? error.message : 'No connection');
+    throw new SyncHttpError(error.status, error.code, error.message, error.issues as SyncHttpError['issues']);
   }
-  const text = await response.text().catch(() => '');
-  let body: unknown;
-  try {
-    body = text ? JSON.parse(text) : undefined;
-  } catch {
-    body = undefined;
-  }
-  if (!response.ok) {
-    const e = (body ?? {}) as { code?: string; message?: string; issues?: SyncHttpError['issues'] };
-    throw new SyncHttpError(response.status, e.code ?? 'CLIENT_UNEXPECTED_RESPONSE', e.message ?? `HTTP ${response.status}`, e.issues);
-  }
-  return body;
 }
 
 const json = (method: string, body?: unknown): RequestInit => ({

@@ -53,6 +53,15 @@ export class ScaffoldsController {
     return this.scaffolds.update(user, id, body);
   }
 
+  /** Archive a scaffold (struck, or no longer on the site): it leaves the phones at their next pull. */
+  @Post(':id/archive')
+  @Roles('manager', 'admin')
+  @HttpCode(200)
+  @ApiOkResponse({ type: ScaffoldDto })
+  archive(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string) {
+    return this.scaffolds.archive(user, id);
+  }
+
   @Post(':id/status')
   @Roles('inspector', 'manager', 'admin')
   @HttpCode(200)

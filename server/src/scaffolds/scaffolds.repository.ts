@@ -69,7 +69,7 @@ export class ScaffoldsRepository {
 
   async update(
     id: string,
-    changes: Omit<ScaffoldUpdate, 'version'> & { status?: ScaffoldStatus; lastInspectedAt?: Date; nextDueAt?: Date },
+    changes: Omit<ScaffoldUpdate, 'version'> & { status?: ScaffoldStatus; lastInspectedAt?: Date; nextDueAt?: Date; archivedAt?: Date },
     executor: DbExecutor = this.db,
   ): Promise<ScaffoldRow> {
     const [row] = await executor

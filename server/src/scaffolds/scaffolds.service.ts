@@ -82,6 +82,22 @@ export class ScaffoldsService {
     });
   }
 
+  /**
+   * A manager archives a scaffold that is struck or no longer on the site. Its row stays (reports and
+   * findings keep pointing at it); the database writes a tombstone in the same transaction, so it
+   * leaves every phone at the next pull. Archiving twice changes nothing.
+   */
+  async archive(user: AuthUser, id: string): Promise<Scaffold> {
+    return this.db.transaction(async (tx) => {
+      const current = await this.scaffolds.find(user.organisationId, id, tx, true);
+      if (!current) throw AppError.notFound('Scaffold');
+      if (current.archivedAt) return toScaffold(current);
+      const scaffold = toScaffold(await this.scaffolds.update(id, { archivedAt: new Date() }, tx));
+      await this.audit.record(tx, user, { entityType: 'scaffold', entityId: id, action: 'archive', before: toScaffold(current), after: scaffold });
+      return scaffold;
+    });
+  }
+
   /** The foreman responsible must hold the foreman role in the organisation (400 naming foremanId). */
   private async checkForeman(user: AuthUser, foremanId: string | null | undefined, tx: DbExecutor): Promise<void> {
     if (!foremanId) return;

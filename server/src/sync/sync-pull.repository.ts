@@ -3,12 +3,8 @@ import { and, type AnyColumn, asc, eq, inArray, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
 import { FINDING_API_COLUMNS, type FindingApiRow } from '../findings/finding.mapper.js';
-import type { SyncConflictRow } from './sync.repository.js';
-
-/** A change of the feed with its row, read in one query per table. */
-export type FeedChange =
-  | { type: 'finding'; xid: string; seq: number; finding: FindingApiRow; siteId: string }
-  | { type: 'conflict'; xid: string; seq: number; conflict: SyncConflictRow };
+import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
+import { toSyncConflict, toSyncFinding } from './sync.mapper.js';
 
 const findingApiColumns = FINDING_API_COLUMNS.map((key) => [key, findings[key]] as const);
 const findingSelectList = sql.raw(findingApiColumns.map(([, column]) => `findings.${column.name}`).join(', '));
@@ -54,37 +50,46 @@ export function feedOrder(a: { xid: string; seq: number }, b: { xid: string; seq
 export class SyncPullRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
-  /** Up to `limit` changes after `after`, oldest first, each with its row (call inside a REPEATABLE READ transaction). */
-  async changes(organisationId: string, after: { xid: string; seq: number }, limit: number, foremanId: string | undefined, tx: DbExecutor): Promise<FeedChange[]> {
+  /**
+   * Up to `limit` changes after `after`, oldest first, each with its record (call inside a
+   * REPEATABLE READ transaction). Each table gives its first `limit` rows of the window; merged in
+   * (xid, seq) order, the first `limit` of the union is a prefix of the whole feed.
+   */
+  async changes(scope: FeedScope, after: { xid: string; seq: number }, limit: number, tx: DbExecutor, now = Date.now()): Promise<StampedChange[]> {
     const horizon = sql`pg_snapshot_xmin(pg_current_snapshot())`;
     const window = (xid: AnyColumn, seq: AnyColumn) =>
       sql`(${xid}, ${seq}) > (${after.xid}::xid8, ${after.seq}::bigint) and ${xid} < ${horizon}`;
+    const { organisationId, foremanId } = scope;
     // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
     // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
-    const scope = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
-    const result = await tx.execute<Record<string, unknown>>(sql`
+    const scoped = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
+    const findingRows = await tx.execute<Record<string, unknown>>(sql`
       select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
       from findings join scaffolds s on s.id = findings.scaffold_id
-      where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} ${scope}
+      where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped}
       order by findings.sync_xid, findings.sync_seq
       limit ${limit}`);
-    const out: FeedChange[] = result.rows.map((r) => ({
-      type: 'finding',
+    // A foreman sees no conflicts: settling them is for inspectors and managers.
+    const conflictRows = foremanId
+      ? []
+      : await tx
+          .select()
+          .from(syncConflicts)
+          .where(and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq)))
+          .orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq))
+          .limit(limit);
+    // One connection runs one statement at a time (pg refuses overlapping queries): one after another.
+    const found = await findingRows;
+    const conflicts = await conflictRows;
+    const others: StampedChange[][] = [];
+    for (const reader of readOtherTables(tx, scope, window, limit)) others.push(await reader());
+    const out: StampedChange[] = found.rows.map((r) => ({
       xid: r.feed_xid as string,
       seq: Number(r.feed_seq),
-      finding: decodeFinding(r),
-      siteId: r.feed_site_id as string,
+      change: { type: 'finding', record: toSyncFinding(decodeFinding(r), r.feed_site_id as string, now) },
     }));
-    // A foreman sees no conflicts: settling them is for inspectors and managers.
-    if (foremanId) return out;
-    const conflicts = await tx
-      .select()
-      .from(syncConflicts)
-      .where(and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq)))
-      .orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq))
-      .limit(limit);
-    if (!conflicts.length) return out;
-    out.push(...conflicts.map((c): FeedChange => ({ type: 'conflict', xid: c.syncXid, seq: c.syncSeq, conflict: c })));
+    for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c) } });
+    for (const part of others) out.push(...part);
     return out.sort(feedOrder).slice(0, limit);
   }
 

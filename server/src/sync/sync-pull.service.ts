@@ -1,13 +1,13 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { SYNC_CURSOR_START, type SyncChange, type SyncPullQuery, type SyncPullResponse } from '@plummet/shared';
+import { SYNC_CURSOR_START, type SyncPullQuery, type SyncPullResponse } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
-import { toSyncConflict, toSyncFinding } from './sync.mapper.js';
 
 /**
  * GET /api/sync/pull: the caller's changes after a cursor, oldest first, a page at a time. Scoped
- * to the organisation; a foreman gets findings on their scaffolds or assigned to them.
+ * to the organisation; a foreman gets only their scope (see sync-feed-tables.ts). Every record type
+ * a phone holds travels here, and tombstones name the records to drop.
  */
 @Injectable()
 export class SyncPullService {
@@ -22,12 +22,10 @@ export class SyncPullService {
     // One REPEATABLE READ snapshot: one horizon for every table of the feed (see SyncPullRepository).
     return this.db.transaction(
       async (tx) => {
-        const feed = await this.pull.changes(user.organisationId, { xid, seq: Number(seq) }, query.limit + 1, foremanId, tx);
+        const scope = { organisationId: user.organisationId, userId: user.userId, foremanId };
+        const feed = await this.pull.changes(scope, { xid, seq: Number(seq) }, query.limit + 1, tx);
         const page = feed.slice(0, query.limit);
-        const now = Date.now();
-        const changes: SyncChange[] = page.map((c): SyncChange =>
-          c.type === 'finding' ? { type: 'finding', record: toSyncFinding(c.finding, c.siteId, now) } : { type: 'conflict', record: toSyncConflict(c.conflict) },
-        );
+        const changes = page.map((c) => c.change);
         const last = page.at(-1);
         return { changes, cursor: last ? `${last.xid}.${last.seq}` : `${xid}.${seq}`, hasMore: feed.length > query.limit };
       },

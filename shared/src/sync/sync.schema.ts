@@ -92,9 +92,9 @@ export const SyncConflictSchema = z.object({
   /** The value it replaced without its writer having seen it. */
   replacedValue: z.unknown(),
   winnerUserId: IdSchema.nullable(),
-  /** Who wrote the replaced value and when (null for values written before the server kept them). */
-  replacedUserId: IdSchema.nullable().optional(),
-  replacedAt: DateTimeSchema.nullable().optional(),
+  /** Who wrote the replaced value and when (null when the server cannot tell, e.g. an older conflict). */
+  replacedUserId: IdSchema.nullable().default(null),
+  replacedAt: DateTimeSchema.nullable().default(null),
   status: SyncConflictStatusSchema,
   resolution: SyncConflictKeepSchema.nullable(),
   resolvedBy: IdSchema.nullable(),

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import { isOnline } from '../../app/connectivity';
+import { isOnline } from '../../lib/connectivity';
 import { db } from '../../local-db/db';
 import { stopAppSync } from '../../sync/app-sync';
 import { signIn, signOutOnServer, type SignInCredentials } from './auth.api';

@@ -2,7 +2,7 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { db } from '../../local-db/db';
 import { sessionStatus, type SessionStatus, type StoredSession } from './session';
 import { readSession } from './session.store';
-import type { Units } from '../settings/units';
+import type { Units } from '../../lib/units';
 
 export interface SessionState {
   status: 'loading' | SessionStatus;

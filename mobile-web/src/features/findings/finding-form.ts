@@ -13,7 +13,7 @@ import {
   type ShapeKind,
   type ShapeSpec,
 } from '@plummet/shared';
-import { parseQuantity, formatForInput, type Units } from '../settings/units';
+import { parseQuantity, formatForInput, type Units } from '../../lib/units';
 
 export type HeightMode = 'lift' | 'measured';
 export type ItemMode = 'catalogue' | 'custom';

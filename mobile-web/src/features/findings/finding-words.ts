@@ -1,5 +1,5 @@
 import { SHAPE_DIMENSIONS, type FindingExposure, type Orientation, type ShapeSpec } from '@plummet/shared';
-import { formatNumber, toDisplay, unitLabel, type Units } from '../settings/units';
+import { formatNumber, toDisplay, unitLabel, type Units } from '../../lib/units';
 import type { ShapeChoice } from './finding-form';
 
 export const EXPOSURE_WORDS: Record<FindingExposure, { label: string; hint: string }> = {

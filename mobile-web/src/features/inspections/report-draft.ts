@@ -5,7 +5,7 @@
  */
 import type { InspectionFinish, UserProfile } from '@plummet/shared';
 import type { ControlCheckRecord, FindingRecord, ScaffoldRecord, SiteRecord } from '../../local-db/records';
-import { formatQuantity, type Units } from '../settings/units';
+import { formatQuantity, type Units } from '../../lib/units';
 import { CONTROL_WORDS } from './inspection-words';
 
 export type ReportFields = Omit<InspectionFinish, 'signature' | 'finishedAt'>;

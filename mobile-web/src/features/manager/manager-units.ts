@@ -1,5 +1,5 @@
 import { joulesToFootPounds, metresToFeet } from '@plummet/shared';
-import type { Units } from '../settings/units';
+import type { Units } from '../../lib/units';
 
 /** Figures arrive in SI; they are converted for the screen here only. */
 export const formatHeight = (m: number, units: Units) => (units === 'imperial' ? `${metresToFeet(m).toFixed(1)} ft` : `${m.toFixed(1)} m`);

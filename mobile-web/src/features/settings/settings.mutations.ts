@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { db } from '../../local-db/db';
 import { changeUnits } from '../auth/session.store';
-import type { Units } from './units';
+import type { Units } from '../../lib/units';
 
 export function useChangeUnitsMutation() {
   return useMutation({

@@ -4,7 +4,7 @@
  */
 import type { FindingExposure } from '@plummet/shared';
 import { EXPOSURE_WORDS } from '../findings/finding-words';
-import { formatQuantity, parseQuantity, type Units } from '../settings/units';
+import { formatQuantity, parseQuantity, type Units } from '../../lib/units';
 
 export const FIELD_WORDS: Record<string, string> = {
   notes: 'Notes',

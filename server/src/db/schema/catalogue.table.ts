@@ -1,5 +1,5 @@
 import { index, jsonb, pgTable, real, text, uuid } from 'drizzle-orm/pg-core';
-import { createdAt, updatedAt, version } from './columns.js';
+import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 
 /** Items with a typical mass and shape. organisationId null = built in, shared by everyone. */
@@ -17,6 +17,7 @@ export const catalogueItems = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    ...syncStampColumns(),
   },
-  (t) => [index('catalogue_items_org_idx').on(t.organisationId)],
+  (t) => [index('catalogue_items_org_idx').on(t.organisationId), index('catalogue_items_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq)],
 );

@@ -76,39 +76,53 @@ export const findings = pgTable(
   ],
 );
 
-export const fixes = pgTable('fixes', {
-  id: uuid('id').primaryKey(),
-  organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
-  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
-  fixedBy: uuid('fixed_by').notNull().references(() => users.id),
-  fixedAt: timestamp('fixed_at', { withTimezone: true }).notNull(),
-  note: text('note').notNull().default(''),
-  /** FINDING_CONTROLS; an alteration control marks the scaffold altered. */
-  control: text('control'),
-  /** Proof photos (photos owned by this fix; they may upload later). */
-  photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
-  createdAt: createdAt(),
-}, (t) => [
-  // First fix per finding for the median time to fix.
-  index('fixes_org_finding_idx').on(t.organisationId, t.findingId, t.fixedAt),
-]);
+export const fixes = pgTable(
+  'fixes',
+  {
+    id: uuid('id').primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+    fixedBy: uuid('fixed_by').notNull().references(() => users.id),
+    fixedAt: timestamp('fixed_at', { withTimezone: true }).notNull(),
+    note: text('note').notNull().default(''),
+    /** FINDING_CONTROLS; an alteration control marks the scaffold altered. */
+    control: text('control'),
+    /** Proof photos (photos owned by this fix; they may upload later). */
+    photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
+    createdAt: createdAt(),
+    ...syncStampColumns(),
+  },
+  (t) => [
+    index('fixes_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+    index('fixes_finding_idx').on(t.findingId),
+    // First fix per finding for the median time to fix.
+    index('fixes_org_finding_idx').on(t.organisationId, t.findingId, t.fixedAt),
+  ],
+);
 
 export const verificationOutcomeEnum = pgEnum('verification_outcome', ['verified', 'reopened']);
 
-export const verifications = pgTable('verifications', {
-  id: uuid('id').primaryKey(),
-  organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
-  findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
-  verifiedBy: uuid('verified_by').notNull().references(() => users.id),
-  verifiedAt: timestamp('verified_at', { withTimezone: true }).notNull(),
-  outcome: verificationOutcomeEnum('outcome').notNull(),
-  note: text('note').notNull().default(''),
-  photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
-  createdAt: createdAt(),
-}, (t) => [
-  // Findings closed per week in the trends.
-  index('verifications_org_verified_idx').on(t.organisationId, t.verifiedAt),
-]);
+export const verifications = pgTable(
+  'verifications',
+  {
+    id: uuid('id').primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    findingId: uuid('finding_id').notNull().references(() => findings.id, { onDelete: 'cascade' }),
+    verifiedBy: uuid('verified_by').notNull().references(() => users.id),
+    verifiedAt: timestamp('verified_at', { withTimezone: true }).notNull(),
+    outcome: verificationOutcomeEnum('outcome').notNull(),
+    note: text('note').notNull().default(''),
+    photoIds: uuid('photo_ids').array().notNull().default(sql`'{}'::uuid[]`),
+    createdAt: createdAt(),
+    ...syncStampColumns(),
+  },
+  (t) => [
+    index('verifications_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+    index('verifications_finding_idx').on(t.findingId),
+    // Findings closed per week in the trends.
+    index('verifications_org_verified_idx').on(t.organisationId, t.verifiedAt),
+  ],
+);
 
 /** Who changed what and when, with the record before and after; written in the same transaction. */
 export const auditEvents = pgTable(

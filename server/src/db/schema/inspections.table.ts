@@ -1,5 +1,5 @@
 import { index, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
-import { createdAt, updatedAt, version } from './columns.js';
+import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { scaffolds } from './sites.table.js';
 import { users } from './users.table.js';
@@ -33,8 +33,12 @@ export const inspections = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    ...syncStampColumns(),
   },
-  (t) => [index('inspections_org_scaffold_idx').on(t.organisationId, t.scaffoldId)],
+  (t) => [
+    index('inspections_org_scaffold_idx').on(t.organisationId, t.scaffoldId),
+    index('inspections_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+  ],
 );
 
 export const controlEnum = pgEnum('control', [
@@ -60,6 +64,10 @@ export const controlChecks = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    ...syncStampColumns(),
   },
-  (t) => [unique('control_checks_inspection_control_uq').on(t.inspectionId, t.control)],
+  (t) => [
+    unique('control_checks_inspection_control_uq').on(t.inspectionId, t.control),
+    index('control_checks_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+  ],
 );

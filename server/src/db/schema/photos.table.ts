@@ -1,5 +1,5 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { createdAt } from './columns.js';
+import { createdAt, syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { users } from './users.table.js';
 
@@ -26,6 +26,11 @@ export const photos = pgTable(
     takenAt: timestamp('taken_at', { withTimezone: true }),
     uploadedBy: uuid('uploaded_by').notNull().references(() => users.id),
     createdAt: createdAt(),
+    ...syncStampColumns(),
   },
-  (t) => [index('photos_owner_idx').on(t.ownerType, t.ownerId), index('photos_hash_idx').on(t.contentHash)],
+  (t) => [
+    index('photos_owner_idx').on(t.ownerType, t.ownerId),
+    index('photos_hash_idx').on(t.contentHash),
+    index('photos_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+  ],
 );

@@ -1,5 +1,5 @@
 import { index, integer, pgEnum, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { createdAt, updatedAt, version } from './columns.js';
+import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { users } from './users.table.js';
 
@@ -23,8 +23,9 @@ export const sites = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    ...syncStampColumns(),
   },
-  (t) => [index('sites_org_idx').on(t.organisationId)],
+  (t) => [index('sites_org_idx').on(t.organisationId), index('sites_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq)],
 );
 
 export const scaffoldStatusEnum = pgEnum('scaffold_status', ['cleared', 'limited', 'closed']);
@@ -47,11 +48,18 @@ export const scaffolds = pgTable(
     nextDueAt: timestamp('next_due_at', { withTimezone: true }),
     /** Last changed by a fix that alters the scaffold (toe boards, guards, netting, fans): inspect before use. */
     alteredAt: timestamp('altered_at', { withTimezone: true }),
+    /** Set when a manager archives the scaffold (struck, no longer on site): it leaves the phones. */
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    ...syncStampColumns(),
   },
-  (t) => [index('scaffolds_org_site_idx').on(t.organisationId, t.siteId), index('scaffolds_foreman_idx').on(t.foremanId)],
+  (t) => [
+    index('scaffolds_org_site_idx').on(t.organisationId, t.siteId),
+    index('scaffolds_foreman_idx').on(t.foremanId),
+    index('scaffolds_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
+  ],
 );
 
 /** Managers responsible for a site; a site with none of its own reports to every manager of the organisation. */

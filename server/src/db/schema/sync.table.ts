@@ -3,32 +3,15 @@
  * mutation it sent, and the conflicts kept when a later write replaced a value its writer had not seen.
  */
 import { sql } from 'drizzle-orm';
-import { bigint, customType, index, integer, jsonb, pgEnum, pgSequence, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigint, bigserial, index, integer, jsonb, pgEnum, pgSequence, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { users } from './users.table.js';
 
 /** One sequence for every synced table: a row's stamp orders it within its transaction's changes. */
 export const syncChangeSeq = pgSequence('sync_change_seq');
 
-/** PostgreSQL's 64-bit transaction id (never wraps), read and written as a decimal string. */
-const xid8 = customType<{ data: string; driverData: string }>({ dataType: () => 'xid8' });
-
-/**
- * The change-feed stamp of a synced row: the writing transaction's id and a sequence value, set on
- * insert by the column defaults and on every Drizzle update by `$onUpdate`, so every writer (REST or
- * sync) stamps without knowing about sync. GET /api/sync/pull orders by (xid, seq); see
- * server/src/sync/sync-pull.repository.ts for why that never skips a row that commits late.
- */
-export const syncStampColumns = () => ({
-  syncXid: xid8('sync_xid')
-    .notNull()
-    .default(sql`pg_current_xact_id()`)
-    .$onUpdate(() => sql`pg_current_xact_id()`),
-  syncSeq: bigint('sync_seq', { mode: 'number' })
-    .notNull()
-    .default(sql`nextval('sync_change_seq')`)
-    .$onUpdate(() => sql`nextval('sync_change_seq')`),
-});
+export { syncStampColumns } from './columns.js';
 
 /**
  * Per-field write history of a synced record: `{ [field]: { v: record version after the write,
@@ -100,4 +83,27 @@ export const syncConflicts = pgTable(
     index('sync_conflicts_org_status_idx').on(t.organisationId, t.status),
     index('sync_conflicts_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
   ],
+);
+
+export const syncTombstoneReasonEnum = pgEnum('sync_tombstone_reason', ['deleted', 'archived', 'out-of-scope']);
+
+/**
+ * A record the phones must drop, stamped like every synced row so it travels in the same feed.
+ * Written in the transaction that archives, deletes or moves the record out of someone's scope
+ * (triggers in the custom migration `sync_tombstones_triggers`). `userId` set: only that user's
+ * phones drop it (a foreman reassigned away); null: every phone of the organisation.
+ */
+export const syncTombstones = pgTable(
+  'sync_tombstones',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    organisationId: uuid('organisation_id').notNull().references(() => organisations.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id').references(() => users.id, { onDelete: 'cascade' }),
+    recordType: text('record_type').notNull(),
+    recordId: text('record_id').notNull(),
+    reason: syncTombstoneReasonEnum('reason').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    ...syncStampColumns(),
+  },
+  (t) => [index('sync_tombstones_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq)],
 );

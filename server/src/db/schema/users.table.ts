@@ -1,4 +1,5 @@
 import { boolean, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 
 export const unitsEnum = pgEnum('units', ['si', 'imperial']);
@@ -21,6 +22,8 @@ export const users = pgTable('users', {
    */
   sessionVersion: integer('session_version').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  /** The change feed carries a user's own profile and settings to their phones (read by id). */
+  ...syncStampColumns(),
 });
 
 /** A user's role in one organisation. */

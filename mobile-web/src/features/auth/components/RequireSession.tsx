@@ -1,7 +1,7 @@
 import { IonButton } from '@ionic/react';
 import { Spinner } from '../../../components/Spinner';
 import type { ReactNode } from 'react';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import type { StoredSession } from '../session';
 import { useSession } from '../session.queries';
 

@@ -1,6 +1,6 @@
 import { IonButton, IonIcon } from '@ionic/react';
 import { keyOutline } from 'ionicons/icons';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import type { StoredSession } from '../session';
 
 const SOON_MS = 3 * 86_400_000;

@@ -1,5 +1,5 @@
 import { RiskBadge } from '../../../components/RiskBadge';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import { describeChange, type Scenario } from '../what-if';
 import './WhatIfTable.css';
 

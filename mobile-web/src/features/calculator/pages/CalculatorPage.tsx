@@ -12,7 +12,7 @@ import { ExposureChoice } from '../../findings/components/ExposureChoice';
 import { HowComputedSheet } from '../../findings/components/HowComputedSheet';
 import { ItemPicker } from '../../findings/components/ItemPicker';
 import { readFindingForm, windAnswerFor, type FindingForm } from '../../findings/finding-form';
-import { formatQuantity, parseQuantity, unitLabel } from '../../settings/units';
+import { formatQuantity, parseQuantity, unitLabel } from '../../../lib/units';
 import { WhatIfTable } from '../components/WhatIfTable';
 import { builtinCatalogue, newCalculatorForm } from '../calculator-form';
 import { whatIfs } from '../what-if';

@@ -3,7 +3,7 @@ import type { FindingEstimateResult } from '@plummet/shared';
 import { calculatorOutline } from 'ionicons/icons';
 import { CautionNote } from '../../../components/CautionNote';
 import { RiskBadge } from '../../../components/RiskBadge';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import './EstimatePanel.css';
 
 interface EstimatePanelProps {

@@ -11,7 +11,7 @@ import { Switch } from '../../../components/Switch';
 import type { CatalogueItemRecord, FindingRecord, PhotoRecord, ScaffoldRecord } from '../../../local-db/records';
 import { PhotoPicker } from '../../photos/components/PhotoPicker';
 import type { PendingPhoto } from '../../photos/photos.store';
-import { formatQuantity, unitLabel, type Units } from '../../settings/units';
+import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
 import { heightOfLift, readFindingForm, type FindingForm, type HeightMode } from '../finding-form';
 import { buildFindingRecord, tryEstimate, type FindingOwner } from '../finding-record';
 import { useSaveFindingMutation } from '../findings.mutations';

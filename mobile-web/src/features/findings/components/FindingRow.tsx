@@ -3,7 +3,7 @@ import { alertCircleOutline, chevronForward, shieldCheckmarkOutline } from 'ioni
 import { Link } from 'react-router-dom';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord } from '../../../local-db/records';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import './FindingRow.css';
 
 const STATE_WORDS: Record<FindingRecord['state'], string> = {

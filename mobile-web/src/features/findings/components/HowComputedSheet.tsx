@@ -2,7 +2,7 @@ import { explainDrop, LIKELIHOOD_RULES, RISK_BANDS, type FindingEstimateInput, t
 import { useMemo } from 'react';
 import { CautionNote } from '../../../components/CautionNote';
 import { Sheet } from '../../../components/Sheet';
-import { formatNumber } from '../../settings/units';
+import { formatNumber } from '../../../lib/units';
 import { dropInputOf } from '../finding-record';
 import './HowComputedSheet.css';
 

@@ -5,7 +5,7 @@ import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { NumberField } from '../../../components/NumberField';
 import type { CatalogueItemRecord } from '../../../local-db/records';
 import { searchCatalogue } from '../../catalogue/catalogue-search';
-import { formatQuantity, unitLabel, type Units } from '../../settings/units';
+import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
 import type { FindingForm, FormReading, ItemMode, ShapeChoice } from '../finding-form';
 import { describeShape, DIMENSION_WORDS, ORIENTATION_WORDS, SHAPE_WORDS } from '../finding-words';
 import './ItemPicker.css';

@@ -1,11 +1,11 @@
 import { IonIcon } from '@ionic/react';
 import { callOutline } from 'ionicons/icons';
 import type { Foreman } from '@plummet/shared';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { CautionNote } from '../../../components/CautionNote';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord, SiteRecord, ScaffoldRecord } from '../../../local-db/records';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import type { FixListEntry } from '../fix-loop-rules';
 import { DueText } from './DueText';
 import { whereWords } from './FixListRow';

@@ -6,7 +6,7 @@ import { NumberField } from '../../../components/NumberField';
 import { SelectField } from '../../../components/SelectField';
 import { PhotoPicker } from '../../photos/components/PhotoPicker';
 import type { PendingPhoto } from '../../photos/photos.store';
-import { parseQuantity, unitLabel, type Units } from '../../settings/units';
+import { parseQuantity, unitLabel, type Units } from '../../../lib/units';
 import { ALTERATION_WORDS, CONTROL_WORDS, HAND_BACK_WORDS } from '../fix-loop-words';
 
 export type FixActionKind = 'made-safe' | 'fixed' | 'hand-back' | 'verify' | 'reopen';

@@ -3,7 +3,7 @@ import { chevronForward } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { SiteRecord } from '../../../local-db/records';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import type { FixListEntry } from '../fix-loop-rules';
 import { DueText } from './DueText';
 import { FindingThumb } from './FindingThumb';

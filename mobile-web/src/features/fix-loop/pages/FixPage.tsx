@@ -2,7 +2,7 @@ import { IonContent, IonPage, IonButton } from '@ionic/react';
 import { describeDue, isAlterationControl, nextFindingStates } from '@plummet/shared';
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { FormSection } from '../../../components/FormSection';
 import { Spinner } from '../../../components/Spinner';

@@ -1,13 +1,13 @@
 import { IonContent, IonPage } from '@ionic/react';
 import { Link } from 'react-router-dom';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord, ScaffoldRecord } from '../../../local-db/records';
 import { RequireSession } from '../../auth/components/RequireSession';
 import { useSession, useUnits } from '../../auth/session.queries';
 import { ScaffoldStatusTag } from '../../scaffolds/components/ScaffoldStatusTag';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import { useShiftScaffolds } from '../fix-loop.queries';
 import '../fix-loop.css';
 

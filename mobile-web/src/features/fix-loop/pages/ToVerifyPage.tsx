@@ -1,7 +1,7 @@
 import { IonContent, IonIcon, IonPage } from '@ionic/react';
 import { chevronForward } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { RiskBadge } from '../../../components/RiskBadge';
 import { VirtualList } from '../../../components/VirtualList';

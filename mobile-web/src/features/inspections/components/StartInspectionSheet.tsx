@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { NumberField } from '../../../components/NumberField';
 import { Sheet } from '../../../components/Sheet';
-import { parseQuantity, unitLabel, type Units } from '../../settings/units';
+import { parseQuantity, unitLabel, type Units } from '../../../lib/units';
 import { REASON_WORDS } from '../inspection-words';
 
 interface StartInspectionSheetProps {

@@ -2,7 +2,7 @@ import { IonButton, IonContent, IonFooter, IonPage, useIonRouter } from '@ionic/
 import { CONTROLS } from '@plummet/shared';
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { CautionNote } from '../../../components/CautionNote';
 import { TabBar } from '../../../components/TabBar';
@@ -12,7 +12,7 @@ import { FindingRow } from '../../findings/components/FindingRow';
 import { useFindingsOfInspection, useFindingsOfScaffold } from '../../findings/findings.queries';
 import { ScaffoldElevations } from '../../scaffolds/components/ScaffoldElevations';
 import { useScaffold } from '../../scaffolds/scaffolds.queries';
-import { formatQuantity } from '../../settings/units';
+import { formatQuantity } from '../../../lib/units';
 import { ControlCheckList } from '../components/ControlCheckList';
 import { REASON_WORDS } from '../inspection-words';
 import { useControlChecks, useInspection } from '../inspections.queries';

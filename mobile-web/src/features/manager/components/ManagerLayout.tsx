@@ -2,7 +2,7 @@ import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, IonButtons } from
 import type { ReactNode } from 'react';
 import { NavLink } from 'react-router-dom';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
-import { useOnlineStatus } from '../../../app/use-online-status';
+import { useOnlineStatus } from '../../../lib/use-online-status';
 import './ManagerLayout.css';
 
 const SECTIONS = [

@@ -1,7 +1,7 @@
 import { type ColumnDef, createColumnHelper, columnVisibilityFeature, rowSelectionFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
 import type { FindingListItem, Person, Scaffold } from '@plummet/shared';
 import { formatHeight } from '../manager-units';
-import type { Units } from '../../settings/units';
+import type { Units } from '../../../lib/units';
 
 export const findingsTableFeatures = tableFeatures({ rowSortingFeature, columnVisibilityFeature, rowSelectionFeature });
 const column = createColumnHelper<typeof findingsTableFeatures, FindingListItem>();

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { RiskBadge } from '../../../components/RiskBadge';
-import { formatQuantity, type Units } from '../../settings/units';
+import { formatQuantity, type Units } from '../../../lib/units';
 import {
   BAY_AXIS_HEIGHT,
   CELL_HEIGHT,

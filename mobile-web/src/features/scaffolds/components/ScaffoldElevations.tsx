@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import type { FindingRecord, ScaffoldRecord } from '../../../local-db/records';
 import { FindingRow } from '../../findings/components/FindingRow';
-import type { Units } from '../../settings/units';
+import type { Units } from '../../../lib/units';
 import type { GridSpot } from '../elevation-grid';
 import { ElevationGrid } from './ElevationGrid';
 

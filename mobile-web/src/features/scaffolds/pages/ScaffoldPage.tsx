@@ -1,7 +1,7 @@
 import { IonButton, IonContent, IonFooter, IonPage, useIonRouter } from '@ionic/react';
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { formatDate, formatDateTime, isPast } from '../../../app/format-date';
+import { formatDate, formatDateTime, isPast } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { CautionNote } from '../../../components/CautionNote';
 import { RequireSession } from '../../auth/components/RequireSession';

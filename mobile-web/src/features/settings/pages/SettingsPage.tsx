@@ -14,7 +14,7 @@ import { SessionNote } from '../../auth/components/SessionNote';
 import { STORAGE_REPORT_KEY } from '../../sites/sites.mutations';
 import { useChangeUnitsMutation } from '../settings.mutations';
 import { signOutWarning } from '../sign-out-warning';
-import type { Units } from '../units';
+import type { Units } from '../../../lib/units';
 
 export function SettingsPage() {
   const router = useIonRouter();

@@ -1,7 +1,7 @@
 import { IonButton, IonIcon } from '@ionic/react';
 import type { Site } from '@plummet/shared';
 import { checkmarkCircle, cloudDownloadOutline } from 'ionicons/icons';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { Spinner } from '../../../components/Spinner';
 import type { SiteRecord } from '../../../local-db/records';
 import { describeStorage } from '../../../sync/storage';

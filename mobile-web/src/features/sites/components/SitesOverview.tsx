@@ -1,6 +1,6 @@
 import type { Site } from '@plummet/shared';
 import { useQuery } from '@tanstack/react-query';
-import { useOnlineStatus } from '../../../app/use-online-status';
+import { useOnlineStatus } from '../../../lib/use-online-status';
 import { CautionNote } from '../../../components/CautionNote';
 import type { SiteRecord } from '../../../local-db/records';
 import { SessionNote } from '../../auth/components/SessionNote';

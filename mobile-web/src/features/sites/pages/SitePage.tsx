@@ -1,6 +1,6 @@
 import { IonButton, IonContent, IonFooter, IonPage } from '@ionic/react';
 import { useParams } from 'react-router-dom';
-import { formatDate, isPast } from '../../../app/format-date';
+import { formatDate, isPast } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord, ScaffoldRecord } from '../../../local-db/records';

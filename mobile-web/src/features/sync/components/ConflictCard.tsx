@@ -3,9 +3,9 @@ import type { SyncConflict, SyncConflictResolve } from '@plummet/shared';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { db } from '../../../local-db/db';
-import type { Units } from '../../settings/units';
+import type { Units } from '../../../lib/units';
 import { canTypeValue, fieldWords, parseTypedValue, valueWords } from '../conflict-words';
 import { describeResolveError, useResolveConflictMutation } from '../conflicts.mutations';
 

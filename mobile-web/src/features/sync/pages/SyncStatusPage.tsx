@@ -1,6 +1,6 @@
 import { IonButton, IonContent, IonPage } from '@ionic/react';
 import { useState } from 'react';
-import { formatDateTime } from '../../../app/format-date';
+import { formatDateTime } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { FormSection } from '../../../components/FormSection';
 import { Spinner } from '../../../components/Spinner';

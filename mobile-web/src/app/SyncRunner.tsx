@@ -1,6 +1,6 @@
 import { useEffect } from 'react';
 import { useSession } from '../features/auth/session.queries';
-import { startAppSync, stopAppSync } from './app-sync';
+import { startAppSync, stopAppSync } from '../sync/app-sync';
 
 /**
  * Keeps the sync engine running while a session is active (loaded lazily by App, so the local

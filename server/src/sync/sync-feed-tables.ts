@@ -1,0 +1,216 @@
+/**
+ * The change feed's tables besides findings and conflicts: one reader per record type, each a
+ * keyset scan of its feed index `(organisation_id, sync_xid, sync_seq)` inside the pull's window,
+ * scoped to what the caller's phone holds. A foreman's scope is the scaffolds they look after or
+ * that carry findings assigned to them (and what hangs off those); everyone else sees the
+ * organisation's records. Every reader runs in the pull's one REPEATABLE READ transaction.
+ */
+import type { SyncChange } from '@plummet/shared';
+import { and, asc, eq, isNull, or, sql, type SQL } from 'drizzle-orm';
+import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
+import type { DbExecutor } from '../db/db.tokens.js';
+import {
+  catalogueItems,
+  controlChecks,
+  fixes,
+  inspections,
+  memberships,
+  organisations,
+  photos,
+  scaffolds,
+  sites,
+  syncTombstones,
+  users,
+  verifications,
+} from '../db/schema/index.js';
+import { toCatalogueItem } from '../catalogue/catalogue.mapper.js';
+import { toControlCheck, toInspection } from '../inspections/inspection.mapper.js';
+import { toPhoto } from '../photos/photo.mapper.js';
+import { toScaffold } from '../scaffolds/scaffold.mapper.js';
+import { toSite } from '../sites/site.mapper.js';
+
+/** One change of the feed with its stamp. */
+export interface StampedChange {
+  xid: string;
+  seq: number;
+  change: SyncChange;
+}
+
+export interface FeedScope {
+  organisationId: string;
+  userId: string;
+  /** Set for a foreman: only their scope travels. */
+  foremanId: string | undefined;
+}
+
+type Window = (xid: PgColumn, seq: PgColumn) => SQL;
+
+/** Scaffolds in a foreman's scope (not archived). */
+export function foremanScaffolds(foremanId: string): SQL {
+  return sql`(select s.id from scaffolds s where s.archived_at is null and (s.foreman_id = ${foremanId}
+    or exists (select 1 from findings f where f.scaffold_id = s.id and f.assignee_id = ${foremanId})))`;
+}
+
+/** Findings in a foreman's scope: on scaffolds they look after, or assigned to them. */
+export function foremanFindings(foremanId: string): SQL {
+  return sql`(select f.id from findings f join scaffolds s on s.id = f.scaffold_id
+    where s.archived_at is null and (s.foreman_id = ${foremanId} or f.assignee_id = ${foremanId}))`;
+}
+
+/** A fix's or verification's photo ids: photos owned by the record (the upload names its owner). */
+const photoIdsOf = (ownerType: 'fix' | 'verification', id: PgColumn) =>
+  sql<string[]>`coalesce((select array_agg(p.id order by p.created_at, p.id) from photos p where p.owner_type = ${ownerType} and p.owner_id = ${id}), '{}')`;
+
+/** Reads a column the fix-loop schema may add later (fixes.control); absent: null. */
+function optional<T>(row: object, key: string): T | null {
+  return ((row as Record<string, unknown>)[key] as T | undefined) ?? null;
+}
+
+/** A reader: the query runs when called (one statement at a time on the pull's connection). */
+type Reader = () => Promise<StampedChange[]>;
+
+function read<T extends { syncXid: string; syncSeq: number }>(rows: PromiseLike<T[]>, toChange: (row: T) => SyncChange): Reader {
+  return async () => (await rows).map((row) => ({ xid: row.syncXid, seq: row.syncSeq, change: toChange(row) }));
+}
+
+const order = (table: { syncXid: PgColumn; syncSeq: PgColumn }) => [asc(table.syncXid), asc(table.syncSeq)];
+
+/** Every reader of the feed besides findings and conflicts, each limited to `limit` rows. */
+export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window, limit: number): Reader[] {
+  const { organisationId: org, foremanId } = scope;
+  const inOrg = (table: PgTable & { organisationId: PgColumn; syncXid: PgColumn; syncSeq: PgColumn }, extra?: SQL) =>
+    and(eq(table.organisationId, org), window(table.syncXid, table.syncSeq), extra);
+  const f = foremanId;
+  const scopedScaffolds = f ? foremanScaffolds(f) : undefined;
+  const scopedFindings = f ? foremanFindings(f) : undefined;
+
+  return [
+    read(
+      tx.select().from(sites).where(inOrg(sites, f ? sql`${sites.id} in (select site_id from scaffolds where id in ${scopedScaffolds})` : undefined)).orderBy(...order(sites)).limit(limit),
+      (row) => ({ type: 'site', record: toSite(row) }),
+    ),
+    read(
+      tx
+        .select()
+        .from(scaffolds)
+        .where(inOrg(scaffolds, f ? sql`${scaffolds.id} in ${scopedScaffolds}` : isNull(scaffolds.archivedAt)))
+        .orderBy(...order(scaffolds))
+        .limit(limit),
+      (row) => ({ type: 'scaffold', record: toScaffold(row) }),
+    ),
+    read(
+      tx
+        .select()
+        .from(inspections)
+        .where(inOrg(inspections, f ? sql`${inspections.scaffoldId} in ${scopedScaffolds}` : undefined))
+        .orderBy(...order(inspections))
+        .limit(limit),
+      (row) => ({ type: 'inspection', record: toInspection(row) }),
+    ),
+    read(
+      tx
+        .select()
+        .from(controlChecks)
+        .where(
+          inOrg(controlChecks, f ? sql`${controlChecks.inspectionId} in (select id from inspections where scaffold_id in ${scopedScaffolds})` : undefined),
+        )
+        .orderBy(...order(controlChecks))
+        .limit(limit),
+      (row) => ({ type: 'control-check', record: toControlCheck(row) }),
+    ),
+    read(
+      tx
+        .select({ row: fixes, photoIds: photoIdsOf('fix', fixes.id), syncXid: fixes.syncXid, syncSeq: fixes.syncSeq })
+        .from(fixes)
+        .where(inOrg(fixes, f ? sql`${fixes.findingId} in ${scopedFindings}` : undefined))
+        .orderBy(...order(fixes))
+        .limit(limit),
+      ({ row, photoIds }) => ({
+        type: 'fix',
+        record: {
+          id: row.id,
+          findingId: row.findingId,
+          fixedBy: row.fixedBy,
+          fixedAt: row.fixedAt.toISOString(),
+          note: row.note,
+          control: optional(row, 'control'),
+          photoIds,
+        },
+      }),
+    ),
+    read(
+      tx
+        .select({ row: verifications, photoIds: photoIdsOf('verification', verifications.id), syncXid: verifications.syncXid, syncSeq: verifications.syncSeq })
+        .from(verifications)
+        .where(inOrg(verifications, f ? sql`${verifications.findingId} in ${scopedFindings}` : undefined))
+        .orderBy(...order(verifications))
+        .limit(limit),
+      ({ row, photoIds }) => ({
+        type: 'verification',
+        record: {
+          id: row.id,
+          findingId: row.findingId,
+          verifiedBy: row.verifiedBy,
+          verifiedAt: row.verifiedAt.toISOString(),
+          outcome: row.outcome,
+          note: row.note,
+          photoIds,
+        },
+      }),
+    ),
+    read(
+      tx
+        .select()
+        .from(photos)
+        .where(
+          inOrg(
+            photos,
+            f
+              ? sql`((${photos.ownerType} = 'finding' and ${photos.ownerId} in ${scopedFindings})
+                  or (${photos.ownerType} = 'fix' and ${photos.ownerId} in (select id from fixes where finding_id in ${scopedFindings}))
+                  or (${photos.ownerType} = 'verification' and ${photos.ownerId} in (select id from verifications where finding_id in ${scopedFindings}))
+                  or (${photos.ownerType} = 'control-check' and ${photos.ownerId} in (select c.id from control_checks c join inspections i on i.id = c.inspection_id where i.scaffold_id in ${scopedScaffolds})))`
+              : undefined,
+          ),
+        )
+        .orderBy(...order(photos))
+        .limit(limit),
+      (row) => ({ type: 'photo', record: toPhoto(row) }),
+    ),
+    read(
+      tx.select().from(catalogueItems).where(inOrg(catalogueItems)).orderBy(...order(catalogueItems)).limit(limit),
+      (row) => ({ type: 'catalogue-item', record: toCatalogueItem(row) }),
+    ),
+    read(
+      tx
+        .select({
+          id: users.id,
+          email: users.email,
+          name: users.name,
+          position: users.position,
+          units: users.units,
+          role: memberships.role,
+          organisationName: organisations.name,
+          syncXid: users.syncXid,
+          syncSeq: users.syncSeq,
+        })
+        .from(users)
+        .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, org)))
+        .innerJoin(organisations, eq(organisations.id, org))
+        .where(and(eq(users.id, scope.userId), window(users.syncXid, users.syncSeq))),
+      (row) => ({
+        type: 'user',
+        record: { id: row.id, email: row.email, name: row.name, position: row.position, units: row.units, role: row.role, organisation: { id: org, name: row.organisationName } },
+      }),
+    ),
+    read(
+      tx
+        .select()
+        .from(syncTombstones)
+        .where(inOrg(syncTombstones, or(isNull(syncTombstones.userId), eq(syncTombstones.userId, scope.userId))))
+        .orderBy(...order(syncTombstones))
+        .limit(limit),
+      (row) => ({ type: 'tombstone', record: { recordType: row.recordType as never, id: row.recordId, reason: row.reason } }),
+    ),
+  ];
+}
