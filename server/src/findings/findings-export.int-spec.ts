@@ -13,7 +13,7 @@ beforeAll(async () => {
   const db = api.t.drizzle;
   const org = await orgIdOf(db, 'harrow-span');
   site = await insertSite(db, org, 'Export Test Yard');
-  const scaffold = await insertScaffold(db, org, site, 'Safe to use', null);
+  const scaffold = await insertScaffold(db, org, site, 'cleared', null);
   // Cells a spreadsheet would run as formulas, and text that needs quoting.
   await insertFinding(db, org, scaffold, { band: 'High', state: 'open', itemName: '=HYPERLINK("http://example.test","x")', notes: '+SUM(A1:A9)' });
   await insertFinding(db, org, scaffold, { band: 'Medium', state: 'open', itemName: '@cmd', notes: '-2+3' });

@@ -41,7 +41,7 @@ describe('the findings e-mail and signed report sent when an inspection is finis
 
   it('has a subject starting with the tag status, then site, scaffold, date and the count of High findings', () => {
     const highs = done.findings.filter((f) => f.riskBand === 'High').length;
-    expect(message.subject).toMatch(/^Safe to use · Quayside Library refurbishment · scaffold QL-A · \d{1,2} \w{3} \d{4} · \d+ High findings?$/);
+    expect(message.subject).toMatch(/^Cleared for use · Quayside Library refurbishment · scaffold QL-A · \d{1,2} \w{3} \d{4} · \d+ High findings?$/);
     expect(message.subject).toContain(`${highs} High finding`);
   });
 

@@ -1,4 +1,4 @@
-import { CAUTION_TEXT } from '@plummet/shared';
+import { CAUTION_TEXT, scaffoldStatusWords } from '@plummet/shared';
 import { byRisk, type ReportData } from '../reports/report-data.js';
 import { dateOnly, findingFacts } from '../reports/report-format.js';
 import type { ReportPhoto } from '../reports/report-photos.js';
@@ -45,7 +45,7 @@ export function reportSubject(data: ReportData): string {
   const highs = data.findings.filter((f) => f.row.riskBand === 'High').length;
   const date = dateOnly(data.inspection.finishedAt ?? data.inspection.startedAt, data.organisation.settings.timeZone);
   return [
-    headerText(data.scaffold.status, 40),
+    headerText(scaffoldStatusWords(data.scaffold.status), 40),
     headerText(data.site.name, 80),
     `scaffold ${headerText(data.scaffold.reference, 40)}`,
     date,
@@ -65,7 +65,7 @@ export function renderReportMail(data: ReportData, photos: Map<string, ReportPho
   const html: string[] = [
     '<!doctype html><html><head><meta charset="utf-8"></head><body style="font-family:\'Open Sans\',Arial,sans-serif;line-height:1.45;color:#111;max-width:720px">',
     `<p>${escapeHtml(intro)}</p>`,
-    `<p><strong>Scaffold tag status:</strong> ${escapeHtml(data.scaffold.status)}</p>`,
+    `<p><strong>Scaffold tag status:</strong> ${escapeHtml(scaffoldStatusWords(data.scaffold.status))}</p>`,
   ];
   if (list.length === 0) {
     text.push('No falling-object findings were recorded in this inspection.');

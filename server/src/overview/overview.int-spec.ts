@@ -15,10 +15,10 @@ beforeAll(async () => {
   const db = api.t.drizzle;
   const org = await orgIdOf(db, 'harrow-span');
   site = await insertSite(db, org, 'Aggregate Test Yard');
-  scaffoldA = await insertScaffold(db, org, site, 'Safe to use', 'past');
-  const scaffoldB = await insertScaffold(db, org, site, 'Do not use', 'later-today');
-  const scaffoldC = await insertScaffold(db, org, site, 'Restricted use', 'in-3-days');
-  await insertScaffold(db, org, site, 'Safe to use', null);
+  scaffoldA = await insertScaffold(db, org, site, 'cleared', 'past');
+  const scaffoldB = await insertScaffold(db, org, site, 'closed', 'later-today');
+  const scaffoldC = await insertScaffold(db, org, site, 'limited', 'in-3-days');
+  await insertScaffold(db, org, site, 'cleared', null);
 
   const f1 = await insertFinding(db, org, scaffoldA, { band: 'High', state: 'open', dueInHours: -2, raisedHoursAgo: 5, lift: 2, bay: 4 });
   await insertFinding(db, org, scaffoldA, { band: 'High', state: 'made-safe', dueInHours: 5, raisedHoursAgo: 30, lift: 2, bay: 4, elevation: 'South' });
@@ -70,9 +70,9 @@ describe('the overview of a hand-built site', () => {
   it('counts scaffolds by tag status and their inspections due later today and overdue', async () => {
     const res = await api.call('demo:admin', 'GET', `/overview?siteId=${site}`);
     expect(res.body.totals.scaffoldsByStatus).toEqual([
-      { status: 'Safe to use', count: 2 },
-      { status: 'Restricted use', count: 1 },
-      { status: 'Do not use', count: 1 },
+      { status: 'cleared', count: 2 },
+      { status: 'limited', count: 1 },
+      { status: 'closed', count: 1 },
     ]);
     expect(res.body.totals.inspectionsDueToday).toBe(1);
     expect(res.body.totals.inspectionsOverdue).toBe(1);

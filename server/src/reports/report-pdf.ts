@@ -1,4 +1,4 @@
-import { CAUTION_TEXT } from '@plummet/shared';
+import { CAUTION_TEXT, scaffoldStatusWords } from '@plummet/shared';
 import PDFDocument from 'pdfkit';
 import { byRisk, type ReportData } from './report-data.js';
 import { REPORT_FONTS } from './report-fonts.js';
@@ -44,7 +44,7 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
 
   doc.font('bold').fontSize(18).text(reportTitle(), { width });
   doc.font('regular').fontSize(10).fillColor('#333').text(`${data.organisation.name} · ${data.site.name} · scaffold ${data.scaffold.reference}`, { width });
-  doc.text(`Scaffold tag status at the time of the report: ${data.scaffold.status}`, { width });
+  doc.text(`Scaffold tag status at the time of the report: ${scaffoldStatusWords(data.scaffold.status)}`, { width });
   doc.fillColor('#000');
 
   heading('Report particulars (Work at Height Regulations 2005, reg. 12 and Schedule 7)');

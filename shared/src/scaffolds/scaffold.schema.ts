@@ -20,6 +20,9 @@ export const SCAFFOLD_STATUS_WORDS: Readonly<Record<ScaffoldStatus, string>> = {
   closed: 'Closed to use',
 };
 
+/** The words for a stored status (an unknown code is shown as it is). */
+export const scaffoldStatusWords = (status: string): string => SCAFFOLD_STATUS_WORDS[status as ScaffoldStatus] ?? status;
+
 /** How restrictive a status is: a clash between unseen edits keeps the more restrictive one. */
 export const SCAFFOLD_STATUS_RESTRICTION: Readonly<Record<ScaffoldStatus, number>> = { cleared: 0, limited: 1, closed: 2 };
 
