@@ -6,7 +6,7 @@ type Expect = 'ok' | 'illegal' | 'role' | 'scope';
 
 /** Every (from, to) pair for each role, foreman in scope; "·" marks a move that does not exist. */
 const TABLE: [FindingState, FindingState, Record<Role, Expect>][] = [
-  ['open', 'made-safe', { inspector: 'ok', manager: 'ok', foreman: 'role', admin: 'role' }],
+  ['open', 'made-safe', { inspector: 'ok', manager: 'ok', foreman: 'ok', admin: 'role' }],
   ['open', 'fixed', { inspector: 'ok', manager: 'ok', foreman: 'ok', admin: 'role' }],
   ['made-safe', 'fixed', { inspector: 'ok', manager: 'ok', foreman: 'ok', admin: 'role' }],
   ['fixed', 'verified', { inspector: 'ok', manager: 'ok', foreman: 'role', admin: 'role' }],
@@ -54,8 +54,9 @@ describe('checkFindingTransition', () => {
 });
 
 describe('nextFindingStates', () => {
-  it('offers a foreman only the fix of an open finding', () => {
-    expect(nextFindingStates('open', 'foreman')).toEqual(['fixed']);
+  it('offers a foreman a made-safe measure or the fix of an open finding, never a verification', () => {
+    expect(nextFindingStates('open', 'foreman').sort()).toEqual(['fixed', 'made-safe']);
+    expect(nextFindingStates('fixed', 'foreman')).toEqual([]);
   });
 
   it('offers an inspector verify or reopen of a fixed finding', () => {

@@ -18,8 +18,8 @@ export interface FindingTransition {
 }
 
 export const FINDING_TRANSITIONS: readonly FindingTransition[] = [
-  // The inspector secures the item on the spot (or a manager records that it was).
-  { from: 'open', to: 'made-safe', kind: 'make-safe', roles: ['inspector', 'manager'] },
+  // Secured on the spot: by the inspector, by the foreman on their scaffolds, or recorded by a manager.
+  { from: 'open', to: 'made-safe', kind: 'make-safe', roles: ['inspector', 'foreman', 'manager'] },
   // A fix: the foreman's job, or recorded by an inspector or manager who saw it done.
   { from: 'open', to: 'fixed', kind: 'fix', roles: ['foreman', 'inspector', 'manager'] },
   { from: 'made-safe', to: 'fixed', kind: 'fix', roles: ['foreman', 'inspector', 'manager'] },
