@@ -8,6 +8,7 @@ import { db } from '../local-db/db';
 import { backoffMs } from '@plummet/shared';
 import { readSession } from '../features/auth/session.store';
 import { downloadForemen } from './download-foremen';
+import { downloadOrganisationSettings } from './download-settings';
 import { SyncEngine, type SyncRunOutcome } from './sync-engine';
 import { httpSyncTransport } from './sync-transport';
 import { startSyncTriggers } from './sync-triggers';
@@ -45,6 +46,7 @@ export function startAppSync(userId: string): SyncEngine {
     if (outcome === 'done') {
       const role = (await readSession(db))?.user.role;
       if (role) await downloadForemen(db, authorised, role);
+      await downloadOrganisationSettings(db, authorised);
     }
     if (outcome === 'offline' && running?.engine === engine && !networkDown()) retry = setTimeout(() => void run(), backoffMs(failures, Math.random()));
     return outcome;

@@ -86,7 +86,16 @@ describe('saving a finding', () => {
     expect((await getFinding(database, owner.id))?.state).toBe('made-safe');
     const entries = await listWaitingChanges(database);
     expect(entries.map((entry) => entry.action)).toEqual(['create', 'state']);
-    expect(entries[1]!.payload).toEqual({ to: 'made-safe', note: 'Bagged and lowered' });
+    expect(entries[1]!.payload).toEqual({ to: 'made-safe', note: 'Bagged and lowered', photoIds: [] });
+  });
+
+  it("sends the finding's photos as the proof of a measure taken while recording it", async () => {
+    const database = freshDb();
+    const finding = recordOf(customBrick({ madeSafe: true, madeSafeNote: 'Bagged and lowered' }));
+    const photo = { id: '0c000000-0000-4000-8000-0000000000a1', ownerType: 'finding' as const, ownerId: finding.id, mimeType: 'image/jpeg', data: new ArrayBuffer(4), sizeBytes: 4, width: 2, height: 2, createdAt: '2026-03-01T08:00:00.000Z' };
+    await saveFinding(database, finding, [photo]);
+    const entries = await listWaitingChanges(database);
+    expect(entries.find((entry) => entry.action === 'state')!.payload).toMatchObject({ to: 'made-safe', photoIds: [photo.id] });
   });
 
   it('folds a later edit into the waiting create and recomputes the estimate', async () => {

@@ -27,10 +27,13 @@ export async function saveFinding(database: PlummetDb, finding: FindingRecord, n
       await enqueueChange(database, finding.id, { entity: 'finding', action: 'assign', payload: { assigneeId: finding.assigneeId, dueAt: finding.dueAt } });
     }
     if (finding.state === 'made-safe' && previous?.state !== 'made-safe') {
+      // The finding's own photos are the proof of a measure taken while recording it.
+      const stored = (await database.photos.where('[ownerType+ownerId]').equals(['finding', finding.id]).primaryKeys()) as string[];
+      const photoIds = [...new Set([...stored, ...newPhotos.filter((p) => p.ownerType === 'finding' && p.ownerId === finding.id).map((p) => p.id)])].slice(0, 10);
       await enqueueChange(database, finding.id, {
         entity: 'finding',
         action: 'state',
-        payload: { to: 'made-safe', note: finding.madeSafeNote ?? '' },
+        payload: { to: 'made-safe', note: finding.madeSafeNote ?? '', photoIds },
       });
     }
     await addPhotos(database, newPhotos);

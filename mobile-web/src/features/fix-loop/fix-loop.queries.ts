@@ -5,8 +5,9 @@ import { db, readMeta } from '../../local-db/db';
 import type { FindingRecord, FixRecord, ScaffoldRecord, SiteRecord, VerificationRecord } from '../../local-db/records';
 import { buildFixList, buildToVerify, type FixListEntry, type ToVerifyEntry } from './fix-loop-rules';
 
-/** Meta key of the organisation's settings (written by src/sync/ once the feed carries them). */
-export const ORGANISATION_SETTINGS_META_KEY = 'organisationSettings';
+import { ORGANISATION_SETTINGS_META_KEY } from '../../sync/download-settings';
+
+export { ORGANISATION_SETTINGS_META_KEY };
 
 /** The organisation's settings as last synced, or the defaults (common practice, no source) before then. */
 export function useOrganisationSettings(): OrganisationSettings {
