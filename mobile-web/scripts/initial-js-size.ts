@@ -38,7 +38,7 @@ export function measureInitialJs(bundle: Record<string, ChunkLike | { type: 'ass
 
 /**
  * Prints "initial JS: N KiB gzip" after a client build, and warns past the budget
- * (issue 5: the initial JavaScript stays at or under 200 KiB gzip).
+ * (the initial JavaScript stays at or under 200 KiB gzip).
  */
 export function initialJsSize(options: { budgetKiB: number }): Plugin {
   return {

@@ -2,7 +2,7 @@ import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
 
 /**
  * The one way the app calls the Plummet API. The server answers every error as
- * `{ code, message, issues? }` (STYLE habit 4); this turns those, and the cases where no answer
+ * `{ code, message, issues? }`; this turns those, and the cases where no answer
  * comes at all, into ApiError so callers can branch on `code`.
  */
 

@@ -2,6 +2,7 @@
  * The fix loop's vocabulary: the controls a fix or a made-safe measure can apply, the reasons a
  * foreman hands a finding back, and the two clocks of a finding (made safe, permanent fix).
  */
+import { zoneOffsetMs } from '../common/time-zone.js';
 import type { OrganisationSettings } from '../organisations/organisation-settings.schema.js';
 
 /** What was done about an item. Trade controls against dropped objects (hierarchy: remove, lower, secure, contain, keep people away). */
@@ -46,39 +47,21 @@ export function fixDueAt(band: Band, raisedAt: Date, settings: Pick<Organisation
 /** A High finding with anyone exposed below must be made safe (or its zone closed) before the inspector leaves the bay. */
 export const mustBeMadeSafeNow = (band: Band, exposure: Exposure): boolean => band === 'High' && exposure !== 'zone-closed';
 
-/** The offset of `timeZone` from UTC at `at`, in minutes (positive east of Greenwich). */
-function zoneOffsetMinutes(at: Date, timeZone: string): number {
-  const parts = new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    hourCycle: 'h23',
-    year: 'numeric',
-    month: '2-digit',
-    day: '2-digit',
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-  }).formatToParts(at);
-  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
-  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));
-  return Math.round((asUtc - Math.floor(at.getTime() / 1000) * 1000) / 60_000);
-}
-
 /**
  * A made-safe measure lapses at the end of the shift it was taken in: the next `shiftEndsAt` in the
  * organisation's time zone after `madeSafeAt` (daylight-saving changes included).
  */
 export function madeSafeLapsesAt(madeSafeAt: Date, settings: Pick<OrganisationSettings, 'shiftEndsAt' | 'timeZone'>): Date {
   const [hour, minute] = settings.shiftEndsAt.split(':').map(Number) as [number, number];
-  const offset = zoneOffsetMinutes(madeSafeAt, settings.timeZone);
-  const local = new Date(madeSafeAt.getTime() + offset * 60_000);
-  let candidate = Date.UTC(local.getUTCFullYear(), local.getUTCMonth(), local.getUTCDate(), hour, minute);
+  const local = new Date(madeSafeAt.getTime() + zoneOffsetMs(madeSafeAt.getTime(), settings.timeZone));
   for (let day = 0; day < 3; day += 1) {
-    const guess = candidate - offset * 60_000;
-    const exact = candidate - zoneOffsetMinutes(new Date(guess), settings.timeZone) * 60_000;
-    if (exact > madeSafeAt.getTime()) return new Date(exact);
-    candidate += 86_400_000;
+    const wallAsUtc = Date.UTC(local.getUTCFullYear(), local.getUTCMonth(), local.getUTCDate() + day, hour, minute);
+    // The offset at the shift end may differ from the one when made safe (a daylight-saving change): settle it.
+    let end = wallAsUtc - zoneOffsetMs(wallAsUtc, settings.timeZone);
+    end = wallAsUtc - zoneOffsetMs(end, settings.timeZone);
+    if (end > madeSafeAt.getTime()) return new Date(end);
   }
-  return new Date(candidate - offset * 60_000);
+  throw new Error('No shift end within three days');
 }
 
 export interface DueWords {

@@ -4,26 +4,10 @@
  * - `pre-shift` (US OSHA 29 CFR 1926.451(f)(3)): the start (00:00) of the next calendar day in the
  *   site's time zone, so the next shift needs a fresh one.
  */
+import { zoneOffsetMs } from '../common/time-zone.js';
 import type { InspectionRegime } from '../sites/site.schema.js';
 
 const DAY_MS = 86_400_000;
-
-/** Offset of a time zone from UTC at an instant, in ms (positive east of Greenwich). */
-function zoneOffsetMs(instantMs: number, timeZone: string): number {
-  const parts = new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    hourCycle: 'h23',
-    year: 'numeric',
-    month: '2-digit',
-    day: '2-digit',
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-  }).formatToParts(new Date(instantMs));
-  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
-  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));
-  return asUtc - Math.floor(instantMs / 1000) * 1000;
-}
 
 /** 00:00 local time of the calendar day after `instant` in `timeZone`. */
 export function startOfNextDay(instant: Date, timeZone: string): Date {

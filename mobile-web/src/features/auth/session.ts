@@ -26,7 +26,7 @@ export interface StoredSession {
   refreshExpiresAt: string;
 }
 
-/** A stored session read back from the database, or undefined when it is not one (STYLE habit 7). */
+/** A stored session read back from the database, or undefined when it is not one. */
 export function restoreSession(value: unknown): StoredSession | undefined {
   if (typeof value !== 'object' || value === null) return undefined;
   const candidate = value as Record<string, unknown>;

@@ -135,7 +135,7 @@ export function findingUpdateOf(finding: FindingRecord, previous?: FindingRecord
 
 const FindingRecordSchema = FindingSchema.extend({ organisationId: IdSchema, siteId: IdSchema });
 
-/** A finding read back from the database, or undefined when it is not one (STYLE habit 7). */
+/** A finding read back from the database, or undefined when it is not one. */
 export function restoreFinding(value: unknown): FindingRecord | undefined {
   const parsed = FindingRecordSchema.safeParse(value);
   return parsed.success ? (parsed.data as FindingRecord) : undefined;

@@ -37,7 +37,7 @@ export function photoBlob(photo: Pick<PhotoRecord, 'data' | 'mimeType'>): Blob {
   return photo.data instanceof Blob ? photo.data : new Blob([photo.data], { type: photo.mimeType });
 }
 
-/** A photo read back from the database, or undefined when it is not a usable one (STYLE habit 7). */
+/** A photo read back from the database, or undefined when it is not a usable one. */
 export function restorePhoto(value: unknown): PhotoRecord | undefined {
   if (typeof value !== 'object' || value === null) return undefined;
   const photo = value as Partial<PhotoRecord>;
