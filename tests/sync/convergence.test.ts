@@ -1,5 +1,5 @@
 /**
- * Sync converges (issue 6): five phones (four devices of the inspector, one of the foreman) run the
+ * Sync converges: five phones (four devices of the inspector, one of the foreman) run the
  * real client sync engine over fake-indexeddb against two server instances on one PostgreSQL
  * database, with random offline periods, dropped requests (server killed before commit), dropped
  * answers (killed after commit), duplicated and late (reordered) deliveries, and device clocks

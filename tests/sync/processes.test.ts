@@ -1,5 +1,5 @@
 /**
- * Sync across real server processes (issue 6): the BUILT server, run as separate processes on one
+ * Sync across real server processes: the BUILT server, run as separate processes on one
  * PostgreSQL database, and phones running the real client sync code (tests/sync/sync-harness.ts).
  * Two processes taking turns; a process killed in the middle of a push (before and after its
  * commit, by the fault hook in server/src/sync/fault-injection.ts) and the phone retrying against

@@ -1,5 +1,5 @@
 /**
- * Display units at the screen's edge (STYLE habit 8): values are SI everywhere else. The factors
+ * Display units at the screen's edge: values are SI everywhere else. The factors
  * come from @plummet/shared's conversions (exact by definition, NIST SP 811); the inch is
  * 0.0254 m exactly (1959 international yard and pound agreement).
  */

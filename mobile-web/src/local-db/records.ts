@@ -1,7 +1,7 @@
 /**
  * What the phone keeps in IndexedDB. Records are the API shapes of @plummet/shared plus the few
  * fields the phone needs (organisation, site, local state). Values are SI, as on the server.
- * Whatever is read back is validated by the feature that reads it (STYLE habit 7, see restore.ts).
+ * Whatever is read back is validated by the feature that reads it; a record that does not validate is treated as absent.
  */
 import type {
   CatalogueItem,

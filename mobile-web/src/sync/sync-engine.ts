@@ -1,5 +1,5 @@
 /**
- * The phone's sync engine (issue 6). Sends the outbox in order: finding changes as batches of
+ * The phone's sync engine. Sends the outbox in order: finding changes as batches of
  * mutations with per-client increasing ids (a retry reuses the ids, so the server skips what it
  * already applied), other changes to their REST routes, photos after the records that own them
  * with backoff; then pulls the change feed into Dexie. Records with changes still waiting are

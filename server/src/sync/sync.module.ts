@@ -14,7 +14,7 @@ import { SyncPushService } from './sync-push.service.js';
 import { SyncController } from './sync.controller.js';
 import { SyncRepository } from './sync.repository.js';
 
-/** Offline sync (issue 6): push of phone mutations, the change feed, conflicts. */
+/** Offline sync: push of phone mutations, the change feed, conflicts. */
 @Module({
   imports: [AuditModule, FindingsModule, ScaffoldsModule, InspectionsModule, CatalogueModule],
   controllers: [SyncController],

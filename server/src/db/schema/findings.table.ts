@@ -56,7 +56,7 @@ export const findings = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
-    // Sync (issue 6): change-feed stamp and per-field write history.
+    // Sync: change-feed stamp and per-field write history.
     ...syncStampColumns(),
     syncFields: syncFieldsColumn(),
   },

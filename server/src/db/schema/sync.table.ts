@@ -1,5 +1,5 @@
 /**
- * Sync (issue 6): the change feed's stamps, each phone's mutation counter, the outcome of every
+ * Sync: the change feed's stamps, each phone's mutation counter, the outcome of every
  * mutation it sent, and the conflicts kept when a later write replaced a value its writer had not seen.
  */
 import { sql } from 'drizzle-orm';
