@@ -1,4 +1,4 @@
-import type { OverviewFigures } from '@plummet/shared';
+import { type OverviewFigures, scaffoldStatusWords } from '@plummet/shared';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
@@ -43,7 +43,7 @@ function Figures({ figures, siteId, prefix }: { figures: OverviewFigures; siteId
       <Figure value={figures.inspectionsDueToday} label="Inspections due today" to={reportsLink(siteId, { due: 'today' })} testId={`${prefix}-due-today`} />
       <Figure value={figures.inspectionsOverdue} label="Inspections overdue" to={reportsLink(siteId, { due: 'overdue' })} testId={`${prefix}-inspections-overdue`} />
       {figures.scaffoldsByStatus.map((s) => (
-        <Figure key={s.status} value={s.count} label={`Scaffolds tagged “${s.status}”`} to={reportsLink(siteId, { status: s.status })} testId={`${prefix}-status-${s.status}`} />
+        <Figure key={s.status} value={s.count} label={`Scaffolds: ${scaffoldStatusWords(s.status)}`} to={reportsLink(siteId, { status: s.status })} testId={`${prefix}-status-${s.status}`} />
       ))}
       <Figure value={figures.openConflicts} label="Edits to settle" to="/sync" testId={`${prefix}-conflicts`} />
     </ul>
