@@ -65,5 +65,22 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     await page.goto(server.url);
     await onScreen(page, 'site-card').first().waitFor();
     await page.screenshot({ path: artifactPath('home-wide.png') });
+
+    // The finding editor at phone width: scrolled to the estimate card, the strip under the
+    // toolbar ends above the card's heading instead of covering it.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto(`${siteUrl}/findings`);
+    await onScreen(page, 'finding-row').first().click();
+    const panel = onScreen(page, 'estimate-panel');
+    await panel.waitFor();
+    await panel.evaluate((element) => element.scrollIntoView({ block: 'start' }));
+    await expect
+      .poll(async () => {
+        const strip = await onScreen(page, 'estimate-strip').boundingBox();
+        const heading = await panel.locator('.estimate-panel__title').boundingBox();
+        return strip && heading ? heading.y - (strip.y + strip.height) : -1;
+      })
+      .toBeGreaterThanOrEqual(0);
+    await page.screenshot({ path: artifactPath('finding-estimate-phone.png') });
   });
 });

@@ -17,7 +17,9 @@ export function ReloadPrompt() {
     offlineReady: [offlineReady, setOfflineReady],
     updateServiceWorker,
   } = useRegisterSW({
-    immediate: true,
+    // Register after the window's load event: installing the worker fetches every precached
+    // chunk, which must not compete with the first page's own downloads on a slow connection.
+    immediate: false,
     onRegisteredSW(_swUrl, registration) {
       if (!registration) return;
       setInterval(() => {

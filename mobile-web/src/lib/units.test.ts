@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatForInput, formatQuantity, fromDisplay, parseDecimal, parseQuantity, toDisplay } from './units';
+import { formatForInput, formatQuantity, formatWind, fromDisplay, parseDecimal, parseQuantity, parseWind, toDisplay } from './units';
 
 describe('display units', () => {
   it('shows SI values with their unit, forces past 1,000 N in kilonewtons', () => {
@@ -13,17 +13,26 @@ describe('display units', () => {
     expect(toDisplay('height', 3.048, 'imperial')).toBeCloseTo(10, 12);
     expect(toDisplay('mass', 0.45359237, 'imperial')).toBeCloseTo(1, 12);
     expect(toDisplay('size', 0.0254, 'imperial')).toBeCloseTo(1, 12);
-    expect(formatQuantity('wind', 0.44704 * 20, 'imperial')).toBe('20 mph');
     expect(formatQuantity('force', 4.4482216152605 * 100, 'imperial')).toBe('100 lbf');
   });
 
   it('round-trips a typed value to SI and back', () => {
-    for (const kind of ['mass', 'height', 'size', 'wind', 'energy', 'force'] as const) {
+    for (const kind of ['mass', 'height', 'size', 'speed', 'energy', 'force'] as const) {
       expect(toDisplay(kind, fromDisplay(kind, 12.5, 'imperial'), 'imperial')).toBeCloseTo(12.5, 10);
     }
     expect(parseQuantity('size', '30', 'si')).toBeCloseTo(0.3, 12);
     expect(formatForInput('size', 0.3, 'si')).toBe('30');
     expect(formatForInput('height', undefined, 'si')).toBe('');
+  });
+
+  it('shows and reads wind in its own unit (NIST SP 811 App. B: 1 mph = 0.44704 m/s, 1 km/h = 1/3.6 m/s)', () => {
+    expect(formatWind(0.44704 * 20, 'mph')).toBe('20 mph');
+    expect(formatWind(10, 'kmh')).toBe('36 km/h');
+    expect(formatWind(7.5, 'mps')).toBe('7.5 m/s');
+    expect(parseWind('20', 'mph')).toBeCloseTo(8.9408, 12);
+    expect(parseWind('36', 'kmh')).toBeCloseTo(10, 12);
+    expect(parseWind('2,5', 'mps')).toBe(2.5);
+    expect(parseWind('calm', 'mph')).toBeUndefined();
   });
 
   it('reads a decimal comma and refuses text that is not a number', () => {

@@ -6,18 +6,20 @@
 import {
   joulesToFootPounds,
   METRES_PER_FOOT,
+  METRES_PER_SECOND_PER_KMH,
   METRES_PER_SECOND_PER_MPH,
   KILOGRAMS_PER_POUND,
   NEWTONS_PER_POUND_FORCE,
   type Units,
+  type WindUnits,
 } from '@plummet/shared';
 
-export type { Units };
+export type { Units, WindUnits };
 
 /** Metres per inch (exact). */
 const METRES_PER_INCH = 0.0254;
 
-export type QuantityKind = 'mass' | 'height' | 'distance' | 'size' | 'speed' | 'wind' | 'energy' | 'force' | 'time';
+export type QuantityKind = 'mass' | 'height' | 'distance' | 'size' | 'speed' | 'energy' | 'force' | 'time';
 
 interface Scale {
   /** Display units per SI unit. */
@@ -32,7 +34,6 @@ const SCALES: Record<QuantityKind, Record<Units, Scale>> = {
   /** Item dimensions: centimetres or inches, the way a tape reads. */
   size: { si: { perSi: 100, unit: 'cm' }, imperial: { perSi: 1 / METRES_PER_INCH, unit: 'in' } },
   speed: { si: { perSi: 1, unit: 'm/s' }, imperial: { perSi: 1 / METRES_PER_SECOND_PER_MPH, unit: 'mph' } },
-  wind: { si: { perSi: 1, unit: 'm/s' }, imperial: { perSi: 1 / METRES_PER_SECOND_PER_MPH, unit: 'mph' } },
   energy: { si: { perSi: 1, unit: 'J' }, imperial: { perSi: joulesToFootPounds(1), unit: 'ft·lbf' } },
   force: { si: { perSi: 1, unit: 'N' }, imperial: { perSi: 1 / NEWTONS_PER_POUND_FORCE, unit: 'lbf' } },
   time: { si: { perSi: 1, unit: 's' }, imperial: { perSi: 1, unit: 's' } },
@@ -85,4 +86,26 @@ export function parseDecimal(text: string): number | undefined {
 export function parseQuantity(kind: QuantityKind, text: string, units: Units): number | undefined {
   const shown = parseDecimal(text);
   return shown === undefined ? undefined : fromDisplay(kind, shown, units);
+}
+
+/** Wind speed has its own unit choice, apart from the display units (mph on a site measured in metres). */
+const WIND_SCALES: Record<WindUnits, Scale> = {
+  mps: { perSi: 1, unit: 'm/s' },
+  kmh: { perSi: 1 / METRES_PER_SECOND_PER_KMH, unit: 'km/h' },
+  mph: { perSi: 1 / METRES_PER_SECOND_PER_MPH, unit: 'mph' },
+};
+
+export function windUnitLabel(windUnits: WindUnits): string {
+  return WIND_SCALES[windUnits].unit;
+}
+
+/** A wind speed in m/s shown in the user's wind unit, e.g. "20 mph". */
+export function formatWind(mps: number, windUnits: WindUnits): string {
+  return `${formatNumber(mps * WIND_SCALES[windUnits].perSi)} ${windUnitLabel(windUnits)}`;
+}
+
+/** A wind speed typed in the user's wind unit, in m/s; undefined when it is not a number. */
+export function parseWind(text: string, windUnits: WindUnits): number | undefined {
+  const shown = parseDecimal(text);
+  return shown === undefined ? undefined : shown / WIND_SCALES[windUnits].perSi;
 }

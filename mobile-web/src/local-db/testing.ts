@@ -27,6 +27,7 @@ export const inspector: UserProfile = {
   name: 'Aileen Marsh',
   position: 'Scaffold inspector',
   units: 'si',
+  windUnits: 'mps',
   role: 'inspector',
   organisation: { id: ORG_ID, name: 'Harrow & Span Access Ltd' },
 };

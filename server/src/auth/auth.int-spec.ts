@@ -31,6 +31,7 @@ describe('sign-in, refresh and sign-out against the real PostgreSQL', () => {
       name: 'Priya Okafor',
       position: 'Safety systems administrator',
       units: 'si',
+      windUnits: 'mps',
       role: 'admin',
       organisation: { id: expect.any(String), name: 'Harrow & Span Access Ltd' },
     });

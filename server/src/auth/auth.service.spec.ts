@@ -16,6 +16,7 @@ const account: SignInCandidate = {
   name: 'Aileen Marsh',
   position: 'Inspector',
   units: 'si',
+  windUnits: 'mps',
   active: true,
   sessionVersion: 0,
   role: 'inspector',

@@ -90,6 +90,17 @@ describe('users: profile, members and roles against the real PostgreSQL', () => 
     expect(events.at(-1)?.after).toMatchObject({ name: 'Aileen Marsh-Hale', units: 'imperial' });
   });
 
+  it('keeps the wind unit apart from the display units and refuses a unit it does not know', async () => {
+    const token = await t.tokenFor('inspector@demo.test');
+    const res = await call('PATCH', '/users/me', token, { windUnits: 'mph' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ windUnits: 'mph' });
+    expect((await call('GET', '/users/me', token)).body.windUnits).toBe('mph');
+    const wrong = await call('PATCH', '/users/me', token, { windUnits: 'knots' });
+    expect(wrong.status).toBe(400);
+    expect((await call('GET', '/users/me', token)).body.windUnits).toBe('mph');
+  });
+
   it('lists members a page at a time, by name, filtered by role', async () => {
     const first = await call('GET', '/users?limit=2', admin);
     expect(first.status).toBe(200);

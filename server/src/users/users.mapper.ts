@@ -9,6 +9,7 @@ export function toUserProfile(row: ProfileRow): UserProfile {
     name: row.name,
     position: row.position,
     units: row.units,
+    windUnits: row.windUnits,
     role: row.role,
     organisation: { id: row.organisationId, name: row.organisationName },
   };

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type { MemberListQuery, Role } from '@plummet/shared';
+import type { MemberListQuery, Role, WindUnits } from '@plummet/shared';
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
@@ -11,6 +11,7 @@ const profileColumns = {
   name: users.name,
   position: users.position,
   units: users.units,
+  windUnits: users.windUnits,
   active: users.active,
   sessionVersion: users.sessionVersion,
   role: memberships.role,
@@ -35,6 +36,7 @@ export type ProfileRow = {
   name: string;
   position: string;
   units: 'si' | 'imperial';
+  windUnits: WindUnits;
   active: boolean;
   sessionVersion: number;
   role: Role;
@@ -105,7 +107,7 @@ export class UsersRepository {
 
   async updateUser(
     userId: string,
-    patch: Partial<{ name: string; position: string; units: 'si' | 'imperial'; active: boolean; passwordHash: string }>,
+    patch: Partial<{ name: string; position: string; units: 'si' | 'imperial'; windUnits: WindUnits; active: boolean; passwordHash: string }>,
     ex: DbExecutor = this.db,
   ): Promise<void> {
     if (Object.keys(patch).length === 0) return;

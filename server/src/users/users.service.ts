@@ -41,8 +41,8 @@ export class UsersService {
           entityType: 'user',
           entityId: caller.userId,
           action: 'profile-updated',
-          before: { name: before.name, position: before.position, units: before.units },
-          after: { name: after.name, position: after.position, units: after.units },
+          before: { name: before.name, position: before.position, units: before.units, windUnits: before.windUnits },
+          after: { name: after.name, position: after.position, units: after.units, windUnits: after.windUnits },
         },
         tx,
       );

@@ -6,6 +6,16 @@ import { IdSchema, NameSchema, ShortTextSchema } from '../common/fields.schema.j
 export const UNITS_VALUES = ['si', 'imperial'] as const;
 export type Units = (typeof UNITS_VALUES)[number];
 
+/**
+ * Wind speed has its own unit choice (UK sites give wind in mph while measuring in metres):
+ * metres per second, kilometres per hour or miles per hour. Values stay in m/s everywhere else.
+ */
+export const WIND_UNITS_VALUES = ['mps', 'kmh', 'mph'] as const;
+export type WindUnits = (typeof WIND_UNITS_VALUES)[number];
+
+/** The wind unit a user starts with: the one that goes with their display units. */
+export const defaultWindUnitsFor = (units: Units): WindUnits => (units === 'imperial' ? 'mph' : 'mps');
+
 /** An e-mail address as the service stores it: trimmed, lower-cased, at most 254 characters. */
 export const EmailSchema = z
   .string()
@@ -22,17 +32,19 @@ export const UserProfileSchema = z.object({
   name: z.string(),
   position: z.string(),
   units: z.enum(UNITS_VALUES),
+  windUnits: z.enum(WIND_UNITS_VALUES),
   role: z.enum(ROLE_VALUES),
   organisation: z.object({ id: IdSchema, name: z.string() }),
 });
 export type UserProfile = z.infer<typeof UserProfileSchema>;
 
-/** `PATCH /api/users/me`: the user's own name, position and display units. */
+/** `PATCH /api/users/me`: the user's own name, position, display units and wind unit. */
 export const UserProfileUpdateSchema = z
   .strictObject({
     name: NameSchema.optional(),
     position: ShortTextSchema.optional(),
     units: z.enum(UNITS_VALUES).optional(),
+    windUnits: z.enum(WIND_UNITS_VALUES).optional(),
   })
   .refine((v) => Object.keys(v).length > 0, 'Send at least one field to change');
 export type UserProfileUpdate = z.infer<typeof UserProfileUpdateSchema>;

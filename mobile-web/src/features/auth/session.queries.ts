@@ -2,7 +2,8 @@ import { useLiveQuery } from 'dexie-react-hooks';
 import { db } from '../../local-db/db';
 import { sessionStatus, type SessionStatus, type StoredSession } from './session';
 import { readSession } from './session.store';
-import type { Units } from '../../lib/units';
+import { defaultWindUnitsFor } from '@plummet/shared';
+import type { Units, WindUnits } from '../../lib/units';
 
 export interface SessionState {
   status: 'loading' | SessionStatus;
@@ -19,4 +20,10 @@ export function useSession(): SessionState {
 /** The signed-in user's display units (SI until known). */
 export function useUnits(): Units {
   return useSession().session?.user.units ?? 'si';
+}
+
+/** The signed-in user's wind unit (a profile saved before it existed: the one that goes with the units). */
+export function useWindUnits(): WindUnits {
+  const user = useSession().session?.user;
+  return user?.windUnits ?? defaultWindUnitsFor(user?.units ?? 'si');
 }

@@ -1,4 +1,4 @@
-import type { Units } from '@plummet/shared';
+import type { Units, WindUnits } from '@plummet/shared';
 import { clearLocalData, readMeta, writeMeta, type PlummetDb } from '../../local-db/db';
 import { enqueueChange } from '../../local-db/outbox';
 import { restoreSession, type StoredSession } from './session';
@@ -32,6 +32,16 @@ export async function changeUnits(database: PlummetDb, units: Units): Promise<vo
     if (!session) throw new Error('Sign in first.');
     await saveSession(database, { ...session, user: { ...session.user, units } });
     await enqueueChange(database, session.user.id, { entity: 'user', action: 'update', payload: { units } });
+  });
+}
+
+/** The user's wind unit, apart from the display units; saved and sent the same way as the units. */
+export async function changeWindUnits(database: PlummetDb, windUnits: WindUnits): Promise<void> {
+  await database.transaction('rw', database.meta, database.outbox, async () => {
+    const session = await readSession(database);
+    if (!session) throw new Error('Sign in first.');
+    await saveSession(database, { ...session, user: { ...session.user, windUnits } });
+    await enqueueChange(database, session.user.id, { entity: 'user', action: 'update', payload: { windUnits } });
   });
 }
 

@@ -3,7 +3,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { listWaitingChanges } from '../../local-db/outbox';
 import { dropTestDatabases, freshDb, inspector, ORG_ID, site } from '../../local-db/testing';
 import { accessTokenNeedsRefresh, ASSUMED_REFRESH_LIFETIME_MS, sessionFromResponse, sessionStatus } from './session';
-import { changeUnits, readSession, saveSession, signOutLocally, startSession } from './session.store';
+import { changeUnits, changeWindUnits, readSession, saveSession, signOutLocally, startSession } from './session.store';
 
 afterEach(dropTestDatabases);
 
@@ -49,6 +49,23 @@ describe('the session on the phone', () => {
     await changeUnits(database, 'imperial');
     expect((await readSession(database))?.user.units).toBe('imperial');
     expect(await listWaitingChanges(database)).toMatchObject([{ entity: 'user', action: 'update', payload: { units: 'imperial' } }]);
+  });
+
+  it('keeps wind in its own unit while the other figures stay metric', async () => {
+    const database = freshDb();
+    await saveSession(database, sessionFromResponse(response, now));
+    await changeWindUnits(database, 'mph');
+    const user = (await readSession(database))?.user;
+    expect(user).toMatchObject({ units: 'si', windUnits: 'mph' });
+    expect(await listWaitingChanges(database)).toMatchObject([{ entity: 'user', action: 'update', payload: { windUnits: 'mph' } }]);
+  });
+
+  it('reads back a profile saved before wind had its own unit, giving it the unit of its display units', async () => {
+    const database = freshDb();
+    const saved = sessionFromResponse(response, now);
+    const { windUnits: _dropped, ...olderUser } = { ...saved.user, units: 'imperial' as const };
+    await database.meta.put({ key: 'session', value: { ...saved, user: olderUser } });
+    expect((await readSession(database))?.user).toMatchObject({ units: 'imperial', windUnits: 'mph' });
   });
 
   it('clears another user’s records when someone else signs in on the phone', async () => {

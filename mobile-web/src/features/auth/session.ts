@@ -2,7 +2,7 @@
  * The session kept on the phone: the tokens from sign-in and the user's profile. Pure helpers;
  * session.store.ts keeps it in the database.
  */
-import { DateTimeSchema, SessionSchema, UserProfileSchema, type Session, type UserProfile } from '@plummet/shared';
+import { DateTimeSchema, defaultWindUnitsFor, SessionSchema, UserProfileSchema, type Session, type UserProfile } from '@plummet/shared';
 
 /**
  * How long a refresh token lives when the server does not say: the server's default
@@ -26,11 +26,18 @@ export interface StoredSession {
   refreshExpiresAt: string;
 }
 
+/** A profile saved before wind had its own unit gets the one that goes with its display units. */
+function withWindUnits(user: unknown): unknown {
+  if (typeof user !== 'object' || user === null || 'windUnits' in user) return user;
+  const units = (user as { units?: unknown }).units;
+  return { ...user, windUnits: defaultWindUnitsFor(units === 'imperial' ? 'imperial' : 'si') };
+}
+
 /** A stored session read back from the database, or undefined when it is not one. */
 export function restoreSession(value: unknown): StoredSession | undefined {
   if (typeof value !== 'object' || value === null) return undefined;
   const candidate = value as Record<string, unknown>;
-  const user = UserProfileSchema.safeParse(candidate.user);
+  const user = UserProfileSchema.safeParse(withWindUnits(candidate.user));
   const texts = [candidate.accessToken, candidate.refreshToken];
   if (!user.success || !texts.every((text) => typeof text === 'string' && text.length > 0)) return undefined;
   const signedInAt = DateTimeSchema.safeParse(candidate.signedInAt);

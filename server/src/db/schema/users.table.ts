@@ -4,6 +4,9 @@ import { organisations } from './organisations.table.js';
 
 export const unitsEnum = pgEnum('units', ['si', 'imperial']);
 
+/** Wind speed's own display unit (m/s, km/h, mph); values are always stored in m/s. */
+export const windUnitsEnum = pgEnum('wind_units', ['mps', 'kmh', 'mph']);
+
 export const roleEnum = pgEnum('role', ['inspector', 'foreman', 'manager', 'admin']);
 
 export const users = pgTable('users', {
@@ -16,6 +19,8 @@ export const users = pgTable('users', {
   active: boolean('active').notNull().default(true),
   /** Display units chosen by the user; values are always stored in SI. */
   units: unitsEnum('units').notNull().default('si'),
+  /** Display unit for wind speed, chosen apart from `units` (mph on a site measured in metres). */
+  windUnits: windUnitsEnum('wind_units').notNull().default('mps'),
   /**
    * Carried in every access token; raised when the user's sessions must end before their tokens
    * expire (deactivation, role change, password reset). The guard refuses tokens of an older version.

@@ -5,14 +5,14 @@ import { AppHeader } from '../../../components/AppHeader';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { FormSection } from '../../../components/FormSection';
 import { NumberField } from '../../../components/NumberField';
-import { useUnits } from '../../auth/session.queries';
+import { useUnits, useWindUnits } from '../../auth/session.queries';
 import { useCatalogue } from '../../catalogue/catalogue.queries';
 import { EstimatePanel, EstimateStrip } from '../../findings/components/EstimatePanel';
 import { ExposureChoice } from '../../findings/components/ExposureChoice';
 import { HowComputedSheet } from '../../findings/components/HowComputedSheet';
 import { ItemPicker } from '../../findings/components/ItemPicker';
 import { readFindingForm, windAnswerFor, type FindingForm } from '../../findings/finding-form';
-import { formatQuantity, parseQuantity, unitLabel } from '../../../lib/units';
+import { formatQuantity, parseQuantity, parseWind, unitLabel, windUnitLabel } from '../../../lib/units';
 import { WhatIfTable } from '../components/WhatIfTable';
 import { builtinCatalogue, newCalculatorForm } from '../calculator-form';
 import { whatIfs } from '../what-if';
@@ -22,6 +22,7 @@ const QUESTIONS_ASKED = ['securing', 'edgeDistance', 'footTraffic'] as const;
 /** What-ifs with no record: an item, a height, the wind and who is below; what each control changes. */
 export function CalculatorPage() {
   const units = useUnits();
+  const windUnits = useWindUnits();
   const stored = useCatalogue();
   const catalogue = useMemo(() => (stored && stored.length > 0 ? stored : builtinCatalogue()), [stored]);
   const [form, setForm] = useState<FindingForm>(newCalculatorForm);
@@ -30,7 +31,7 @@ export function CalculatorPage() {
   const [explaining, setExplaining] = useState(false);
   const patch = (changes: Partial<FindingForm>) => setForm((current) => ({ ...current, ...changes }));
 
-  const wind = windText.trim() === '' ? null : parseQuantity('wind', windText, units);
+  const wind = windText.trim() === '' ? null : parseWind(windText, windUnits);
   const windSpeedMps = wind !== undefined && wind !== null && wind >= 0 && wind <= LIMITS.windMaxMps ? wind : null;
   const answers = { ...form.answers, wind: windAnswerFor(windSpeedMps) };
   const catalogueItem = catalogue.find((item) => item.id === form.catalogueItemId);
@@ -61,7 +62,7 @@ export function CalculatorPage() {
             />
             <NumberField
               label="Wind speed"
-              unit={unitLabel('wind', units)}
+              unit={windUnitLabel(windUnits)}
               value={windText}
               onChange={setWindText}
               error={wind === undefined ? 'Enter a number, or leave it empty.' : undefined}
@@ -97,7 +98,7 @@ export function CalculatorPage() {
               <WhatIfTable scenarios={scenarios} units={units} />
             </FormSection>
           )}
-          <EstimatePanel result={now} waitingFor={Object.values(reading.problems)[0]} windSpeedMps={windSpeedMps} units={units} onExplain={() => setExplaining(true)} />
+          <EstimatePanel result={now} waitingFor={Object.values(reading.problems)[0]} windSpeedMps={windSpeedMps} units={units} windUnits={windUnits} onExplain={() => setExplaining(true)} />
         </div>
         <HowComputedSheet isOpen={explaining} onClose={() => setExplaining(false)} input={reading.input} result={now} />
       </IonContent>

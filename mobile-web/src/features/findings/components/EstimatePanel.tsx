@@ -3,7 +3,7 @@ import type { FindingEstimateResult } from '@plummet/shared';
 import { calculatorOutline } from 'ionicons/icons';
 import { CautionNote } from '../../../components/CautionNote';
 import { RiskBadge } from '../../../components/RiskBadge';
-import { formatQuantity, type Units } from '../../../lib/units';
+import { formatQuantity, formatWind, type Units, type WindUnits } from '../../../lib/units';
 import './EstimatePanel.css';
 
 interface EstimatePanelProps {
@@ -12,11 +12,12 @@ interface EstimatePanelProps {
   waitingFor?: string;
   windSpeedMps: number | null;
   units: Units;
+  windUnits: WindUnits;
   onExplain(): void;
 }
 
 /** The fall estimate in full, recomputed on every keystroke; with its sources one tap away. */
-export function EstimatePanel({ result, waitingFor, windSpeedMps, units, onExplain }: EstimatePanelProps) {
+export function EstimatePanel({ result, waitingFor, windSpeedMps, units, windUnits, onExplain }: EstimatePanelProps) {
   if (!result) {
     return (
       <section className="estimate-panel estimate-panel--waiting" data-testid="estimate-panel" aria-live="polite">
@@ -51,7 +52,7 @@ export function EstimatePanel({ result, waitingFor, windSpeedMps, units, onExpla
         <div>
           <dt>Drift in the wind</dt>
           <dd data-testid="estimate-drift">
-            {windSpeedMps && windSpeedMps > 0 ? `${formatQuantity('distance', e.driftM, units)} at ${formatQuantity('wind', windSpeedMps, units)}` : 'No wind given'}
+            {windSpeedMps && windSpeedMps > 0 ? `${formatQuantity('distance', e.driftM, units)} at ${formatWind(windSpeedMps, windUnits)}` : 'No wind given'}
           </dd>
         </div>
         <div>

@@ -14,6 +14,7 @@ import type { PendingPhoto } from '../../photos/photos.store';
 import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
 import { heightOfLift, readFindingForm, type FindingForm, type HeightMode } from '../finding-form';
 import { buildFindingRecord, tryEstimate, type FindingOwner } from '../finding-record';
+import { useWindUnits } from '../../auth/session.queries';
 import { useSaveFindingMutation } from '../findings.mutations';
 import { EstimatePanel, EstimateStrip } from './EstimatePanel';
 import { ExposureChoice } from './ExposureChoice';
@@ -44,6 +45,7 @@ interface FindingEditorProps {
 export function FindingEditor({ initialForm, existing, owner, scaffold, catalogue, storedPhotos, windSpeedMps, units, backHref, readOnly, foremen = [] }: FindingEditorProps) {
   const router = useIonRouter();
   const save = useSaveFindingMutation();
+  const windUnits = useWindUnits();
   const [form, setForm] = useState(initialForm);
   const [pending, setPending] = useState<PendingPhoto[]>([]);
   const [explaining, setExplaining] = useState(false);
@@ -143,7 +145,7 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
             <LikelihoodQuestions answers={form.answers} onChange={(answers) => patch({ answers })} />
           </FormSection>
 
-          <EstimatePanel result={result} waitingFor={problem ?? firstProblem} windSpeedMps={windSpeedMps} units={units} onExplain={() => setExplaining(true)} />
+          <EstimatePanel result={result} waitingFor={problem ?? firstProblem} windSpeedMps={windSpeedMps} units={units} windUnits={windUnits} onExplain={() => setExplaining(true)} />
 
           <FormSection title="Notes and action">
             <label>

@@ -4,24 +4,25 @@ import { useState } from 'react';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { NumberField } from '../../../components/NumberField';
 import { Sheet } from '../../../components/Sheet';
-import { parseQuantity, unitLabel, type Units } from '../../../lib/units';
+import { formatWind, parseWind, windUnitLabel, type WindUnits } from '../../../lib/units';
 import { REASON_WORDS } from '../inspection-words';
 
 interface StartInspectionSheetProps {
   isOpen: boolean;
   scaffoldReference: string;
-  units: Units;
+  /** The user's own unit for wind (kept apart from the display units). */
+  windUnits: WindUnits;
   onCancel(): void;
   onStart(start: { reason: InspectionReason; windSpeedMps: number | null }): void;
 }
 
 /** Why this walk, and the wind now (for the drift of every finding). */
-export function StartInspectionSheet({ isOpen, scaffoldReference, units, onCancel, onStart }: StartInspectionSheetProps) {
+export function StartInspectionSheet({ isOpen, scaffoldReference, windUnits, onCancel, onStart }: StartInspectionSheetProps) {
   const [reason, setReason] = useState<InspectionReason>('scheduled');
   const [windText, setWindText] = useState('');
-  const wind = windText.trim() === '' ? null : parseQuantity('wind', windText, units);
+  const wind = windText.trim() === '' ? null : parseWind(windText, windUnits);
   const windError =
-    wind === undefined ? 'Enter a number, or leave it empty.' : wind !== null && (wind < 0 || wind > LIMITS.windMaxMps) ? `Between 0 and ${LIMITS.windMaxMps} m/s.` : undefined;
+    wind === undefined ? 'Enter a number, or leave it empty.' : wind !== null && (wind < 0 || wind > LIMITS.windMaxMps) ? `Between 0 and ${formatWind(LIMITS.windMaxMps, windUnits)}.` : undefined;
 
   return (
     <Sheet
@@ -50,7 +51,7 @@ export function StartInspectionSheet({ isOpen, scaffoldReference, units, onCance
         />
         <NumberField
           label="Wind speed now"
-          unit={unitLabel('wind', units)}
+          unit={windUnitLabel(windUnits)}
           value={windText}
           onChange={setWindText}
           error={windError}

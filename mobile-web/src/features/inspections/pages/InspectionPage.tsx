@@ -7,12 +7,12 @@ import { AppHeader } from '../../../components/AppHeader';
 import { CautionNote } from '../../../components/CautionNote';
 import { TabBar } from '../../../components/TabBar';
 import { RequireSession } from '../../auth/components/RequireSession';
-import { useUnits } from '../../auth/session.queries';
+import { useUnits, useWindUnits } from '../../auth/session.queries';
 import { FindingRow } from '../../findings/components/FindingRow';
 import { useFindingsOfInspection, useFindingsOfScaffold } from '../../findings/findings.queries';
 import { ScaffoldElevations } from '../../scaffolds/components/ScaffoldElevations';
 import { useScaffold } from '../../scaffolds/scaffolds.queries';
-import { formatQuantity } from '../../../lib/units';
+import { formatWind } from '../../../lib/units';
 import { ControlCheckList } from '../components/ControlCheckList';
 import { REASON_WORDS } from '../inspection-words';
 import { useControlChecks, useInspection } from '../inspections.queries';
@@ -23,6 +23,7 @@ export function InspectionPage() {
   const { inspectionId } = useParams();
   const router = useIonRouter();
   const units = useUnits();
+  const windUnits = useWindUnits();
   const inspection = useInspection(inspectionId);
   const scaffold = useScaffold(inspection?.scaffoldId);
   const scaffoldFindings = useFindingsOfScaffold(inspection?.scaffoldId);
@@ -55,7 +56,7 @@ export function InspectionPage() {
               {inspection && (
                 <p className="muted" data-testid="inspection-summary">
                   {REASON_WORDS[inspection.reason].label} · started {formatDateTime(inspection.startedAt)}
-                  {inspection.windSpeedMps !== null ? ` · wind ${formatQuantity('wind', inspection.windSpeedMps, units)}` : ' · wind not measured'}
+                  {inspection.windSpeedMps !== null ? ` · wind ${formatWind(inspection.windSpeedMps, windUnits)}` : ' · wind not measured'}
                   {finished ? ` · finished ${formatDateTime(inspection.finishedAt)} by ${inspection.reporterName}` : ''}
                 </p>
               )}

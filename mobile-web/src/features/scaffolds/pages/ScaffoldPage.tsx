@@ -5,7 +5,7 @@ import { formatDate, formatDateTime, isPast } from '../../../lib/format-date';
 import { AppHeader } from '../../../components/AppHeader';
 import { CautionNote } from '../../../components/CautionNote';
 import { RequireSession } from '../../auth/components/RequireSession';
-import { useUnits } from '../../auth/session.queries';
+import { useUnits, useWindUnits } from '../../auth/session.queries';
 import { useFindingsOfScaffold } from '../../findings/findings.queries';
 import { StartInspectionSheet } from '../../inspections/components/StartInspectionSheet';
 import { useInspectionInProgress } from '../../inspections/inspections.queries';
@@ -19,6 +19,7 @@ export function ScaffoldPage() {
   const { scaffoldId } = useParams();
   const router = useIonRouter();
   const units = useUnits();
+  const windUnits = useWindUnits();
   const scaffold = useScaffold(scaffoldId);
   const findings = useFindingsOfScaffold(scaffoldId);
   const walk = useInspectionInProgress(scaffoldId);
@@ -55,7 +56,7 @@ export function ScaffoldPage() {
                   <StartInspectionSheet
                     isOpen={starting}
                     scaffoldReference={scaffold.reference}
-                    units={units}
+                    windUnits={windUnits}
                     onCancel={() => setStarting(false)}
                     onStart={({ reason, windSpeedMps }) =>
                       start.mutate(

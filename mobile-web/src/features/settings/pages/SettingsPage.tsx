@@ -12,15 +12,17 @@ import { useSignOutMutation } from '../../auth/auth.mutations';
 import { RequireSession } from '../../auth/components/RequireSession';
 import { SessionNote } from '../../auth/components/SessionNote';
 import { STORAGE_REPORT_KEY } from '../../sites/sites.mutations';
-import { useChangeUnitsMutation } from '../settings.mutations';
+import { useChangeUnitsMutation, useChangeWindUnitsMutation } from '../settings.mutations';
 import { signOutWarning } from '../sign-out-warning';
-import type { Units } from '../../../lib/units';
+import { defaultWindUnitsFor } from '@plummet/shared';
+import type { Units, WindUnits } from '../../../lib/units';
 
 export function SettingsPage() {
   const router = useIonRouter();
   const [confirming, setConfirming] = useState(false);
   const waiting = useWaitingChangeCount() ?? 0;
   const changeUnits = useChangeUnitsMutation();
+  const changeWindUnits = useChangeWindUnitsMutation();
   const signOut = useSignOutMutation();
   const storage = useLiveQuery(async () => {
     const last = await readMeta<StorageReport>(db, STORAGE_REPORT_KEY);
@@ -48,6 +50,19 @@ export function SettingsPage() {
                       { value: 'imperial', label: 'Imperial', hint: 'lb, ft, mph, ft·lbf, lbf' },
                     ]}
                     testId="units"
+                  />
+                  {/* Its own choice: UK sites give wind in mph while measuring in metres. */}
+                  <ChoiceGroup<WindUnits>
+                    legend="Wind speed in"
+                    layout="stack"
+                    value={session.user.windUnits ?? defaultWindUnitsFor(session.user.units)}
+                    onChange={(windUnits) => changeWindUnits.mutate(windUnits)}
+                    choices={[
+                      { value: 'mps', label: 'Metres per second', hint: 'm/s' },
+                      { value: 'kmh', label: 'Kilometres per hour', hint: 'km/h' },
+                      { value: 'mph', label: 'Miles per hour', hint: 'mph' },
+                    ]}
+                    testId="wind-units"
                   />
                   <p className="muted">Values are always stored in SI; this only changes what you see and type.</p>
                 </FormSection>
