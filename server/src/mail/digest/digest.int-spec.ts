@@ -13,6 +13,8 @@ const HOUR = 3600_000;
 const BEFORE_NY_SIX = new Date('2026-03-10T09:30:00Z');
 const NY_SIX = new Date('2026-03-10T10:00:00Z');
 
+/** Compares across the plain-text part's word wrapping. */
+const flat = (text: string) => text.replace(/\s+/g, ' ');
 const addresses = (m: Awaited<ReturnType<typeof parseEml>>) => (m.to && !Array.isArray(m.to) ? m.to.value.map((a) => a.address) : []);
 
 describe('the daily digest to managers and foremen', () => {
@@ -78,24 +80,24 @@ describe('the daily digest to managers and foremen', () => {
 
     const manager = byTo.get('ny-manager@example.test')!;
     expect(manager.subject).toBe('Daily digest · Hudson Test Builders · 2026-03-10 · 1 overdue fix · 2 inspections due');
-    const text = manager.text!;
+    const text = flat(manager.text!);
     // Alder Street: High 1 (open), Medium 2 (made safe + open), the verified Low and the archived scaffold not counted.
-    expect(text).toContain('== Alder Street <North> ==\nOpen findings by band: High 1, Medium 2, Low 0');
-    expect(text).toContain('Overdue fixes (1):\n- [High] Unpinned board <edge> on scaffold A1, due 10 Mar 2026, 04:00 (America/New_York)');
-    expect(text).toContain('Scaffolds due for inspection today or overdue (2):\n- Scaffold A2: overdue since 9 Mar 2026, 11:00 (America/New_York)\n- Scaffold A1: due 10 Mar 2026, 14:00 (America/New_York)');
+    expect(text).toContain('== Alder Street <North> == Open findings by band: High 1, Medium 2, Low 0');
+    expect(text).toContain('Overdue fixes (1): - [High] Unpinned board <edge> on scaffold A1, due 10 Mar 2026, 04:00 (America/New_York)');
+    expect(text).toContain('Scaffolds due for inspection today or overdue (2): - Scaffold A2: overdue since 9 Mar 2026, 11:00 (America/New_York) - Scaffold A1: due 10 Mar 2026, 14:00 (America/New_York)');
     // Birch Yard: one open Low; the fixed High is not open; B1 is due in three days.
-    expect(text).toContain('== Birch Yard ==\nOpen findings by band: High 0, Medium 0, Low 1\nOverdue fixes (0):\n  None.\nScaffolds due for inspection today or overdue (0):');
+    expect(text).toContain('== Birch Yard == Open findings by band: High 0, Medium 0, Low 1 Overdue fixes (0): None. Scaffolds due for inspection today or overdue (0):');
     expect(text.indexOf('== Alder Street')).toBeLessThan(text.indexOf('== Birch Yard'));
     expect(text).not.toContain('Archived item');
-    expect(text.replace(/\s+/g, ' ')).toContain(CAUTION_TEXT.replace(/\s+/g, ' '));
+    expect(text).toContain(flat(CAUTION_TEXT));
     expect(manager.html).toContain('Alder Street &lt;North&gt;');
     expect(manager.html).toContain('Unpinned board &lt;edge&gt;');
     expect(manager.html).not.toContain('<North>');
 
-    const foreman = byTo.get('ny-foreman@example.test')!.text!;
+    const foreman = flat(byTo.get('ny-foreman@example.test')!.text!);
     // Their scaffold A1 (High open, Medium made safe) and the Medium assigned to them on A2; only A1 is theirs to inspect.
     expect(foreman).toContain('Open findings by band: High 1, Medium 2, Low 0');
-    expect(foreman).toContain('Scaffolds due for inspection today or overdue (1):\n- Scaffold A1: due');
+    expect(foreman).toContain('Scaffolds due for inspection today or overdue (1): - Scaffold A1: due');
     expect(foreman).not.toContain('Birch Yard');
     expect(foreman).not.toContain('Scaffold A2');
   });
