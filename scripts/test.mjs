@@ -78,6 +78,8 @@ async function main() {
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(fakes.smtpPort),
     MAIL_DIR: join(tmp, 'mail'),
+    // No digest schedule in tests: a tick at a quarter hour would add digests to other tests' mail.
+    DIGEST_CRON: '',
     S3_ENDPOINT: fakes.s3Endpoint,
     S3_BUCKET: bucket,
     CHROMIUM_PATH: CHROMIUM,

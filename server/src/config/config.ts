@@ -62,6 +62,12 @@ export const ConfigSchema = z.object({
   MAIL_RETRY_DELAY_S: z.coerce.number().int().min(1).max(3600).default(10),
   /** How often an idle worker looks for new mail jobs (pg-boss minimum 0.5 s). */
   MAIL_POLL_S: z.coerce.number().min(0.5).max(60).default(2),
+  /**
+   * pg-boss cron of the daily digest's tick (every 15 min: a digest hour is met within 15 min in
+   * every time zone, half-hour ones included). Empty: this process schedules nothing (the tests
+   * run the tick by hand with a chosen clock).
+   */
+  DIGEST_CRON: z.string().default('*/15 * * * *'),
   S3_ENDPOINT: z.string().url().optional(),
   S3_REGION: z.string().default('us-east-1'),
   S3_BUCKET: z.string().min(3).default('plummet-photos'),

@@ -1,5 +1,7 @@
 import { Global, Module } from '@nestjs/common';
 import { ReportsModule } from '../reports/reports.module.js';
+import { DigestRepository } from './digest/digest.repository.js';
+import { DigestService } from './digest/digest.service.js';
 import { AssignmentMailSender } from './assignment-mail.sender.js';
 import { MailBoxService } from './mail-box.service.js';
 import { MailJobsController } from './mail-jobs.controller.js';
@@ -16,7 +18,7 @@ import { ReportSendController } from './report-send.controller.js';
 @Module({
   imports: [ReportsModule],
   controllers: [MailController, MailJobsController, ReportSendController],
-  providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository],
+  providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository, DigestRepository, DigestService],
   exports: [MailService, ReportMailQueue],
 })
 export class MailModule {}

@@ -7,7 +7,7 @@ import { MailJobsService } from './queue/mail-jobs.service.js';
 import { transactionDb } from './queue/transaction-db.js';
 
 /** A stable job id per purpose and record: the same finish committed twice cannot queue two jobs. */
-function jobIdFor(purpose: string, ...keys: string[]): string {
+export function jobIdFor(purpose: string, ...keys: string[]): string {
   const hex = createHash('sha256').update([purpose, ...keys].join(':')).digest('hex');
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-5${hex.slice(13, 16)}-a${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
 }

@@ -1,7 +1,7 @@
 import { CAUTION_TEXT, scaffoldStatusWords } from '@plummet/shared';
 import PDFDocument from 'pdfkit';
 import { byRisk, type ReportData } from './report-data.js';
-import { REPORT_FONTS } from './report-fonts.js';
+import { reportFont } from './report-fonts.js';
 import { dateTime, findingFacts } from './report-format.js';
 import type { ReportPhoto } from './report-photos.js';
 import { schedule7Fields } from './schedule7.js';
@@ -21,9 +21,8 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
   const units = data.organisation.settings.defaultUnits;
   const tz = data.organisation.settings.timeZone;
   const doc = new PDFDocument({ size: 'A4', margin: MARGIN, bufferPages: true, info: { Title: reportTitle(), Author: data.organisation.name, Creator: 'Plummet' } });
-  doc.registerFont('regular', REPORT_FONTS.regular);
-  doc.registerFont('semibold', REPORT_FONTS.semibold);
-  doc.registerFont('bold', REPORT_FONTS.bold);
+  // Parsed fonts shared across reports (pdfkit takes a fontkit font; its types know only paths and buffers).
+  for (const name of ['regular', 'semibold', 'bold'] as const) doc.registerFont(name, reportFont(name) as unknown as string);
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve, reject) => {

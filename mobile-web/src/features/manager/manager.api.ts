@@ -7,6 +7,7 @@ import {
   PeopleSchema,
   OverviewSchema,
   PhotoListSchema,
+  ReportSendResponseSchema,
   type Photo,
   ScaffoldListResponseSchema,
   ScaffoldReportsSchema,
@@ -131,4 +132,23 @@ export async function openInspectionReport(inspectionId: string): Promise<Report
   window.open(url, '_blank', 'noopener');
   setTimeout(() => URL.revokeObjectURL(url), 60_000);
   return { kind: 'pdf' };
+}
+
+/** Downloads an inspection's PDF report: the route needs the bearer token, so it is fetched and saved from a blob. */
+export async function downloadInspectionReport(inspectionId: string, fileName: string): Promise<void> {
+  const response = await fetchWithAccessToken()(`/api/inspections/${inspectionId}/report.pdf`);
+  if (!response.ok) throw new ApiError(response.status, 'REPORT_FAILED', 'The PDF could not be downloaded; try again.');
+  const url = URL.createObjectURL(await response.blob());
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 60_000);
+}
+
+/** Queues the report e-mail again to the site's managers; answers the queued job's id. */
+export async function sendInspectionReportAgain(inspectionId: string): Promise<string> {
+  return ReportSendResponseSchema.parse(await authorisedFetch(`/inspections/${inspectionId}/report/send`, { method: 'POST' })).jobId;
 }

@@ -7,3 +7,4 @@ export * from './catalogue.table.js';
 export * from './findings.table.js';
 export * from './photos.table.js';
 export * from './sync.table.js';
+export * from './digests.table.js';

@@ -6,6 +6,8 @@ export const MAIL_QUEUES = {
   report: 'mail-inspection-report',
   assignment: 'mail-finding-assignment',
   digest: 'mail-daily-digest',
+  /** The schedule's tick: finds organisations whose digest hour has come and queues their digests. */
+  digestTick: 'mail-digest-tick',
 } as const;
 export type MailQueueName = (typeof MAIL_QUEUES)[keyof typeof MAIL_QUEUES];
 

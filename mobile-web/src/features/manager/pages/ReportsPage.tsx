@@ -1,8 +1,9 @@
+import { useIonAlert, useIonToast } from '@ionic/react';
 import type { Inspection } from '@plummet/shared';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
-import { openInspectionReport } from '../manager.api';
+import { downloadInspectionReport, openInspectionReport, sendInspectionReportAgain } from '../manager.api';
 import { useScaffoldReports, useScaffolds, useSites } from '../manager.queries';
 
 const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'Not finished');
@@ -19,6 +20,8 @@ export function ReportsPage() {
   const reports = useScaffoldReports(scaffoldId);
   const [record, setRecord] = useState<Inspection | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+  const [presentAlert] = useIonAlert();
+  const [presentToast] = useIonToast();
   const now = Date.now();
   const endOfDay = new Date().setHours(24, 0, 0, 0);
   const shown = (scaffolds.data ?? []).filter((s) => {
@@ -45,6 +48,34 @@ export function ReportsPage() {
     } catch (error) {
       setMessage(error instanceof Error ? error.message : 'The report could not be opened.');
     }
+  }
+
+  async function download(inspectionId: string, reference: string) {
+    setMessage(null);
+    try {
+      await downloadInspectionReport(inspectionId, `inspection-report-${reference.replace(/[^A-Za-z0-9-]+/g, '_')}.pdf`);
+    } catch (error) {
+      setMessage(error instanceof Error ? error.message : 'The PDF could not be downloaded.');
+    }
+  }
+
+  function sendAgain(inspectionId: string) {
+    void presentAlert({
+      header: 'Send the report again?',
+      message: 'The site’s managers get the findings e-mail with the PDF once more.',
+      buttons: [
+        { text: 'Cancel', role: 'cancel' },
+        {
+          text: 'Send again',
+          handler: () => {
+            sendInspectionReportAgain(inspectionId).then(
+              () => void presentToast({ message: 'Report queued: the managers get it in a few minutes.', duration: 3000, position: 'bottom' }),
+              (error: unknown) => void presentToast({ message: error instanceof Error ? error.message : 'The report could not be sent.', duration: 4000, position: 'bottom', color: 'danger' }),
+            );
+          },
+        },
+      ],
+    });
   }
 
   const filters = [siteId && sites.data?.find((s) => s.id === siteId)?.name, status && `tagged “${status}”`, due === 'today' && 'inspection due today', due === 'overdue' && 'inspection overdue'].filter(Boolean);
@@ -108,7 +139,17 @@ export function ReportsPage() {
                   <td>
                     <button type="button" className="manager-button manager-button--plain" onClick={() => void open(r.inspectionId)}>
                       PDF
-                    </button>
+                    </button>{' '}
+                    {r.finishedAt && (
+                      <>
+                        <button type="button" className="manager-button manager-button--plain" onClick={() => void download(r.inspectionId, reports.data?.scaffoldReference ?? 'scaffold')}>
+                          Download PDF
+                        </button>{' '}
+                        <button type="button" className="manager-button manager-button--plain" onClick={() => sendAgain(r.inspectionId)}>
+                          Send again
+                        </button>
+                      </>
+                    )}
                   </td>
                 </tr>
               ))}
