@@ -17,6 +17,6 @@ import { ReportSendController } from './report-send.controller.js';
   imports: [ReportsModule],
   controllers: [MailController, MailJobsController, ReportSendController],
   providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository],
-  exports: [MailService, ReportMailQueue],
+  exports: [MailService, ReportMailQueue, MailJobsService],
 })
 export class MailModule {}
