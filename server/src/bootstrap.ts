@@ -7,6 +7,7 @@ import type { Express, NextFunction, Request, Response } from 'express';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
 import { cleanupOpenApiDoc } from 'nestjs-zod';
+import { finishOpenApiDoc } from './common/openapi-finish.js';
 import { AppModule } from './app.module.js';
 import { toErrorBody } from './common/error-body.js';
 import { type AppConfig, loadConfig } from './config/config.js';
@@ -46,7 +47,7 @@ export async function createApp(config: AppConfig = loadConfig()): Promise<NestE
     .setVersion('0.1.0')
     .addBearerAuth()
     .build();
-  SwaggerModule.setup('api/docs', app, () => cleanupOpenApiDoc(SwaggerModule.createDocument(app, openApi)), {
+  SwaggerModule.setup('api/docs', app, () => finishOpenApiDoc(cleanupOpenApiDoc(SwaggerModule.createDocument(app, openApi))), {
     jsonDocumentUrl: 'api/docs/openapi.json',
   });
 

@@ -1,5 +1,7 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { MailJobsService } from '../mail/queue/mail-jobs.service.js';
+import { HOUSEKEEPING_CRON, HOUSEKEEPING_QUEUE } from './housekeeping-queue.js';
 import { HousekeepingRepository } from './housekeeping.repository.js';
 
 export interface PurgeCounts {
@@ -11,8 +13,7 @@ export interface PurgeCounts {
 
 /**
  * The periodic purge. Safe to run from any replica at any time and more than once (each step is
- * one DELETE by age). Meant to be scheduled once a day through the job queue, so exactly one
- * replica runs it.
+ * one DELETE by age). Scheduled once a day through the job queue (pg-boss), so one replica runs it.
  */
 @Injectable()
 export class HousekeepingService {
@@ -21,7 +22,13 @@ export class HousekeepingService {
   constructor(
     private readonly repository: HousekeepingRepository,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
-  ) {}
+    jobs: MailJobsService,
+  ) {
+    jobs.handle(HOUSEKEEPING_QUEUE, async () => {
+      await this.purge();
+    });
+    jobs.scheduleDaily(HOUSEKEEPING_QUEUE, HOUSEKEEPING_CRON);
+  }
 
   async purge(): Promise<PurgeCounts> {
     const counts: PurgeCounts = {

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, isNotNull, isNull, type SQL, sql } from 'drizzle-orm';
 import type { Control, ControlCheckPut, InspectionListQuery } from '@plummet/shared';
+import { scaffoldInScope } from '../common/foreman-scope.js';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { controlChecks, inspections, scaffolds } from '../db/schema/index.js';
@@ -20,9 +21,11 @@ export type InspectionChanges = Partial<Omit<InspectionInsert, 'id' | 'organisat
 export class InspectionsRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
-  async list(organisationId: string, query: InspectionListQuery, executor: DbExecutor = this.db) {
+  /** A page of the organisation's inspections; with `foremanId`, only those of that foreman's scaffolds. */
+  async list(organisationId: string, query: InspectionListQuery, foremanId?: string, executor: DbExecutor = this.db) {
     const page = keyset(SORTS[query.sort], inspections.id, query);
     const where: (SQL | undefined)[] = [eq(inspections.organisationId, organisationId), page.after];
+    if (foremanId) where.push(scaffoldInScope(inspections.scaffoldId, foremanId));
     if (query.scaffoldId) where.push(eq(inspections.scaffoldId, query.scaffoldId));
     if (query.siteId) {
       where.push(

@@ -15,6 +15,7 @@ import {
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { scopedForeman } from '../common/foreman-scope.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { ReportMailQueue } from '../mail/report-mail.queue.js';
@@ -52,7 +53,7 @@ export class InspectionsService {
   ) {}
 
   async list(user: AuthUser, query: InspectionListQuery): Promise<ListResponse<Inspection>> {
-    const rows = await this.inspections.list(user.organisationId, query);
+    const rows = await this.inspections.list(user.organisationId, query, scopedForeman(user));
     return toPage(
       rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
       query,
@@ -62,7 +63,8 @@ export class InspectionsService {
 
   async get(user: AuthUser, id: string): Promise<InspectionDetail> {
     const row = await this.inspections.find(user.organisationId, id);
-    if (!row) throw AppError.notFound('Inspection');
+    const foremanId = scopedForeman(user);
+    if (!row || (foremanId && !(await this.scaffolds.inForemanScope(row.scaffoldId, foremanId)))) throw AppError.notFound('Inspection');
     const checks = await this.inspections.controlChecks(id);
     return { ...toInspection(row), controlChecks: checks.map(toControlCheck) };
   }

@@ -19,6 +19,6 @@ import { ReportSendController } from './report-send.controller.js';
   imports: [ReportsModule],
   controllers: [MailController, MailJobsController, ReportSendController],
   providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository, DigestRepository, DigestService],
-  exports: [MailService, ReportMailQueue],
+  exports: [MailService, ReportMailQueue, MailJobsService],
 })
 export class MailModule {}

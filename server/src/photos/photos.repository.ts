@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, count, eq, sql } from 'drizzle-orm';
 import type { PhotoOwnerType } from '@plummet/shared';
+import { photoInScope } from '../common/foreman-scope.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import {
   auditEvents,
@@ -51,11 +52,14 @@ export class PhotosRepository {
     await ex.execute(sql`SELECT pg_advisory_xact_lock(${CONTENT_LOCK_SPACE}, hashtext(${contentHash}))`);
   }
 
-  async findById(organisationId: string, id: string, ex: DbExecutor = this.db): Promise<PhotoRow | undefined> {
+  /** The organisation's photo; with `foremanId`, only if it is in that foreman's scope. */
+  async findById(organisationId: string, id: string, ex: DbExecutor = this.db, foremanId?: string): Promise<PhotoRow | undefined> {
     const [row] = await ex
       .select()
       .from(photos)
-      .where(and(eq(photos.id, id), eq(photos.organisationId, organisationId)));
+      .where(
+        and(eq(photos.id, id), eq(photos.organisationId, organisationId), foremanId ? photoInScope(photos.ownerType, photos.ownerId, foremanId) : undefined),
+      );
     return row;
   }
 
@@ -65,11 +69,19 @@ export class PhotosRepository {
     return row;
   }
 
-  listByOwner(organisationId: string, ownerType: PhotoOwnerType, ownerId: string): Promise<PhotoRow[]> {
+  /** The owner's photos; with `foremanId`, only if the owner is in that foreman's scope. */
+  listByOwner(organisationId: string, ownerType: PhotoOwnerType, ownerId: string, foremanId?: string): Promise<PhotoRow[]> {
     return this.db
       .select()
       .from(photos)
-      .where(and(eq(photos.organisationId, organisationId), eq(photos.ownerType, ownerType), eq(photos.ownerId, ownerId)))
+      .where(
+        and(
+          eq(photos.organisationId, organisationId),
+          eq(photos.ownerType, ownerType),
+          eq(photos.ownerId, ownerId),
+          foremanId ? photoInScope(photos.ownerType, photos.ownerId, foremanId) : undefined,
+        ),
+      )
       .orderBy(asc(photos.createdAt), asc(photos.id));
   }
 

@@ -2,6 +2,7 @@ import { Injectable, Logger } from '@nestjs/common';
 import { PHOTO_STORED_MEDIA_TYPE, type Photo, type PhotoListQuery, type PhotoOwnerType, type PhotoUpload } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { scopedForeman } from '../common/foreman-scope.js';
 import { ObjectStorage, type StoredObject } from '../storage/object-storage.service.js';
 import { keepsPhotoLocation, mayAttachPhoto, mayDeletePhoto } from './photo-access.js';
 import { detectImageType, processPhoto } from './photo-image.js';
@@ -98,13 +99,13 @@ export class PhotosService {
 
   async list(user: AuthUser, query: PhotoListQuery): Promise<Photo[]> {
     await this.owner(user, query.ownerType, query.ownerId);
-    const rows = await this.photos.listByOwner(user.organisationId, query.ownerType, query.ownerId);
+    const rows = await this.photos.listByOwner(user.organisationId, query.ownerType, query.ownerId, scopedForeman(user));
     return rows.map(toPhoto);
   }
 
   /** The photo's row in the caller's organisation; 404 for an unknown or another organisation's id. */
   async get(user: AuthUser, id: string): Promise<PhotoRow> {
-    const row = await this.photos.findById(user.organisationId, id);
+    const row = await this.photos.findById(user.organisationId, id, undefined, scopedForeman(user));
     if (!row) throw AppError.notFound('Photo');
     return row;
   }

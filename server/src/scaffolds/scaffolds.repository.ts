@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, inArray, isNotNull, lt, type SQL, sql } from 'drizzle-orm';
 import type { ScaffoldCreate, ScaffoldListQuery, ScaffoldStatus, ScaffoldUpdate } from '@plummet/shared';
+import { scaffoldInScope } from '../common/foreman-scope.js';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { memberships, scaffolds, sites } from '../db/schema/index.js';
@@ -24,9 +25,11 @@ export interface ScaffoldWithSite {
 export class ScaffoldsRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
-  async list(organisationId: string, query: ScaffoldListQuery, executor: DbExecutor = this.db) {
+  /** A page of the organisation's scaffolds; with `foremanId`, only that foreman's scope. */
+  async list(organisationId: string, query: ScaffoldListQuery, foremanId?: string, executor: DbExecutor = this.db) {
     const page = keyset(SORTS[query.sort], scaffolds.id, query);
     const where: (SQL | undefined)[] = [eq(scaffolds.organisationId, organisationId), page.after];
+    if (foremanId) where.push(scaffoldInScope(scaffolds.id, foremanId));
     if (query.siteId) where.push(eq(scaffolds.siteId, query.siteId));
     if (query.status) where.push(inArray(scaffolds.status, query.status));
     if (query.foremanId) where.push(eq(scaffolds.foremanId, query.foremanId));
@@ -47,6 +50,12 @@ export class ScaffoldsRepository {
       .where(and(eq(scaffolds.id, id), eq(scaffolds.organisationId, organisationId)));
     const [row] = forUpdate ? await q.for('update') : await q;
     return row;
+  }
+
+  /** Whether the scaffold is in the foreman's scope. */
+  async inForemanScope(scaffoldId: string, foremanId: string, executor: DbExecutor = this.db): Promise<boolean> {
+    const result = await executor.execute<{ ok: boolean }>(sql`select ${scaffoldInScope(sql`${scaffoldId}::uuid`, foremanId)} as ok`);
+    return result.rows[0]?.ok === true;
   }
 
   async findWithSite(organisationId: string, id: string, executor: DbExecutor = this.db): Promise<ScaffoldWithSite | undefined> {

@@ -10,6 +10,7 @@ import type {
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { scopedForeman } from '../common/foreman-scope.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { SitesRepository } from '../sites/sites.repository.js';
@@ -26,7 +27,7 @@ export class ScaffoldsService {
   ) {}
 
   async list(user: AuthUser, query: ScaffoldListQuery): Promise<ListResponse<Scaffold>> {
-    const rows = await this.scaffolds.list(user.organisationId, query);
+    const rows = await this.scaffolds.list(user.organisationId, query, scopedForeman(user));
     return toPage(
       rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
       query,
@@ -36,7 +37,8 @@ export class ScaffoldsService {
 
   async get(user: AuthUser, id: string): Promise<Scaffold> {
     const row = await this.scaffolds.find(user.organisationId, id);
-    if (!row) throw AppError.notFound('Scaffold');
+    const foremanId = scopedForeman(user);
+    if (!row || (foremanId && !(await this.scaffolds.inForemanScope(id, foremanId)))) throw AppError.notFound('Scaffold');
     return toScaffold(row);
   }
 

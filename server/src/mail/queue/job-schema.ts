@@ -1,5 +1,6 @@
 import PgBoss from 'pg-boss';
 import type pg from 'pg';
+import { HOUSEKEEPING_QUEUE } from '../../housekeeping/housekeeping-queue.js';
 
 /** The queues the mail feature uses; created with the schema so every database copy has them. */
 export const MAIL_QUEUES = {
@@ -10,6 +11,9 @@ export const MAIL_QUEUES = {
   digestTick: 'mail-digest-tick',
 } as const;
 export type MailQueueName = (typeof MAIL_QUEUES)[keyof typeof MAIL_QUEUES];
+/** Every queue of this app: the mail queues and the daily purge. */
+export const JOB_QUEUES = [...Object.values(MAIL_QUEUES), HOUSEKEEPING_QUEUE] as const;
+export type JobQueueName = (typeof JOB_QUEUES)[number];
 
 /**
  * Retries with exponential backoff (pg-boss doubles the delay each time). The defaults, 6 retries
@@ -34,7 +38,7 @@ export async function ensureJobSchema(client: pg.PoolClient): Promise<void> {
   boss.on('error', () => undefined);
   await boss.start();
   try {
-    for (const name of Object.values(MAIL_QUEUES)) {
+    for (const name of JOB_QUEUES) {
       if (!(await boss.getQueue(name))) await boss.createQueue(name, { name, policy: 'standard' });
     }
   } finally {

@@ -1,7 +1,7 @@
 import { Inject, Injectable, Logger, type OnApplicationShutdown, type OnModuleInit } from '@nestjs/common';
 import PgBoss from 'pg-boss';
 import { APP_CONFIG, type AppConfig } from '../../config/config.js';
-import { MAIL_QUEUES, type MailQueueName } from './job-schema.js';
+import { type JobQueueName, MAIL_QUEUES } from './job-schema.js';
 
 export type MailJobHandler = (data: Record<string, unknown>) => Promise<void>;
 
@@ -13,14 +13,20 @@ export type MailJobHandler = (data: Record<string, unknown>) => Promise<void>;
 @Injectable()
 export class MailJobsService implements OnModuleInit, OnApplicationShutdown {
   private readonly logger = new Logger(MailJobsService.name);
-  private readonly handlers = new Map<MailQueueName, MailJobHandler>();
+  private readonly handlers = new Map<JobQueueName, MailJobHandler>();
+  private readonly schedules = new Map<JobQueueName, string>();
   private boss: PgBoss | null = null;
 
   constructor(@Inject(APP_CONFIG) private readonly config: AppConfig) {}
 
   /** Registered by the mail features at construction; workers start once the module is ready. */
-  handle(queue: MailQueueName, handler: MailJobHandler): void {
+  handle(queue: JobQueueName, handler: MailJobHandler): void {
     this.handlers.set(queue, handler);
+  }
+
+  /** A recurring job (cron, UTC), stored by pg-boss in PostgreSQL once for all replicas. */
+  scheduleDaily(queue: JobQueueName, cron: string): void {
+    this.schedules.set(queue, cron);
   }
 
   async onModuleInit(): Promise<void> {
@@ -28,6 +34,8 @@ export class MailJobsService implements OnModuleInit, OnApplicationShutdown {
     boss.on('error', (error) => this.logger.warn(`job queue: ${error.message}`));
     await boss.start();
     this.boss = boss;
+    // Upserts: every replica may set the same schedule, pg-boss keeps one row per queue.
+    for (const [queue, cron] of this.schedules) await boss.schedule(queue, cron, {}, { tz: 'UTC' });
     if (!this.config.MAIL_WORKERS) return;
     for (const [queue, handler] of this.handlers) {
       await boss.work<Record<string, unknown>>(queue, { pollingIntervalSeconds: this.config.MAIL_POLL_S, batchSize: 1 }, async ([job]) => {
