@@ -1,9 +1,8 @@
 import 'fake-indexeddb/auto';
-import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
 import { PlummetDb, readMeta, writeMeta } from './db';
 import type { OutboxEntry } from './records';
-import { sampleFinding } from './testing';
+import { openVersion1Database, sampleFinding } from './testing';
 
 const openDbs: PlummetDb[] = [];
 
@@ -66,18 +65,7 @@ describe('PlummetDb', () => {
 
   it('upgrades a phone still on version 1 without losing its findings or waiting changes', async () => {
     const name = `plummet-test-${crypto.randomUUID()}`;
-    const old = new Dexie(name);
-    old.version(1).stores({
-      sites: 'id, organisationId, updatedAt',
-      scaffolds: 'id, siteId, updatedAt',
-      inspections: 'id, scaffoldId, siteId, status, startedAt, updatedAt',
-      findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state]',
-      controlChecks: 'id, inspectionId, [inspectionId+control]',
-      photos: 'id, [ownerType+ownerId], uploadedAt',
-      catalogue: 'id, category, *words',
-      outbox: '++id, [entity+entityId], createdAt',
-      meta: 'key',
-    });
+    const old = openVersion1Database(name);
     await old.table('findings').put({ ...finding, assigneeId: 'foreman-1' });
     await old.table('outbox').add(outboxEntry());
     old.close();

@@ -1,5 +1,6 @@
 /** Helpers for unit tests of the stores (with fake-indexeddb imported first). Not used by the app. */
 import type { Scaffold, Site, UserProfile } from '@plummet/shared';
+import Dexie from 'dexie';
 import { PlummetDb } from './db';
 import type { FindingRecord } from './records';
 
@@ -112,4 +113,24 @@ export function sampleFinding(overrides: Partial<FindingRecord> = {}): FindingRe
     version: 1,
     ...overrides,
   };
+}
+
+/**
+ * The phone database exactly as the first release laid it out (written out here, not taken from
+ * db.ts, so an upgrade test keeps testing what phones in the field really hold).
+ */
+export function openVersion1Database(name: string): Dexie {
+  const v1 = new Dexie(name);
+  v1.version(1).stores({
+    sites: 'id, organisationId, updatedAt',
+    scaffolds: 'id, siteId, updatedAt',
+    inspections: 'id, scaffoldId, siteId, status, startedAt, updatedAt',
+    findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state]',
+    controlChecks: 'id, inspectionId, [inspectionId+control]',
+    photos: 'id, [ownerType+ownerId], uploadedAt',
+    catalogue: 'id, category, *words',
+    outbox: '++id, [entity+entityId], createdAt',
+    meta: 'key',
+  });
+  return v1;
 }

@@ -1,10 +1,9 @@
 import 'fake-indexeddb/auto';
 import type { SyncChange, SyncPullResponse } from '@plummet/shared';
-import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
 import { PlummetDb, readMeta } from '../local-db/db';
 import { enqueueChange } from '../local-db/outbox';
-import { dropTestDatabases, freshDb, inspector, ORG_ID, sampleFinding, scaffold, SCAFFOLD_ID, site, SITE_ID } from '../local-db/testing';
+import { dropTestDatabases, freshDb, inspector, openVersion1Database, ORG_ID, sampleFinding, scaffold, SCAFFOLD_ID, site, SITE_ID } from '../local-db/testing';
 import { applyPulledPage } from './sync-apply';
 import { SYNC_META } from './sync-state';
 
@@ -148,18 +147,7 @@ describe('applying a pulled page', () => {
 describe('the phone database upgrade', () => {
   it('keeps what version 1 held and adds the tables for fixes, verifications and photo metadata', async () => {
     const name = `plummet-upgrade-${crypto.randomUUID()}`;
-    const v1 = new Dexie(name);
-    v1.version(1).stores({
-      sites: 'id, organisationId, updatedAt',
-      scaffolds: 'id, siteId, updatedAt',
-      inspections: 'id, scaffoldId, siteId, status, startedAt, updatedAt',
-      findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state]',
-      controlChecks: 'id, inspectionId, [inspectionId+control]',
-      photos: 'id, [ownerType+ownerId], uploadedAt',
-      catalogue: 'id, category, *words',
-      outbox: '++id, [entity+entityId], createdAt',
-      meta: 'key',
-    });
+    const v1 = openVersion1Database(name);
     await v1.table('sites').put({ ...site, organisationId: ORG_ID });
     v1.close();
     const upgraded = new PlummetDb(name);
