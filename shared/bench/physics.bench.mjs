@@ -45,6 +45,58 @@ function bareEstimate(m, h, cdA) {
 }
 
 /**
+ * The bare arithmetic again, returning an object of the same size and nesting as assessDrop's result
+ * (the same fields, a severity, the resolved input and its contact; no validation, no defaults, no
+ * rating): the floor that building the full result sets, for reading the ratio above.
+ */
+const DEFAULTS = Object.freeze(['initialVelocityMps', 'airDensityKgM3', 'gravityMps2', 'windSpeedMps', 'exposure', 'contact']);
+function bareResult(m, h, cdA) {
+  const vt = Math.sqrt((2 * m * G) / (RHO * cdA));
+  const vt2 = vt * vt;
+  const s = (2 * G * h) / vt2;
+  const reached = -Math.expm1(-s);
+  const v = Math.sqrt(vt2 * reached);
+  const t = h / vt + (vt / G) * Math.log1p(v / vt);
+  const energy = 0.5 * m * v * v;
+  const duration = HALF_PI * Math.sqrt(m / SKULL_K);
+  const mean = (m * v) / duration;
+  const peak = mean * HALF_PI;
+  const vacuum = Math.sqrt(2 * G * h);
+  return {
+    terminalVelocityMps: vt,
+    impactVelocityMps: v,
+    vacuumImpactVelocityMps: vacuum,
+    fallTimeS: t,
+    riseM: 0,
+    impactEnergyJ: energy,
+    meanForceN: mean,
+    peakForceN: peak,
+    driftM: 0,
+    governingImpact: 'still-air',
+    stillAirImpactVelocityMps: v,
+    stillAirImpactEnergyJ: energy,
+    stillAirPeakForceN: peak,
+    windImpactVelocityMps: v,
+    windImpactEnergyJ: energy,
+    windPeakForceN: peak,
+    severity: { level: 1, label: 'Negligible', threshold: undefined, thresholds: DEFAULTS, exposure: 'bare-head', energyJ: energy, peakForceN: peak, words: undefined },
+    resolved: {
+      massKg: m,
+      heightM: h,
+      initialVelocityMps: 0,
+      dragAreaM2: cdA,
+      dragAreaSource: 'input',
+      airDensityKgM3: RHO,
+      gravityMps2: G,
+      windSpeedMps: 0,
+      exposure: 'bare-head',
+      contact: { durationS: duration, stoppingDistanceM: undefined, pulse: 'half-sine', presetId: 'hard-item-bare-head' },
+      defaultsApplied: DEFAULTS,
+    },
+  };
+}
+
+/**
  * Nanoseconds per call: the best of several rounds after JIT warm-up, timed on the CPU time of
  * this process (so other work on a shared machine inflates the figures less than wall time would).
  */
@@ -68,6 +120,14 @@ const bareNs = timeLoop('bare', N, (n) => {
   for (let i = 0; i < n; i++) {
     const x = stillInputs[i & (COUNT - 1)];
     acc += bareEstimate(x.massKg, x.heightM, x.dragAreaM2);
+  }
+  return acc;
+});
+const bareResultNs = timeLoop('bare with result objects', N, (n) => {
+  let acc = 0;
+  for (let i = 0; i < n; i++) {
+    const x = stillInputs[i & (COUNT - 1)];
+    acc += bareResult(x.massKg, x.heightM, x.dragAreaM2).impactEnergyJ;
   }
   return acc;
 });
@@ -102,6 +162,7 @@ console.log(`Node ${process.version}, one core (CPU time of this process), ${COU
 console.log(`still-air estimates (assessDrop, Cd·A given):  ${perSecond(stillNs)} /s  (${stillNs.toFixed(1)} ns each; goal ≥ 5,000,000 /s)`);
 console.log(`bare closed-form loop, same arithmetic:        ${perSecond(bareNs)} /s  (${bareNs.toFixed(1)} ns each)`);
 console.log(`ratio of rates, assessDrop / bare loop:        ${(bareNs / stillNs).toFixed(2)}  (${(stillNs / bareNs).toFixed(2)} × the time; goal ≥ 0.5)`);
+console.log(`bare loop building a result of the same shape: ${perSecond(bareResultNs)} /s  (${bareResultNs.toFixed(1)} ns each; ratio of rates to the bare loop ${(bareNs / bareResultNs).toFixed(2)}, assessDrop to it ${(bareResultNs / stillNs).toFixed(2)})`);
 console.log(`still-air estimates with a box shape:          ${perSecond(shapeNs)} /s  (${shapeNs.toFixed(1)} ns each)`);
 console.log(`drift estimates (assessDrop with wind):        ${perSecond(driftNs)} /s  (${(driftNs / 1000).toFixed(2)} µs each; goal ≤ 100 µs)`);
 console.log(`drift integration steps: mean ${(steps / COUNT).toFixed(1)}, worst ${worstSteps} (wind 1–25 m/s)`);

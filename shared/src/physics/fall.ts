@@ -41,7 +41,9 @@ export interface StillAirFall {
 /**
  * Writes the still-air fall into `out` (no allocation: the hot path of assessDrop reuses one
  * object). Inputs are SI and already validated: height > 0, gravity > 0, terminal speed > 0 or
- * Infinity; initial velocity positive downward, negative upward.
+ * Infinity; initial velocity positive downward, negative upward. The usual case (a drop or a
+ * downward throw with drag) is kept short so that the compiler can inline it into its caller; the
+ * rare ones (no drag, an upward toss) are separate functions.
  */
 export function stillAirFallInto(
   out: StillAirFall,
@@ -50,39 +52,44 @@ export function stillAirFallInto(
   terminal: number,
   gravity: number,
 ): StillAirFall {
-  if (terminal === Infinity) {
-    if (initialVelocity >= 0) {
-      const v = Math.sqrt(initialVelocity * initialVelocity + 2 * gravity * height);
-      out.speedMps = v;
-      out.timeS = (2 * height) / (v + initialVelocity);
-      out.riseM = 0;
-    } else {
-      const u = -initialVelocity;
-      const rise = (u * u) / (2 * gravity);
-      const v = Math.sqrt(u * u + 2 * gravity * height);
-      out.speedMps = v;
-      out.timeS = (u + v) / gravity;
-      out.riseM = rise;
-    }
-    return out;
-  }
+  if (terminal === Infinity) return vacuumFallInto(out, height, initialVelocity, gravity);
+  if (initialVelocity < 0) return tossFallInto(out, height, -initialVelocity, terminal, gravity);
   const vt = terminal;
   const vt2 = vt * vt;
+  const v0 = initialVelocity;
+  const s = (2 * gravity * height) / vt2;
+  // 1 − e^(−s), exact for small s; past s = 38 it rounds to 1 in double precision, and skipping the
+  // call avoids the slow underflow path of exp for long drops of light items.
+  const reached = s < 38 ? -Math.expm1(-s) : 1;
+  const carried = v0 === 0 || s > 745 ? 0 : v0 * v0 * Math.exp(-s); // share of the release speed left
+  const v = Math.sqrt(vt2 * reached + carried);
+  const gained = ((vt2 - v0 * v0) * reached) / (v + v0); // v − v0 without cancellation
+  out.speedMps = v;
+  out.timeS = height / vt + (vt / gravity) * Math.log1p(gained / (vt + v0));
+  out.riseM = 0;
+  return out;
+}
+
+/** No drag: v = √(v0² + 2gh); an upward toss rises u²/2g first. */
+function vacuumFallInto(out: StillAirFall, height: number, initialVelocity: number, gravity: number): StillAirFall {
   if (initialVelocity >= 0) {
-    const v0 = initialVelocity;
-    const s = (2 * gravity * height) / vt2;
-    // 1 − e^(−s), exact for small s; past s = 38 it rounds to 1 in double precision, and skipping the
-    // call avoids the slow underflow path of exp for long drops of light items.
-    const reached = s < 38 ? -Math.expm1(-s) : 1;
-    const carried = v0 === 0 || s > 745 ? 0 : v0 * v0 * Math.exp(-s); // share of the release speed left
-    const v = Math.sqrt(vt2 * reached + carried);
-    const gained = ((vt2 - v0 * v0) * reached) / (v + v0); // v − v0 without cancellation
+    const v = Math.sqrt(initialVelocity * initialVelocity + 2 * gravity * height);
     out.speedMps = v;
-    out.timeS = height / vt + (vt / gravity) * Math.log1p(gained / (vt + v0));
+    out.timeS = (2 * height) / (v + initialVelocity);
     out.riseM = 0;
-    return out;
+  } else {
+    const u = -initialVelocity;
+    const v = Math.sqrt(u * u + 2 * gravity * height);
+    out.speedMps = v;
+    out.timeS = (u + v) / gravity;
+    out.riseM = (u * u) / (2 * gravity);
   }
-  const u = -initialVelocity;
+  return out;
+}
+
+/** An upward toss at `u` m/s with drag: the rise to the apex, then a drop from rest of height + rise. */
+function tossFallInto(out: StillAirFall, height: number, u: number, vt: number, gravity: number): StillAirFall {
+  const vt2 = vt * vt;
   const ratio = u / vt;
   const rise = (vt2 / (2 * gravity)) * Math.log1p(ratio * ratio);
   const drop = height + rise;

@@ -78,7 +78,7 @@ describe('drop input validation', () => {
     );
     // Half the inputs carry wind and about nine in ten of those have drag: at least a third must drift.
     expect(drifted / runs).toBeGreaterThan(1 / 3);
-  });
+  }, 20_000); // 500 estimates, half of them integrating the drift: slow on a busy machine
 
   it('rejects every input with one bad field by a DropInputError naming that field', () => {
     const bad = fc.constantFrom<unknown>(Number.NaN, Infinity, -Infinity, -1, 'two', {});

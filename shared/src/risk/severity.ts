@@ -34,7 +34,8 @@ export class SeverityTableError extends Error {
 export const SEVERITY_RELATIVE_TOLERANCE = 1e-9;
 const REACH = 1 - SEVERITY_RELATIVE_TOLERANCE;
 
-const checkedTables = new WeakSet<SeverityTable>();
+/** Tables already checked, with their rating order. */
+const checkedTables = new WeakMap<SeverityTable, TableOrder>();
 
 /** A figure as the basis quotes it: three significant figures, J, N below 1 kN, kN above. */
 function formatQuantity(quantity: 'energy' | 'force', value: number): string {
@@ -66,22 +67,34 @@ function basisOf(
 
 /**
  * A rating: level and label at once, the basis in words when first read. JSON carries the three
- * fields (toJSON); code that copies a rating field by field reads `basis` like any property.
+ * fields (toJSON); code that copies a rating field by field reads `basis` like any property. The
+ * fields are assigned in the constructor only (no class-field definitions) and the shape is seeded
+ * with nulls below, for the reason given beside the estimate's own result objects (physics/assess.ts).
  */
 class RatedSeverity implements Severity {
-  readonly level: SeverityLevel;
-  readonly label: string;
-  private words: string | undefined;
+  declare readonly level: SeverityLevel;
+  declare readonly label: string;
+  declare private readonly threshold: SeverityThreshold | undefined;
+  declare private readonly thresholds: readonly SeverityThreshold[];
+  declare private readonly exposure: Exposure;
+  declare private readonly energyJ: number;
+  declare private readonly peakForceN: number;
+  declare private words: string | undefined;
 
   constructor(
-    private readonly threshold: SeverityThreshold | undefined,
-    private readonly thresholds: readonly SeverityThreshold[],
-    private readonly exposure: Exposure,
-    private readonly energyJ: number,
-    private readonly peakForceN: number,
+    threshold: SeverityThreshold | undefined,
+    thresholds: readonly SeverityThreshold[],
+    exposure: Exposure,
+    energyJ: number,
+    peakForceN: number,
   ) {
     this.level = threshold === undefined ? 1 : threshold.level;
-    this.label = SEVERITY_LABELS[this.level];
+    this.label = threshold === undefined ? LEVEL_1_LABEL : SEVERITY_LABELS[threshold.level];
+    this.threshold = threshold;
+    this.thresholds = thresholds;
+    this.exposure = exposure;
+    this.energyJ = energyJ;
+    this.peakForceN = peakForceN;
     this.words = undefined;
   }
 
@@ -94,6 +107,43 @@ class RatedSeverity implements Severity {
   }
 }
 
+const LEVEL_1_LABEL = SEVERITY_LABELS[1];
+// Seeds the shape (see above).
+new RatedSeverity(undefined, null as never, null as never, null as never, null as never);
+
+/**
+ * One exposure's thresholds ready for rating: highest level first, the listed order kept within a
+ * level, so the first one reached is the answer (the highest level; on a tie the rule listed first).
+ */
+interface RatingOrder {
+  readonly list: readonly SeverityThreshold[];
+  readonly ordered: readonly SeverityThreshold[];
+  /** atLeast × (1 − tolerance) of each ordered threshold. */
+  readonly reach: Float64Array;
+  /** 1 when the ordered threshold is on energy, 0 on force. */
+  readonly onEnergy: Uint8Array;
+}
+
+function ratingOrder(list: readonly SeverityThreshold[]): RatingOrder {
+  const ordered = list
+    .map((t, i) => ({ t, i }))
+    .sort((a, b) => b.t.level - a.t.level || a.i - b.i)
+    .map(({ t }) => t);
+  return {
+    list,
+    ordered,
+    reach: Float64Array.from(ordered, (t) => t.atLeast * REACH),
+    onEnergy: Uint8Array.from(ordered, (t) => (t.quantity === 'energy' ? 1 : 0)),
+  };
+}
+
+interface TableOrder {
+  readonly 'bare-head': RatingOrder;
+  readonly helmet: RatingOrder;
+}
+
+const tableOrder = (table: SeverityTable): TableOrder => ({ 'bare-head': ratingOrder(table['bare-head']), helmet: ratingOrder(table.helmet) });
+
 /** A plain copy of a rating (level, label, basis), for storage that keeps own data properties only. */
 export function plainSeverity(severity: Severity): Severity {
   return { level: severity.level, label: severity.label, basis: severity.basis };
@@ -101,7 +151,13 @@ export function plainSeverity(severity: Severity): Severity {
 
 /** Checks an organisation's table once (levels 2–5, positive finite thresholds, a source on each). */
 export function validateSeverityTable(table: SeverityTable): void {
-  if (checkedTables.has(table)) return;
+  orderOfCheckedTable(table);
+}
+
+/** Checks a table once and returns its rating order. */
+function orderOfCheckedTable(table: SeverityTable): TableOrder {
+  const known = checkedTables.get(table);
+  if (known !== undefined) return known;
   for (const exposure of EXPOSURES) {
     const list = table?.[exposure];
     if (!Array.isArray(list)) throw new SeverityTableError(exposure, `The severity table has no list for ${exposure}.`);
@@ -116,7 +172,9 @@ export function validateSeverityTable(table: SeverityTable): void {
       if (typeof t.reference !== 'string' || t.reference.trim() === '') throw new SeverityTableError(`${field}.reference`, 'Every threshold needs its reference in words.');
     });
   }
-  checkedTables.add(table);
+  const order = tableOrder(table);
+  checkedTables.set(table, order);
+  return order;
 }
 
 /**
@@ -131,12 +189,18 @@ export function rateSeverity(
   exposure: Exposure,
   table: SeverityTable = DEFAULT_SEVERITY_TABLE,
 ): Severity {
-  if (table !== DEFAULT_SEVERITY_TABLE) validateSeverityTable(table);
-  const thresholds = table[exposure];
+  const orders = table === DEFAULT_SEVERITY_TABLE ? DEFAULT_ORDER : orderOfCheckedTable(table);
+  const order = exposure === 'helmet' ? orders.helmet : orders['bare-head'];
+  const reach = order.reach;
+  const onEnergy = order.onEnergy;
   let best: SeverityThreshold | undefined;
-  for (let i = 0; i < thresholds.length; i++) {
-    const t = thresholds[i]!;
-    if ((t.quantity === 'energy' ? energyJ : peakForceN) >= t.atLeast * REACH && (best === undefined || t.level > best.level)) best = t;
+  for (let i = 0; i < reach.length; i++) {
+    if ((onEnergy[i] === 1 ? energyJ : peakForceN) >= reach[i]!) {
+      best = order.ordered[i];
+      break;
+    }
   }
-  return new RatedSeverity(best, thresholds, exposure, energyJ, peakForceN);
+  return new RatedSeverity(best, order.list, exposure, energyJ, peakForceN);
 }
+
+const DEFAULT_ORDER = tableOrder(DEFAULT_SEVERITY_TABLE);
