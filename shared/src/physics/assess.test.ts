@@ -16,6 +16,20 @@ describe('assessDrop', () => {
     expect(drop.resolved.contact).toMatchObject({ pulse: 'half-sine', presetId: 'hard-item-bare-head' });
   });
 
+  it('returns plain data: every field an own property that JSON and spreads carry', () => {
+    const drop = assessDrop({ massKg: 1.5, heightM: 12, dragAreaM2: 0.01 });
+    const fields = [
+      'terminalVelocityMps', 'impactVelocityMps', 'vacuumImpactVelocityMps', 'fallTimeS', 'riseM', 'impactEnergyJ', 'meanForceN',
+      'peakForceN', 'driftM', 'governingImpact', 'stillAirImpactVelocityMps', 'stillAirImpactEnergyJ', 'stillAirPeakForceN',
+      'windImpactVelocityMps', 'windImpactEnergyJ', 'windPeakForceN', 'severity', 'resolved',
+    ];
+    expect(Object.keys(drop)).toEqual(fields);
+    const copy = JSON.parse(JSON.stringify(drop));
+    expect(copy).toEqual({ ...drop, severity: { level: drop.severity.level, label: drop.severity.label, basis: drop.severity.basis }, resolved: { ...drop.resolved, contact: { ...drop.resolved.contact } } });
+    expect(Object.keys(drop.resolved)).toContain('contact');
+    expect({ ...drop.resolved.contact }).toEqual({ durationS: drop.resolved.contact.durationS, pulse: 'half-sine', presetId: 'hard-item-bare-head' });
+  });
+
   it('prefers a given drag area to a shape, and takes it from the shape otherwise', () => {
     const shape = { kind: 'box', lengthM: 0.3, widthM: 0.2, heightM: 0.1 } as const;
     expect(assessDrop({ massKg: 2, heightM: 10, dragAreaM2: 0.01, shape }).resolved.dragAreaM2).toBe(0.01);

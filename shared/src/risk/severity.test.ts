@@ -104,6 +104,20 @@ describe('rateSeverity', () => {
     expect(() => rateSeverity(1, 1, 'bare-head', unsourced)).toThrow(/source/);
   });
 
+  it('takes the highest level reached whatever the order of the table, and names the rule listed first on a tie', () => {
+    const rule = (level: 2 | 3 | 4 | 5, quantity: 'energy' | 'force', atLeast: number, reference: string) =>
+      ({ level, quantity, atLeast, reference, source: 'an organisation\'s own bands (test data)' }) as const;
+    const shuffled: SeverityTable = {
+      'bare-head': [rule(2, 'energy', 1, 'two by energy'), rule(4, 'force', 100, 'four by force'), rule(3, 'energy', 5, 'three by energy'), rule(4, 'energy', 10, 'four by energy')],
+      helmet: [],
+    };
+    expect(rateSeverity(6, 50, 'bare-head', shuffled).basis).toMatch(/three by energy/);
+    expect(rateSeverity(20, 50, 'bare-head', shuffled).basis).toMatch(/four by energy/);
+    expect(rateSeverity(20, 200, 'bare-head', shuffled).basis).toMatch(/four by force/); // both level 4: the force rule is listed first
+    expect(rateSeverity(0.5, 50, 'bare-head', shuffled).level).toBe(1);
+    expect(rateSeverity(100, 1e6, 'helmet', shuffled).level).toBe(1); // an empty list rates everything 1
+  });
+
   it('words the basis when read and carries it in JSON and in a plain copy', () => {
     const s = rateSeverity(80, 0, 'bare-head');
     expect(JSON.parse(JSON.stringify(s))).toEqual({ level: 5, label: 'Catastrophic', basis: s.basis }); // 80 J ≥ 68.5 J (Yoganandan et al. 1995)
