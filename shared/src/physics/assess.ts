@@ -9,10 +9,9 @@ import { ISA_SEA_LEVEL_AIR_DENSITY, STANDARD_GRAVITY } from './constants.js';
 import { contactPreset, meanImpactForce, PULSE_FACTORS, springContactDuration, type ContactPreset, type Pulse } from './contact.js';
 import { dragAreaFromShape } from './drag.js';
 import { integrateDrift } from './drift.js';
-import type { AssessOptions, DragAreaSource, DropAssessment, DropInput, GoverningImpact, ResolvedContact, ResolvedDropInput } from './drop.types.js';
-import type { Severity } from '../risk/severity.js';
+import type { AssessOptions, DragAreaSource, DropAssessment, DropInput } from './drop.types.js';
 import type { Exposure } from './exposure.js';
-import { stillAirFallInto, type StillAirFall } from './fall.js';
+import { stillAirFallInto, terminalVelocity, type StillAirFall } from './fall.js';
 import { assertFiniteResult, DropInputError, firstDropInputIssue, validateDropInput } from './validation.js';
 
 /** Input fields that can take a default, in the order of their bit in the defaults mask. */
@@ -41,136 +40,6 @@ function defaultsFor(mask: number): readonly string[] {
 
 const HALF_SINE_FACTOR = PULSE_FACTORS['half-sine'];
 const scratch: StillAirFall = { speedMps: 0, timeS: 0, riseM: 0 };
-
-/*
- * The result objects are built by constructors rather than object literals, and each shape is seeded
- * once with nulls when this module loads. V8 otherwise keeps a field that has only ever held numbers
- * as a "double" field, which needs a number box of its own in every new object; a seeded field is
- * tagged, so a zero needs no box and one box serves every field holding the same value. Measured
- * with `npm run bench:physics`: about a third of the still-air estimate's time. The objects carry
- * own data properties only, like literals (JSON, structured clone and spreads see every field).
- */
-
-class Contact implements ResolvedContact {
-  declare durationS: number | undefined;
-  declare stoppingDistanceM: number | undefined;
-  declare pulse: Pulse;
-  declare presetId: string | undefined;
-
-  constructor(durationS: number | undefined, stoppingDistanceM: number | undefined, pulse: Pulse, presetId: string | undefined) {
-    this.durationS = durationS;
-    this.stoppingDistanceM = stoppingDistanceM;
-    this.pulse = pulse;
-    this.presetId = presetId;
-  }
-}
-
-class Resolved implements ResolvedDropInput {
-  declare massKg: number;
-  declare heightM: number;
-  declare initialVelocityMps: number;
-  declare dragAreaM2: number;
-  declare dragAreaSource: DragAreaSource;
-  declare airDensityKgM3: number;
-  declare gravityMps2: number;
-  declare windSpeedMps: number;
-  declare exposure: Exposure;
-  declare contact: ResolvedContact;
-  declare defaultsApplied: readonly string[];
-
-  constructor(
-    massKg: number,
-    heightM: number,
-    initialVelocityMps: number,
-    dragAreaM2: number,
-    dragAreaSource: DragAreaSource,
-    airDensityKgM3: number,
-    gravityMps2: number,
-    windSpeedMps: number,
-    exposure: Exposure,
-    contact: ResolvedContact,
-    defaultsApplied: readonly string[],
-  ) {
-    this.massKg = massKg;
-    this.heightM = heightM;
-    this.initialVelocityMps = initialVelocityMps;
-    this.dragAreaM2 = dragAreaM2;
-    this.dragAreaSource = dragAreaSource;
-    this.airDensityKgM3 = airDensityKgM3;
-    this.gravityMps2 = gravityMps2;
-    this.windSpeedMps = windSpeedMps;
-    this.exposure = exposure;
-    this.contact = contact;
-    this.defaultsApplied = defaultsApplied;
-  }
-}
-
-class Assessment implements DropAssessment {
-  declare terminalVelocityMps: number;
-  declare impactVelocityMps: number;
-  declare vacuumImpactVelocityMps: number;
-  declare fallTimeS: number;
-  declare riseM: number;
-  declare impactEnergyJ: number;
-  declare meanForceN: number;
-  declare peakForceN: number;
-  declare driftM: number;
-  declare governingImpact: GoverningImpact;
-  declare stillAirImpactVelocityMps: number;
-  declare stillAirImpactEnergyJ: number;
-  declare stillAirPeakForceN: number;
-  declare windImpactVelocityMps: number;
-  declare windImpactEnergyJ: number;
-  declare windPeakForceN: number;
-  declare severity: Severity;
-  declare resolved: ResolvedDropInput;
-
-  constructor(
-    terminalVelocityMps: number,
-    impactVelocityMps: number,
-    vacuumImpactVelocityMps: number,
-    fallTimeS: number,
-    riseM: number,
-    impactEnergyJ: number,
-    meanForceN: number,
-    peakForceN: number,
-    driftM: number,
-    governingImpact: GoverningImpact,
-    stillAirImpactVelocityMps: number,
-    stillAirImpactEnergyJ: number,
-    stillAirPeakForceN: number,
-    windImpactVelocityMps: number,
-    windImpactEnergyJ: number,
-    windPeakForceN: number,
-    severity: Severity,
-    resolved: ResolvedDropInput,
-  ) {
-    this.terminalVelocityMps = terminalVelocityMps;
-    this.impactVelocityMps = impactVelocityMps;
-    this.vacuumImpactVelocityMps = vacuumImpactVelocityMps;
-    this.fallTimeS = fallTimeS;
-    this.riseM = riseM;
-    this.impactEnergyJ = impactEnergyJ;
-    this.meanForceN = meanForceN;
-    this.peakForceN = peakForceN;
-    this.driftM = driftM;
-    this.governingImpact = governingImpact;
-    this.stillAirImpactVelocityMps = stillAirImpactVelocityMps;
-    this.stillAirImpactEnergyJ = stillAirImpactEnergyJ;
-    this.stillAirPeakForceN = stillAirPeakForceN;
-    this.windImpactVelocityMps = windImpactVelocityMps;
-    this.windImpactEnergyJ = windImpactEnergyJ;
-    this.windPeakForceN = windPeakForceN;
-    this.severity = severity;
-    this.resolved = resolved;
-  }
-}
-
-// The seeds (see above): nulls in every field make each field tagged for good.
-const seed = null as never;
-new Contact(seed, seed, seed, seed);
-new Resolved(seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed);
-new Assessment(seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed, seed);
 
 /** Throws DropInputError (every issue, the first named in `field`) when the input is invalid. */
 export function assertValidDropInput(input: DropInput): void {
@@ -212,9 +81,7 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
   let exposure: Exposure | undefined = input.exposure;
   if (exposure == null) { exposure = 'bare-head'; mask |= 32; }
 
-  // v_t = √(2 m g / (ρ Cd·A)) as terminalVelocity gives it, written out to keep this function small for the compiler.
-  const resistance = rho * dragArea;
-  const vt = resistance > 0 ? Math.sqrt((2 * mass * g) / resistance) : Infinity;
+  const vt = terminalVelocity(mass, dragArea, rho, g);
   const fall = stillAirFallInto(scratch, height, v0, vt, g);
   const stillSpeed = fall.speedMps;
   const fallTime = fall.timeS;
@@ -276,27 +143,36 @@ export function assessDrop(input: DropInput, options?: AssessOptions): DropAsses
     assertFiniteResult(windMean * pulseFactor, 'windPeakForceN');
   }
 
-  const severity = rateSeverity(energy, peakForce, exposure, options?.severityTable);
-  const resolvedContact = new Contact(durationS, stoppingDistanceM, pulse, preset?.id);
-  const resolved = new Resolved(mass, height, v0, dragArea, dragAreaSource, rho, g, wind, exposure, resolvedContact, defaultsCache[mask] ?? defaultsFor(mask));
-  return new Assessment(
-    vt,
-    speed,
-    vacuumSpeed,
-    fallTime,
-    rise,
-    energy,
-    meanForce,
-    peakForce,
-    drift,
-    byWind ? 'wind' : 'still-air',
-    stillSpeed,
-    stillEnergy,
-    stillMean * pulseFactor,
-    windSpeed,
-    windEnergy,
-    windMean * pulseFactor,
-    severity,
-    resolved,
-  );
+  return {
+    terminalVelocityMps: vt,
+    impactVelocityMps: speed,
+    vacuumImpactVelocityMps: vacuumSpeed,
+    fallTimeS: fallTime,
+    riseM: rise,
+    impactEnergyJ: energy,
+    meanForceN: meanForce,
+    peakForceN: peakForce,
+    driftM: drift,
+    governingImpact: byWind ? 'wind' : 'still-air',
+    stillAirImpactVelocityMps: stillSpeed,
+    stillAirImpactEnergyJ: stillEnergy,
+    stillAirPeakForceN: stillMean * pulseFactor,
+    windImpactVelocityMps: windSpeed,
+    windImpactEnergyJ: windEnergy,
+    windPeakForceN: windMean * pulseFactor,
+    severity: rateSeverity(energy, peakForce, exposure, options?.severityTable),
+    resolved: {
+      massKg: mass,
+      heightM: height,
+      initialVelocityMps: v0,
+      dragAreaM2: dragArea,
+      dragAreaSource,
+      airDensityKgM3: rho,
+      gravityMps2: g,
+      windSpeedMps: wind,
+      exposure,
+      contact: { durationS, stoppingDistanceM, pulse, presetId: preset?.id },
+      defaultsApplied: defaultsFor(mask),
+    },
+  };
 }

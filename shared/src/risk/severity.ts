@@ -67,34 +67,22 @@ function basisOf(
 
 /**
  * A rating: level and label at once, the basis in words when first read. JSON carries the three
- * fields (toJSON); code that copies a rating field by field reads `basis` like any property. The
- * fields are assigned in the constructor only (no class-field definitions) and the shape is seeded
- * with nulls below, for the reason given beside the estimate's own result objects (physics/assess.ts).
+ * fields (toJSON); code that copies a rating field by field reads `basis` like any property.
  */
 class RatedSeverity implements Severity {
-  declare readonly level: SeverityLevel;
-  declare readonly label: string;
-  declare private readonly threshold: SeverityThreshold | undefined;
-  declare private readonly thresholds: readonly SeverityThreshold[];
-  declare private readonly exposure: Exposure;
-  declare private readonly energyJ: number;
-  declare private readonly peakForceN: number;
-  declare private words: string | undefined;
+  readonly level: SeverityLevel;
+  readonly label: string;
+  private words: string | undefined;
 
   constructor(
-    threshold: SeverityThreshold | undefined,
-    thresholds: readonly SeverityThreshold[],
-    exposure: Exposure,
-    energyJ: number,
-    peakForceN: number,
+    private readonly threshold: SeverityThreshold | undefined,
+    private readonly thresholds: readonly SeverityThreshold[],
+    private readonly exposure: Exposure,
+    private readonly energyJ: number,
+    private readonly peakForceN: number,
   ) {
     this.level = threshold === undefined ? 1 : threshold.level;
-    this.label = threshold === undefined ? LEVEL_1_LABEL : SEVERITY_LABELS[threshold.level];
-    this.threshold = threshold;
-    this.thresholds = thresholds;
-    this.exposure = exposure;
-    this.energyJ = energyJ;
-    this.peakForceN = peakForceN;
+    this.label = SEVERITY_LABELS[this.level];
     this.words = undefined;
   }
 
@@ -106,10 +94,6 @@ class RatedSeverity implements Severity {
     return { level: this.level, label: this.label, basis: this.basis };
   }
 }
-
-const LEVEL_1_LABEL = SEVERITY_LABELS[1];
-// Seeds the shape (see above).
-new RatedSeverity(undefined, null as never, null as never, null as never, null as never);
 
 /**
  * One exposure's thresholds ready for rating: highest level first, the listed order kept within a
