@@ -199,7 +199,7 @@ describe('the inspector’s walk with no signal', () => {
     await onScreen(page, 'scaffold-page').waitFor();
     await expect.poll(() => onScreen(page, 'cell-5-4').getAttribute('data-count')).toBe('1');
 
-    // The calculator, for a what-if with no record.
+    // The quick estimate (its route keeps the path /calculator), for a what-if with no record.
     await page.goto(`${server.url}/calculator`);
     await onScreen(page, 'calculator-page').waitFor();
     await choose(page, 'item-mode', 'custom');

@@ -1,5 +1,5 @@
 /**
- * assessDrop: the drop estimate behind every finding. Still-air values come from closed forms;
+ * assessDrop: the fall estimate behind every finding. Still-air values come from closed forms;
  * drift is integrated only when there is wind and drag, and then the faster of the still-air impact
  * and the impact over the ground in the wind governs. The still-air path allocates only the result
  * objects it returns.

@@ -1,5 +1,5 @@
 /**
- * Default conditions of a drop estimate, each with its source.
+ * Default conditions of a fall estimate, each with its source.
  */
 import type { KilogramsPerCubicMetre, MetresPerSecondSquared } from '../units/quantities.js';
 
@@ -9,7 +9,7 @@ export const STANDARD_GRAVITY = 9.80665 as MetresPerSecondSquared;
 /** Air density of the ICAO Standard Atmosphere at mean sea level, 1.225 kg/m³ (ICAO Doc 7488/3). */
 export const ISA_SEA_LEVEL_AIR_DENSITY = 1.225 as KilogramsPerCubicMetre;
 
-/** Where each default of a drop estimate comes from, for the "how this was computed" screen. */
+/** Where each default of a fall estimate comes from, for the "how this was computed" screen. */
 export const DEFAULT_SOURCES = {
   gravityMps2: 'Standard gravity 9.80665 m/s² (3rd CGPM 1901; NIST SP 811, Appendix B)',
   airDensityKgM3: 'ISA sea-level air density 1.225 kg/m³ (ICAO Doc 7488/3, Manual of the ICAO Standard Atmosphere)',

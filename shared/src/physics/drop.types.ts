@@ -1,5 +1,5 @@
 /**
- * The contract of a drop estimate. Inputs and outputs are plain numbers in SI units, the
+ * The contract of a fall estimate. Inputs and outputs are plain numbers in SI units, the
  * unit named in each field; the branded types of ../units are for the functions underneath.
  */
 import type { Pulse, ItemHardness } from './contact.js';

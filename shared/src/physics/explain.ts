@@ -1,5 +1,5 @@
 /**
- * "How this was computed": the formulas, inputs, defaults and sources of a drop estimate, as data
+ * "How this was computed": the formulas, inputs, defaults and sources of a fall estimate, as data
  * for a screen or a report to lay out (no wording of the UI beyond labels).
  */
 import { CAUTION_TEXT } from '../caution.js';

@@ -1,5 +1,5 @@
 /**
- * Severity 1–5 of a drop estimate from its impact energy and peak force, against a threshold table.
+ * Severity 1–5 of a fall estimate from its impact energy and peak force, against a threshold table.
  * The result says in words the estimate's own figure and the reference it reached. The words are
  * put together when first read (JSON, the "how computed" sheet), so rating an estimate costs one
  * small object and no string work.

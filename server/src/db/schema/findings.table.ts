@@ -35,7 +35,7 @@ export const findings = pgTable(
     exposure: exposureEnum('exposure').notNull(),
     likelihoodAnswers: jsonb('likelihood_answers').notNull(),
     likelihood: integer('likelihood').notNull(),
-    /** The server-computed drop estimate (SI units). */
+    /** The server-computed fall estimate (SI units). */
     estimate: jsonb('estimate').notNull(),
     severity: integer('severity').notNull(),
     riskScore: integer('risk_score').notNull(),
