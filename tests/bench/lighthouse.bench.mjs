@@ -70,8 +70,22 @@ async function main() {
   const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1', JWT_SECRET };
   await migrateAndSeed(env);
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
   const base = `http://127.0.0.1:${port}`;
+  // Production mode refuses development stand-ins; nothing here sends mail or stores photos, so
+  // addresses that lead nowhere satisfy its checks.
+  const productionEnv = {
+    NODE_ENV: 'production',
+    PORT: String(port),
+    PUBLIC_URL: base,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(await freePort()),
+    MAIL_FROM: 'lighthouse@plummet.test',
+    S3_ENDPOINT: `http://127.0.0.1:${await freePort()}`,
+    S3_BUCKET: 'plummet-lighthouse',
+    S3_ACCESS_KEY_ID: 'lighthouse-unused-key',
+    S3_SECRET_ACCESS_KEY: 'lighthouse-unused-secret',
+  };
+  server = await startServer({ ...env, ...productionEnv }, { stdio: ['ignore', 'ignore', 'inherit'] });
 
   const debugPort = await freePort();
   browser = await chromium.launch({
