@@ -4,7 +4,7 @@
 // the demo. Audits /sign-in as a first visit, then signs in as the inspector in the same Chromium
 // and audits the signed-in home. Prints the four category scores and FCP, LCP, TBT, CLS. A
 // benchmark, not a test: nothing is asserted. Leaves nothing behind.
-import { chmodSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import lighthouse from 'lighthouse';
@@ -72,10 +72,14 @@ async function audit(url, port, { keepStorage, name }) {
   const { lhr } = result;
   const benchmarkIndex = Math.round(lhr.environment?.benchmarkIndex ?? NaN);
   const slowdown = calibratedSlowdown(benchmarkIndex);
-  const calibrated = await lighthouse(url, { ...flags, auditMode: artifacts }, {
-    extends: 'lighthouse:default',
-    settings: { ...SETTINGS, throttling: { ...lhr.configSettings.throttling, cpuSlowdownMultiplier: slowdown } },
-  });
+  // Simulated throttling slows nothing while gathering, so only the saved settings need the new
+  // slowdown (Lighthouse refuses to audit with settings other than those it gathered with).
+  const throttling = { ...lhr.configSettings.throttling, cpuSlowdownMultiplier: slowdown };
+  const saved = join(artifacts, 'artifacts.json');
+  const gathered = JSON.parse(readFileSync(saved, 'utf8'));
+  gathered.settings.throttling = throttling;
+  writeFileSync(saved, JSON.stringify(gathered));
+  const calibrated = await lighthouse(url, { ...flags, auditMode: artifacts }, { extends: 'lighthouse:default', settings: { ...SETTINGS, throttling } });
   if (REPORT_DIR) {
     mkdirSync(REPORT_DIR, { recursive: true });
     writeFileSync(join(REPORT_DIR, `${name}.json`), JSON.stringify(lhr, null, 1));
