@@ -1,14 +1,9 @@
-import { setupIonicReact } from '@ionic/react';
-import { StrictMode } from 'react';
-import { createRoot } from 'react-dom/client';
-import { App } from './app/App';
-
-/* Ionic: the required core styles, and only the optional sheets the app uses. */
-import '@ionic/react/css/core.css';
-import '@ionic/react/css/normalize.css';
-import '@ionic/react/css/structure.css';
-import '@ionic/react/css/typography.css';
-import '@ionic/react/css/padding.css';
+/*
+ * The first download: our palette, Open Sans and a decision. A first visit to /sign-in gets a
+ * plain React form that looks like the app (start-sign-in) and needs none of Ionic; every other
+ * address starts the full Ionic app (start-app), which brings its own styles. Both are loaded on
+ * demand, so neither pays for the other, and the service worker precaches both for offline use.
+ */
 
 /* Open Sans, bundled (no CDN): latin subset, the three weights the theme uses, woff2 only. */
 import '@fontsource/open-sans/latin-400.css';
@@ -16,17 +11,10 @@ import '@fontsource/open-sans/latin-600.css';
 import '@fontsource/open-sans/latin-700.css';
 
 import './theme/variables.css';
-import './theme/global.css';
-import './theme/screens.css';
+import './theme/first-paint.css';
 
-// One look on every phone: Material Design mode (48 px targets fit it best).
-setupIonicReact({ mode: 'md' });
-
-const container = document.getElementById('root');
-if (!container) throw new Error('index.html has no #root element');
-
-createRoot(container).render(
-  <StrictMode>
-    <App />
-  </StrictMode>,
-);
+if (window.location.pathname === '/sign-in') {
+  void import('./app/start-sign-in').then(({ startSignIn }) => startSignIn());
+} else {
+  void import('./app/start-app').then(({ startApp }) => startApp());
+}

@@ -4,7 +4,7 @@
 // the demo. Audits /sign-in as a first visit, then signs in as the inspector in the same Chromium
 // and audits the signed-in home. Prints the four category scores and FCP, LCP, TBT, CLS. A
 // benchmark, not a test: nothing is asserted. Leaves nothing behind.
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import lighthouse from 'lighthouse';
@@ -35,26 +35,68 @@ async function cleanup() {
 }
 for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => void cleanup().finally(() => process.exit(130)));
 
-async function audit(url, port, { keepStorage }) {
-  const result = await lighthouse(
-    url,
-    { port, output: 'json', logLevel: 'error', disableStorageReset: keepStorage },
-    { extends: 'lighthouse:default', settings: { formFactor: 'mobile', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] } },
-  );
-  const { categories, audits } = result.lhr;
+/** Set LIGHTHOUSE_REPORT_DIR to keep each full report (JSON) for a closer look at one run. */
+const REPORT_DIR = process.env.LIGHTHOUSE_REPORT_DIR;
+
+const SETTINGS = { formFactor: 'mobile', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] };
+
+/**
+ * The mobile preset's 4× CPU slowdown assumes a high-end desktop host (Lighthouse benchmark index
+ * 1500-2000, docs/throttling.md of Lighthouse) and aims at a mid-tier phone. A shared or busy
+ * machine scores far lower, and 4× of it is a much slower phone than the preset means. This
+ * scales the slowdown by the measured index (4 × index / 1500, at least 1) for a second reading
+ * of the same page load; the preset's reading stays the headline figure.
+ */
+function calibratedSlowdown(benchmarkIndex) {
+  return Math.max(1, Math.min(4, (4 * benchmarkIndex) / 1500));
+}
+
+function summarise(lhr) {
+  const { categories, audits } = lhr;
   const score = (id) => Math.round((categories[id]?.score ?? 0) * 100);
   const ms = (id) => `${((audits[id]?.numericValue ?? NaN) / 1000).toFixed(2)} s`;
-  const worst = Object.values(audits)
+  return (
+    `performance ${score('performance')}  accessibility ${score('accessibility')}  best practices ${score('best-practices')}  SEO ${score('seo')}` +
+    `   FCP ${ms('first-contentful-paint')}  LCP ${ms('largest-contentful-paint')}  TBT ${Math.round(audits['total-blocking-time'].numericValue)} ms  CLS ${audits['cumulative-layout-shift'].numericValue.toFixed(3)}`
+  );
+}
+
+/**
+ * Loads the page once (Lighthouse keeps what it gathered in a folder), scores it with the mobile
+ * preset, then scores the same load again with the CPU slowdown calibrated to this machine.
+ */
+async function audit(url, port, { keepStorage, name }) {
+  const artifacts = join(tmp, `artifacts-${name}`);
+  const flags = { port, output: 'json', logLevel: 'error', disableStorageReset: keepStorage };
+  const result = await lighthouse(url, { ...flags, gatherMode: artifacts, auditMode: artifacts }, { extends: 'lighthouse:default', settings: SETTINGS });
+  const { lhr } = result;
+  const benchmarkIndex = Math.round(lhr.environment?.benchmarkIndex ?? NaN);
+  const slowdown = calibratedSlowdown(benchmarkIndex);
+  // Simulated throttling slows nothing while gathering, so only the saved settings need the new
+  // slowdown (Lighthouse refuses to audit with settings other than those it gathered with).
+  const throttling = { ...lhr.configSettings.throttling, cpuSlowdownMultiplier: slowdown };
+  const saved = join(artifacts, 'artifacts.json');
+  const gathered = JSON.parse(readFileSync(saved, 'utf8'));
+  gathered.settings.throttling = throttling;
+  writeFileSync(saved, JSON.stringify(gathered));
+  const calibrated = await lighthouse(url, { ...flags, auditMode: artifacts }, { extends: 'lighthouse:default', settings: { ...SETTINGS, throttling } });
+  if (REPORT_DIR) {
+    mkdirSync(REPORT_DIR, { recursive: true });
+    writeFileSync(join(REPORT_DIR, `${name}.json`), JSON.stringify(lhr, null, 1));
+    writeFileSync(join(REPORT_DIR, `${name}-calibrated.json`), JSON.stringify(calibrated.lhr, null, 1));
+  }
+  const worst = Object.values(lhr.audits)
     .filter((a) => a.details?.type === 'opportunity' && (a.details.overallSavingsMs ?? 0) > 0)
     .sort((a, b) => b.details.overallSavingsMs - a.details.overallSavingsMs)
     .slice(0, 3)
     .map((a) => `${a.id} (${Math.round(a.details.overallSavingsMs)} ms)`);
   return {
-    line:
-      `performance ${score('performance')}  accessibility ${score('accessibility')}  best practices ${score('best-practices')}  SEO ${score('seo')}` +
-      `   FCP ${ms('first-contentful-paint')}  LCP ${ms('largest-contentful-paint')}  TBT ${Math.round(audits['total-blocking-time'].numericValue)} ms  CLS ${audits['cumulative-layout-shift'].numericValue.toFixed(3)}`,
+    line: summarise(lhr),
+    calibratedLine: summarise(calibrated.lhr),
+    slowdown,
     worst,
-    finalUrl: result.lhr.finalDisplayedUrl,
+    finalUrl: lhr.finalDisplayedUrl,
+    benchmarkIndex,
   };
 }
 
@@ -70,8 +112,22 @@ async function main() {
   const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1', JWT_SECRET };
   await migrateAndSeed(env);
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
   const base = `http://127.0.0.1:${port}`;
+  // Production mode refuses development stand-ins; nothing here sends mail or stores photos, so
+  // addresses that lead nowhere satisfy its checks.
+  const productionEnv = {
+    NODE_ENV: 'production',
+    PORT: String(port),
+    PUBLIC_URL: base,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(await freePort()),
+    MAIL_FROM: 'lighthouse@plummet.test',
+    S3_ENDPOINT: `http://127.0.0.1:${await freePort()}`,
+    S3_BUCKET: 'plummet-lighthouse',
+    S3_ACCESS_KEY_ID: 'lighthouse-unused-key',
+    S3_SECRET_ACCESS_KEY: 'lighthouse-unused-secret',
+  };
+  server = await startServer({ ...env, ...productionEnv }, { stdio: ['ignore', 'ignore', 'inherit'] });
 
   const debugPort = await freePort();
   browser = await chromium.launch({
@@ -81,7 +137,7 @@ async function main() {
   });
 
   say('auditing /sign-in (first visit)…');
-  const signIn = await audit(`${base}/sign-in`, debugPort, { keepStorage: false });
+  const signIn = await audit(`${base}/sign-in`, debugPort, { keepStorage: false, name: 'sign-in' });
 
   // Sign in through the page so the session sits in the browser's storage, as on a phone.
   const context = browser.contexts()[0] ?? (await browser.newContext());
@@ -94,12 +150,18 @@ async function main() {
   await page.close();
 
   say('auditing / signed in…');
-  const home = await audit(`${base}/`, debugPort, { keepStorage: true });
+  const home = await audit(`${base}/`, debugPort, { keepStorage: true, name: 'home' });
 
   console.log('');
   console.log(`Lighthouse 12 mobile preset, production build, Chromium ${browser.version()} (node ${process.version})`);
   console.log(`/sign-in           ${signIn.line}`);
   console.log(`/ (signed in)      ${home.line}${home.finalUrl.includes('/sign-in') ? '   (ended on the sign-in page!)' : ''}`);
+  console.log(
+    `  machine speed (Lighthouse benchmark index; the preset assumes 1500-2000): ${signIn.benchmarkIndex} and ${home.benchmarkIndex}; ` +
+      `the same loads with the CPU slowdown calibrated to it (${signIn.slowdown.toFixed(1)}× and ${home.slowdown.toFixed(1)}× instead of 4×):`,
+  );
+  console.log(`/sign-in           ${signIn.calibratedLine}`);
+  console.log(`/ (signed in)      ${home.calibratedLine}`);
   for (const [name, r] of [['/sign-in', signIn], ['/', home]]) if (r.worst.length) console.log(`  biggest savings on ${name}: ${r.worst.join(', ')}`);
 }
 

@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { onScreen, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** Every visible row's risk badge ends before its item name starts (no overlap at this width). */
@@ -35,6 +35,8 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     const page = await phone.context.newPage();
     await page.goto(server.url);
     await onScreen(page, 'home-sign-in').click();
+    await onScreen(page, 'sign-in-email').waitFor();
+    await page.screenshot({ path: artifactPath('sign-in-phone.png') });
     await typeInto(page, 'sign-in-email', 'inspector@demo.test');
     await typeInto(page, 'sign-in-password', 'plummet-demo');
     await onScreen(page, 'sign-in-submit').click();
@@ -82,5 +84,26 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
       })
       .toBeGreaterThanOrEqual(0);
     await page.screenshot({ path: artifactPath('finding-estimate-phone.png') });
+
+    // A new finding at phone width with no signal: the title shows whole beside the status.
+    await phone.context.setOffline(true);
+    await page.goto(siteUrl);
+    await onScreen(page, 'scaffold-card').filter({ hasText: 'QL-A' }).getByTestId('open-scaffold').click();
+    await onScreen(page, 'start-inspection').click();
+    await choose(page, 'inspection-reason', 'after-bad-weather');
+    await typeInto(page, 'inspection-wind', '6');
+    await onScreen(page, 'start-walk').click();
+    await onScreen(page, 'inspection-page').waitFor();
+    await page.goto(`${page.url()}/findings/new`);
+    await onScreen(page, 'finding-editor').waitFor();
+    await expect.poll(() => onScreen(page, 'online-status').getAttribute('data-online')).toBe('false');
+    const title = page.locator('ion-header').filter({ visible: true }).first().locator('ion-title');
+    const cut = await title.evaluate((element) => {
+      const text = element.shadowRoot?.querySelector('.toolbar-title') ?? element;
+      return { text: element.textContent, cut: text.scrollWidth > text.clientWidth };
+    });
+    expect(cut).toEqual({ text: 'New finding', cut: false });
+    await page.screenshot({ path: artifactPath('new-finding-phone.png') });
+    await phone.context.setOffline(false);
   });
 });

@@ -2,21 +2,8 @@ import { useMutation } from '@tanstack/react-query';
 import { isOnline } from '../../lib/connectivity';
 import { db } from '../../local-db/db';
 import { stopAppSync } from '../../sync/app-sync';
-import { signIn, signOutOnServer, type SignInCredentials } from './auth.api';
-import { sessionFromResponse } from './session';
-import { readSession, signOutLocally, startSession } from './session.store';
-
-/** Signs in (needs a connection) and keeps the session on the phone. Errors show in the form. */
-export function useSignInMutation() {
-  return useMutation({
-    mutationFn: async (credentials: SignInCredentials) => {
-      const session = sessionFromResponse(await signIn(credentials), new Date());
-      await startSession(db, session);
-      return session;
-    },
-    meta: { errorToast: false },
-  });
-}
+import { signOutOnServer } from './auth.api';
+import { readSession, signOutLocally } from './session.store';
 
 /**
  * Signs out: tells the server when it can be reached (ending the refresh token), then clears

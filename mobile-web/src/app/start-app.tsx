@@ -1,0 +1,25 @@
+import { setupIonicReact } from '@ionic/react';
+import { StrictMode } from 'react';
+import { App } from './App';
+import { appRoot } from './root';
+
+/* Ionic: the required core styles, and only the optional sheets the app uses. */
+import '@ionic/react/css/core.css';
+import '@ionic/react/css/normalize.css';
+import '@ionic/react/css/structure.css';
+import '@ionic/react/css/typography.css';
+import '@ionic/react/css/padding.css';
+
+import '../theme/global.css';
+import '../theme/screens.css';
+
+/** Starts the full app (Ionic, the router, every page on demand) at the current address. */
+export function startApp(): void {
+  // One look on every phone: Material Design mode (48 px targets fit it best).
+  setupIonicReact({ mode: 'md' });
+  appRoot().render(
+    <StrictMode>
+      <App />
+    </StrictMode>,
+  );
+}
