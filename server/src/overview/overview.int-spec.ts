@@ -32,6 +32,12 @@ beforeAll(async () => {
   await insertFix(db, org, f6, 30);
   verifiedAt = new Date(Date.now() - 3_600_000);
   await insertVerification(db, f6, 'verified', verifiedAt.toISOString());
+  // Verified a second time in the same week: still one finding closed that week.
+  await insertVerification(db, f6, 'verified', verifiedAt.toISOString());
+  // First fixed before the period (100 days ago), fixed again within it: not a first fix of the period.
+  const f8 = await insertFinding(db, org, scaffoldA, { band: 'High', state: 'verified', raisedHoursAgo: 100 * 24, lift: 7, bay: 7 });
+  await insertFix(db, org, f8, 1);
+  await insertFix(db, org, f8, 99 * 24);
   await insertConflict(db, org, f1, 'open');
   await insertConflict(db, org, f3, 'resolved');
 });
@@ -127,7 +133,7 @@ describe('the trends of a hand-built site', () => {
     expect({ High: sum('High'), Medium: sum('Medium'), Low: sum('Low') }).toEqual({ High: 2, Medium: 3, Low: 2 });
   });
 
-  it('counts a verified finding as closed in the week of its verification', async () => {
+  it('counts a verified finding as closed in the week of its verification, once however often it was verified', async () => {
     const res = await api.call('demo:manager', 'GET', `/trends?siteId=${site}`);
     const week = res.body.weeks.find((w: { weekStart: string }) => {
       const start = Date.parse(w.weekStart);
@@ -138,7 +144,7 @@ describe('the trends of a hand-built site', () => {
     expect(closed).toBe(1);
   });
 
-  it('gives the median time to the first fix by band (Low: 10 h and 30 h, median 20 h)', async () => {
+  it('gives the median time to the first fix by band (Low: 10 h and 30 h, median 20 h), leaving out findings first fixed before the period', async () => {
     const res = await api.call('demo:manager', 'GET', `/trends?siteId=${site}`);
     expect(res.body.timeToFix).toEqual([
       { band: 'Low', medianHours: 20, fixes: 2 },

@@ -69,8 +69,9 @@ export const findings = pgTable(
     index('findings_assignee_idx').on(t.assigneeId),
     // The overview counts unfinished findings per scaffold and band from this index alone (index-only scan).
     index('findings_overview_idx').on(t.organisationId, t.state, t.scaffoldId, t.riskBand, t.dueAt),
-    // Trends by the week raised, and repeat locations over the last 30 days.
-    index('findings_org_created_idx').on(t.organisationId, t.createdAt),
+    // Trends by the week raised, repeat locations over the last 30 days and the band of a fixed or
+    // verified finding, all read from this index alone (index-only scans): every column they use is in it.
+    index('findings_trends_idx').on(t.organisationId, t.createdAt, t.riskBand, t.scaffoldId, t.lift, t.bay, t.elevation, t.id),
     // Findings count of each inspection in the reports.
     index('findings_inspection_idx').on(t.inspectionId),
   ],
@@ -119,8 +120,8 @@ export const verifications = pgTable(
   (t) => [
     index('verifications_feed_idx').on(t.organisationId, t.syncXid, t.syncSeq),
     index('verifications_finding_idx').on(t.findingId),
-    // Findings closed per week in the trends.
-    index('verifications_org_verified_idx').on(t.organisationId, t.verifiedAt),
+    // Findings closed per week in the trends, read from this index alone.
+    index('verifications_trends_idx').on(t.organisationId, t.verifiedAt, t.outcome, t.findingId),
   ],
 );
 
