@@ -196,8 +196,12 @@ async function main() {
   const headers = { authorization: `Bearer ${token}` };
 
   const probe = await fetch(`${base}/findings?limit=50`, { headers });
-  const page = await probe.json();
-  if (probe.status !== 200 || page.items?.length !== 50) throw new Error(`GET /api/findings?limit=50 answered ${probe.status}: ${JSON.stringify(page).slice(0, 200)}`);
+  const pageText = await probe.text();
+  const page = JSON.parse(pageText);
+  if (probe.status !== 200 || page.items?.length !== 50) throw new Error(`GET /api/findings?limit=50 answered ${probe.status}: ${pageText.slice(0, 200)}`);
+  // Bytes of the JSON body per finding (no headers, not compressed): the rows alone, then whole findings.
+  const wholeText = await (await fetch(`${base}/findings?limit=50&estimate=full`, { headers })).text();
+  const bodyBytes = { rows: Buffer.byteLength(pageText) / 50, whole: Buffer.byteLength(wholeText) / 50 };
   const plan = pg.psql(
     `EXPLAIN SELECT * FROM findings WHERE organisation_id = '${orgId}' ORDER BY risk_score DESC, id DESC LIMIT 51`,
     'plummet_bench',
@@ -210,6 +214,8 @@ async function main() {
 
   say(`GET /api/findings?limit=50 as a manager: ${CONNECTIONS} connections for ${DURATION_S} s…`);
   const findings = await load(`${base}/findings?limit=50`, headers, DURATION_S);
+  say(`GET /api/findings?limit=50&estimate=full (whole findings, for comparison): ${CONNECTIONS} connections for ${DURATION_S} s…`);
+  const whole = await load(`${base}/findings?limit=50&estimate=full`, headers, DURATION_S);
   say(`GET /api/health (baseline): ${CONNECTIONS} connections for ${DURATION_S} s…`);
   const health = await load(`${base}/health`, {}, DURATION_S);
 
@@ -227,10 +233,13 @@ async function main() {
   console.log('');
   console.log(`API benchmark: ${Number(count).toLocaleString('en-GB')} findings, ${CONNECTIONS} connections, ${DURATION_S} s per route, one server process (node ${process.version})`);
   console.log(row('GET /api/findings?limit=50', findings));
+  console.log(row('  …&estimate=full', whole));
   console.log(row('GET /api/health (baseline)', health));
   console.log(
-    `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency`,
+    `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency ` +
+      `(whole findings: ${fmt(whole.requestsPerS / health.requestsPerS, 3)} ×)`,
   );
+  console.log(`JSON body per finding: ${fmt(bodyBytes.rows, 0)} bytes as list rows, ${fmt(bodyBytes.whole, 0)} bytes whole (estimate=full)`);
   const seq = (name, r) => `${name.padEnd(30)} one at a time: p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   max ${fmt(r.max).padStart(7)} ms`;
   console.log('');
   console.log(seq('GET /api/overview', overviewSeq));

@@ -57,7 +57,30 @@ export function toFinding(row: FindingApiRow, now = Date.now()): Finding {
   };
 }
 
-/** A row read by the list query, whose estimate PostgreSQL already trimmed to the summary. */
-export function toFindingListItem(row: FindingApiRow, now = Date.now()): FindingListItem {
-  return toFinding(row, now) as unknown as FindingListItem;
+/** What a list row is made from: a few columns, the note already cut by PostgreSQL. */
+export const FINDING_LIST_COLUMNS = [
+  'id', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'itemName', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt',
+  'createdAt',
+] as const;
+export type FindingListRow = Pick<FindingRow, (typeof FINDING_LIST_COLUMNS)[number]> & { notePreview: string };
+
+/** A list row: no estimate, the note cut short (FindingListItemSchema). */
+export function toFindingListItem(row: FindingListRow, now = Date.now()): FindingListItem {
+  return {
+    id: row.id,
+    scaffoldId: row.scaffoldId,
+    elevation: row.elevation,
+    lift: row.lift,
+    bay: row.bay,
+    heightM: row.heightM,
+    itemName: row.itemName,
+    riskScore: row.riskScore,
+    riskBand: row.riskBand,
+    state: row.state,
+    assigneeId: row.assigneeId,
+    dueAt: row.dueAt?.toISOString() ?? null,
+    overdue: isOverdue(row, now),
+    notePreview: row.notePreview,
+    createdAt: row.createdAt.toISOString(),
+  };
 }

@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import {
   csvLine,
   type FindingExportQuery,
-  type FindingListItem,
+  type Finding,
   type FindingListQuery,
   joulesToFootPounds,
   kilogramsToPounds,
@@ -35,7 +35,7 @@ export interface ExportNames {
 }
 
 /** One finding as a CSV row; figures converted from SI at this edge only. */
-export function exportRow(f: FindingListItem, units: Units, names: ExportNames): (string | number | boolean | null)[] {
+export function exportRow(f: Finding, units: Units, names: ExportNames): (string | number | boolean | null)[] {
   const imperial = units === 'imperial';
   const scaffold = names.scaffolds.get(f.scaffoldId);
   return [
@@ -69,9 +69,9 @@ export class FindingsExportService {
     yield csvLine(exportHeader(units));
     let cursor: string | undefined;
     do {
-      const listQuery: FindingListQuery = { ...query, limit: EXPORT_BATCH, cursor, estimate: 'summary' };
-      const page = await this.findings.list(user, listQuery);
-      yield (page.items as FindingListItem[]).map((f) => csvLine(exportRow(f, units, names))).join('');
+      const listQuery: FindingListQuery = { ...query, limit: EXPORT_BATCH, cursor, estimate: 'full' };
+      const page = await this.findings.listWhole(user, listQuery);
+      yield page.items.map((f) => csvLine(exportRow(f, units, names))).join('');
       cursor = page.nextCursor ?? undefined;
     } while (cursor);
   }

@@ -28,13 +28,25 @@ export class FindingsService {
 
   /** Managers, inspectors and admins see all; a foreman sees findings on their scaffolds or assigned to them. */
   async list(user: AuthUser, query: FindingListQuery): Promise<ListResponse<FindingListItem | Finding>> {
-    const rows = await this.findings.list(user.organisationId, query, user.role === 'foreman' ? user.userId : undefined);
+    return query.estimate === 'full' ? this.listWhole(user, query) : this.listRows(user, query);
+  }
+
+  /** Rows of the list (FindingListItemSchema). */
+  async listRows(user: AuthUser, query: FindingListQuery): Promise<ListResponse<FindingListItem>> {
+    const rows = await this.findings.list(user.organisationId, query, this.foremanScope(user));
     const now = Date.now();
-    return toPage(
-      rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
-      query,
-      (row) => (query.estimate === 'full' ? toFinding(row, now) : toFindingListItem(row, now)),
-    );
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toFindingListItem(row, now));
+  }
+
+  /** The same page, each finding whole as GET /findings/:id answers it. */
+  async listWhole(user: AuthUser, query: FindingListQuery): Promise<ListResponse<Finding>> {
+    const rows = await this.findings.listWhole(user.organisationId, query, this.foremanScope(user));
+    const now = Date.now();
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toFinding(row, now));
+  }
+
+  private foremanScope(user: AuthUser): string | undefined {
+    return user.role === 'foreman' ? user.userId : undefined;
   }
 
   async get(user: AuthUser, id: string): Promise<Finding> {
