@@ -5,6 +5,7 @@
 // p50/p95/p99 latency and the ratios. Leaves nothing behind. A benchmark, not a test: nothing is
 // asserted about speed.
 import { createHmac } from 'node:crypto';
+import { createServer } from 'node:http';
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -31,10 +32,13 @@ const PRODUCTION_STAND_INS = {
 let pg;
 let server;
 let tmp;
+let store;
 
 async function cleanup() {
   await stopChild(server);
   server = undefined;
+  store?.close();
+  store = undefined;
   if (pg) {
     pg.stop();
     pg = undefined;
@@ -190,8 +194,17 @@ async function main() {
     .split('|');
   const token = accessToken({ sub: userId, org: orgId, role: 'manager' });
 
+  // An object store that answers every request at once: /api/health checks the store, and one that
+  // is unreachable (DNS to AWS, retries) would make the baseline measure the network, not the server.
+  const storePort = await freePort();
+  store = createServer((_req, res) => res.writeHead(200, { 'content-length': '0' }).end()).listen(storePort, '127.0.0.1');
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
+  server = await startServer(
+    { ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, S3_ENDPOINT: `http://127.0.0.1:${storePort}`, PORT: String(port) },
+    { stdio: ['ignore', 'ignore', 'inherit'] },
+  );
+  const healthBody = await (await fetch(`http://127.0.0.1:${port}/api/health`)).json();
+  if (healthBody.status !== 'ok') throw new Error(`GET /api/health answered ${JSON.stringify(healthBody)}`);
   const base = `http://127.0.0.1:${port}/api`;
   const headers = { authorization: `Bearer ${token}` };
 

@@ -153,6 +153,22 @@ describe('the trends of a hand-built site', () => {
     ]);
   });
 
+  it('keeps each finding’s first fix time as the earliest of its fixes, whichever arrives first or is removed', async () => {
+    const db = api.t.drizzle;
+    const org = await orgIdOf(db, 'harrow-span');
+    const f = await insertFinding(db, org, scaffoldA, { band: 'Low', state: 'verified', raisedHoursAgo: 100, lift: 9, bay: 9 });
+    const firstFix = async () =>
+      (await db.execute<{ hours: number | null }>(sql`SELECT date_part('epoch', first_fixed_at - created_at) / 3600 AS hours FROM findings WHERE id = ${f}`)).rows[0].hours;
+    expect(await firstFix()).toBeNull();
+    await insertFix(db, org, f, 50);
+    expect(await firstFix()).toBe(50);
+    await insertFix(db, org, f, 5); // recorded offline earlier, synced later
+    expect(await firstFix()).toBe(5);
+    await db.execute(sql`DELETE FROM fixes WHERE finding_id = ${f} AND fixed_at = (SELECT created_at FROM findings WHERE id = ${f}) + interval '5 hours'`);
+    expect(await firstFix()).toBe(50);
+    await db.execute(sql`DELETE FROM findings WHERE id = ${f}`);
+  });
+
   it('lists the same scaffold, lift and bay with three findings in 30 days as a repeat location, and nothing with fewer', async () => {
     const res = await api.call('demo:manager', 'GET', `/trends?siteId=${site}`);
     expect(res.body.repeatLocations).toHaveLength(1);
