@@ -1,10 +1,14 @@
 #!/usr/bin/env node
 // `npm run bench:api`: the API under load, on a throwaway PostgreSQL seeded with the demo plus
-// 100,000 findings. Measures GET /api/findings?limit=50 as a manager (100 connections, ~10 s, with
-// autocannon) and GET /api/health as a baseline in the same run, then prints requests/s,
-// p50/p95/p99 latency and the ratios. Leaves nothing behind. A benchmark, not a test: nothing is
-// asserted about speed.
-import { createHmac } from 'node:crypto';
+// 100,000 findings. Measures GET /api/findings?limit=50 as a manager (list rows, then whole findings
+// with estimate=full; 100 connections, ~10 s each, with autocannon) and GET /api/health as a
+// baseline in the same run (its object store a stub that answers at once), then prints requests/s,
+// p50/p95/p99 latency, the ratios, the JSON bytes per finding and what a request costs besides the
+// query; then the managers' overview and trends one at a time and under 10 connections, and the
+// export of every finding with the server's memory. Leaves nothing behind. A benchmark, not a
+// test: nothing is asserted about speed.
+import { createHmac, createSecretKey } from 'node:crypto';
+import { createRequire } from 'node:module';
 import { createServer } from 'node:http';
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -156,6 +160,40 @@ async function exportRun(url, headers, pid) {
   return { rows: lines - 1, bytes, seconds: (performance.now() - started) / 1000, rssBeforeKiB: before.now, rssPeakDuringKiB: Math.max(peakDuring, after.now), vmHwmKiB: after.peak };
 }
 
+/** Microseconds per call of `fn`, run for about `ms` after a short warm-up (single thread, this process). */
+function microsPerCall(fn, ms = 400) {
+  for (let i = 0; i < 200; i++) fn();
+  let calls = 0;
+  const started = performance.now();
+  while (performance.now() - started < ms) {
+    for (let i = 0; i < 50; i++) fn();
+    calls += 50;
+  }
+  return ((performance.now() - started) * 1000) / calls;
+}
+
+/**
+ * What a list request does besides the query, each measured on its own in this process: checking
+ * the access token (with the secret as a string, as jsonwebtoken rebuilds a key from it each call,
+ * and as a key object made once, as the server does), writing the page as JSON, and parsing it
+ * with the shared schema as the phone does (rows, then whole findings).
+ */
+async function requestPieces(token, rowsText, wholeText) {
+  const jwt = createRequire(import.meta.url)('jsonwebtoken');
+  const key = createSecretKey(Buffer.from(JWT_SECRET));
+  const shared = await import('../../shared/dist/index.js');
+  const rows = JSON.parse(rowsText);
+  const whole = JSON.parse(wholeText);
+  return {
+    verifyString: microsPerCall(() => jwt.verify(token, JWT_SECRET, { algorithms: ['HS256'] })),
+    verifyKey: microsPerCall(() => jwt.verify(token, key, { algorithms: ['HS256'] })),
+    stringifyRows: microsPerCall(() => JSON.stringify(rows)),
+    stringifyWhole: microsPerCall(() => JSON.stringify(whole)),
+    parseRows: microsPerCall(() => shared.FindingListResponseSchema.parse(rows)),
+    parseWhole: microsPerCall(() => shared.FindingFullListResponseSchema.parse(whole)),
+  };
+}
+
 const fmt = (n, digits = 1) => n.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
 async function main() {
@@ -238,6 +276,7 @@ async function main() {
   const healthSeq = await sequential(`${base}/health`, {}, 30);
   const overviewLoad = await load(`${base}/overview`, headers, DURATION_S, 10);
   const trendsLoad = await load(`${base}/trends`, headers, DURATION_S, 10);
+  const pieces = await requestPieces(token, pageText, wholeText);
   say('GET /api/findings/export.csv of every finding…');
   const exported = await exportRun(`${base}/findings/export.csv`, headers, server.pid);
 
@@ -253,6 +292,10 @@ async function main() {
       `(whole findings: ${fmt(whole.requestsPerS / health.requestsPerS, 3)} ×)`,
   );
   console.log(`JSON body per finding: ${fmt(bodyBytes.rows, 0)} bytes as list rows, ${fmt(bodyBytes.whole, 0)} bytes whole (estimate=full)`);
+  console.log(
+    `per request, besides the query (µs, this process): token check ${fmt(pieces.verifyString)} with a string secret, ${fmt(pieces.verifyKey)} with a key object; ` +
+      `JSON of a page ${fmt(pieces.stringifyRows)} as rows, ${fmt(pieces.stringifyWhole)} whole; schema parse of a page ${fmt(pieces.parseRows)} as rows, ${fmt(pieces.parseWhole)} whole`,
+  );
   const seq = (name, r) => `${name.padEnd(30)} one at a time: p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   max ${fmt(r.max).padStart(7)} ms`;
   console.log('');
   console.log(seq('GET /api/overview', overviewSeq));

@@ -5,7 +5,15 @@ import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
 import { findingFilters } from './finding-filters.js';
-import { FINDING_API_COLUMNS, FINDING_LIST_COLUMNS, type FindingApiRow, type FindingListRow, type FindingRow } from './finding.mapper.js';
+import {
+  FINDING_API_COLUMNS,
+  FINDING_EXPORT_COLUMNS,
+  FINDING_LIST_COLUMNS,
+  type FindingApiRow,
+  type FindingExportRow,
+  type FindingListRow,
+  type FindingRow,
+} from './finding.mapper.js';
 
 const SORTS: Record<FindingListQuery['sort'], SortKey> = {
   riskScore: { expr: findings.riskScore, cast: 'integer' },
@@ -28,6 +36,12 @@ const LIST_COLUMNS = {
   notePreview: sql<string>`CASE WHEN char_length(${findings.notes}) > ${NOTE_PREVIEW_MAX} THEN left(${findings.notes}, ${NOTE_PREVIEW_MAX - 1}) || '…' ELSE ${findings.notes} END`,
 };
 
+/** An export row reads the estimate's impact energy alone, not the whole estimate. */
+const EXPORT_COLUMNS = {
+  ...(Object.fromEntries(FINDING_EXPORT_COLUMNS.map((k) => [k, findings[k]])) as { [K in (typeof FINDING_EXPORT_COLUMNS)[number]]: (typeof findings)[K] }),
+  impactEnergyJ: sql<number>`(${findings.estimate} ->> 'impactEnergyJ')::float8`,
+};
+
 /** A finding with the foreman responsible for its scaffold (for a foreman's scope). */
 export interface FindingWithScope {
   finding: FindingRow;
@@ -48,7 +62,12 @@ export class FindingsRepository {
     return this.page(API_COLUMNS, organisationId, query, foremanId, executor) as Promise<{ row: FindingApiRow; sortKey: string }[]>;
   }
 
-  private page(columns: typeof LIST_COLUMNS | ApiColumns, organisationId: string, query: FindingListQuery, foremanId: string | undefined, executor: DbExecutor) {
+  /** The same page as `list`, as the CSV export writes it. */
+  async listForExport(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
+    return this.page(EXPORT_COLUMNS, organisationId, query, foremanId, executor) as Promise<{ row: FindingExportRow; sortKey: string }[]>;
+  }
+
+  private page(columns: typeof LIST_COLUMNS | typeof EXPORT_COLUMNS | ApiColumns, organisationId: string, query: FindingListQuery, foremanId: string | undefined, executor: DbExecutor) {
     const page = keyset(SORTS[query.sort], findings.id, query);
     const where = [...findingFilters(organisationId, query, foremanId), page.after];
     return executor

@@ -9,7 +9,7 @@ import { type CommandActor, findingNotFound, inScope } from './finding-command-r
 import { FindingCommands } from './finding-commands.js';
 import { toFindingHistory } from './finding-history.js';
 import type { FindingStore } from './finding-store.js';
-import { toFinding, toFindingListItem } from './finding.mapper.js';
+import { type ExportFinding, toExportFinding, toFinding, toFindingListItem } from './finding.mapper.js';
 import { FindingsRepository, type FindingWithScope } from './findings.repository.js';
 
 export { inScope } from './finding-command-rules.js';
@@ -43,6 +43,13 @@ export class FindingsService {
     const rows = await this.findings.listWhole(user.organisationId, query, this.foremanScope(user));
     const now = Date.now();
     return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toFinding(row, now));
+  }
+
+  /** The same page as the export writes it (the export pages through the list with these). */
+  async exportPage(user: AuthUser, query: FindingListQuery): Promise<ListResponse<ExportFinding>> {
+    const rows = await this.findings.listForExport(user.organisationId, query, this.foremanScope(user));
+    const now = Date.now();
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toExportFinding(row, now));
   }
 
   private foremanScope(user: AuthUser): string | undefined {
