@@ -23,6 +23,9 @@ async function accessibilityProblems(page: Page): Promise<string[]> {
   });
 }
 
+/** Waits for a value the screen shows after a round trip; generous, as the test machine may be busy. */
+const poll = <T>(read: () => T | Promise<T>) => expect.poll(read, { timeout: 15_000 });
+
 async function signInAsManager(page: Page, url: string): Promise<void> {
   await page.goto(url);
   await onScreen(page, 'home-sign-in').click();
@@ -69,7 +72,7 @@ describe('a manager reviews the synced findings', () => {
     const fixed = (await db.query<{ n: number }>("SELECT count(*)::int AS n FROM findings WHERE organisation_id = $1 AND state = 'fixed'", [orgId])).rows[0].n;
     const figure = (id: string) => onScreen(page, id).locator('.manager-figure__value').textContent();
     for (const band of ['High', 'Medium', 'Low']) {
-      await expect.poll(() => figure(`total-open-${band}`)).toBe(String(counts.rows.find((r) => r.band === band)?.n ?? 0));
+      await poll(() => figure(`total-open-${band}`)).toBe(String(counts.rows.find((r) => r.band === band)?.n ?? 0));
     }
     expect(await figure('total-to-verify')).toBe(String(fixed));
     expect(await accessibilityProblems(page)).toEqual([]);
@@ -79,7 +82,7 @@ describe('a manager reviews the synced findings', () => {
     await onScreen(page, 'total-open-High').click();
     await onScreen(page, 'findings-table-page').waitFor();
     const high = counts.rows.find((r) => r.band === 'High')?.n ?? 0;
-    await expect.poll(() => onScreen(page, 'finding-row').count()).toBe(high);
+    await poll(() => onScreen(page, 'finding-row').count()).toBe(high);
 
     // Filters and sort: Medium too, then the oldest first.
     await onScreen(page, 'filter-band-Medium').check();
@@ -89,12 +92,12 @@ describe('a manager reviews the synced findings', () => {
         [orgId],
       )
     ).rows.map((r) => r.id);
-    await expect.poll(() => onScreen(page, 'finding-row').count()).toBe(expectedRows.length);
+    await poll(() => onScreen(page, 'finding-row').count()).toBe(expectedRows.length);
     await onScreen(page, 'sort-createdAt').click();
-    await expect.poll(() => new URL(page.url()).searchParams.get('sort')).toBe('createdAt');
+    await poll(() => new URL(page.url()).searchParams.get('sort')).toBe('createdAt');
     if (new URL(page.url()).searchParams.get('order') !== 'asc') await onScreen(page, 'sort-createdAt').click();
     const rowIds = () => page.locator('[data-testid="finding-row"]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-finding-id')));
-    await expect.poll(rowIds).toEqual(expectedRows);
+    await poll(rowIds).toEqual(expectedRows);
     expect(await accessibilityProblems(page)).toEqual([]);
     if (shots.table) await page.screenshot({ path: artifactPath(shots.table), fullPage: true });
 
@@ -112,7 +115,7 @@ describe('a manager reviews the synced findings', () => {
     expect(new URL(page.url()).pathname).toBe(`/review/${chosen}`);
     await onScreen(page, 'assign-foreman').selectOption(foreman.id);
     await onScreen(page, 'assign-button').click();
-    await expect.poll(() => onScreen(page, 'finding-assignee').textContent()).toContain(foreman.name);
+    await poll(() => onScreen(page, 'finding-assignee').textContent()).toContain(foreman.name);
     const assigned = await db.query<{ assignee: string }>('SELECT assignee_id::text AS assignee FROM findings WHERE id = $1', [chosen]);
     expect(assigned.rows[0].assignee).toBe(foreman.id);
     expect(await accessibilityProblems(page)).toEqual([]);
