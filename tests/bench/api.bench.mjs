@@ -239,7 +239,8 @@ async function main() {
   const port = await freePort();
   server = await startServer(
     { ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, S3_ENDPOINT: `http://127.0.0.1:${storePort}`, PORT: String(port) },
-    { stdio: ['ignore', 'ignore', 'inherit'] },
+    // A busy machine can take well over the default 30 s to start the server.
+    { stdio: ['ignore', 'ignore', 'inherit'], timeoutMs: 180_000 },
   );
   const healthBody = await (await fetch(`http://127.0.0.1:${port}/api/health`)).json();
   if (healthBody.status !== 'ok') throw new Error(`GET /api/health answered ${JSON.stringify(healthBody)}`);
