@@ -9,7 +9,7 @@
 // test: nothing is asserted about speed.
 import { createHmac, createSecretKey } from 'node:crypto';
 import { createRequire } from 'node:module';
-import { createServer } from 'node:http';
+import { spawn } from 'node:child_process';
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -41,7 +41,7 @@ let store;
 async function cleanup() {
   await stopChild(server);
   server = undefined;
-  store?.close();
+  await stopChild(store);
   store = undefined;
   if (pg) {
     pg.stop();
@@ -235,14 +235,23 @@ async function main() {
   // An object store that answers every request at once: /api/health checks the store, and one that
   // is unreachable (DNS to AWS, retries) would make the baseline measure the network, not the server.
   const storePort = await freePort();
-  store = createServer((_req, res) => res.writeHead(200, { 'content-length': '0' }).end()).listen(storePort, '127.0.0.1');
+  // In a process of its own, so the load generator in this process never slows its answers.
+  store = spawn(
+    process.execPath,
+    ['-e', `require('node:http').createServer((q, s) => s.writeHead(200, { 'content-length': '0' }).end()).listen(${storePort}, '127.0.0.1')`],
+    { stdio: 'ignore' },
+  );
   const port = await freePort();
   server = await startServer(
     { ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, S3_ENDPOINT: `http://127.0.0.1:${storePort}`, PORT: String(port) },
     // A busy machine can take well over the default 30 s to start the server.
     { stdio: ['ignore', 'ignore', 'inherit'], timeoutMs: 180_000 },
   );
-  const healthBody = await (await fetch(`http://127.0.0.1:${port}/api/health`)).json();
+  let healthBody;
+  for (let attempt = 0; attempt < 20 && healthBody?.status !== 'ok'; attempt++) {
+    if (attempt) await new Promise((resolve) => setTimeout(resolve, 500));
+    healthBody = await (await fetch(`http://127.0.0.1:${port}/api/health`)).json();
+  }
   if (healthBody.status !== 'ok') throw new Error(`GET /api/health answered ${JSON.stringify(healthBody)}`);
   const base = `http://127.0.0.1:${port}/api`;
   const headers = { authorization: `Bearer ${token}` };
