@@ -1,10 +1,15 @@
 #!/usr/bin/env node
 // `npm run bench:api`: the API under load, on a throwaway PostgreSQL seeded with the demo plus
-// 100,000 findings. Measures GET /api/findings?limit=50 as a manager (100 connections, ~10 s, with
-// autocannon) and GET /api/health as a baseline in the same run, then prints requests/s,
-// p50/p95/p99 latency and the ratios. Leaves nothing behind. A benchmark, not a test: nothing is
-// asserted about speed.
-import { createHmac } from 'node:crypto';
+// 100,000 findings. Measures GET /api/findings?limit=50 as a manager (list rows, then whole findings
+// with estimate=full; 100 connections, ~10 s each, with autocannon) and GET /api/health as a
+// baseline in the same run (its object store a stub that answers at once), then prints requests/s,
+// p50/p95/p99 latency, the ratios, the JSON bytes per finding and what a request costs besides the
+// query; then the managers' overview and trends one at a time and under 10 connections, and the
+// export of every finding with the server's memory. Leaves nothing behind. A benchmark, not a
+// test: nothing is asserted about speed.
+import { createHmac, createSecretKey } from 'node:crypto';
+import { createRequire } from 'node:module';
+import { spawn } from 'node:child_process';
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -31,10 +36,13 @@ const PRODUCTION_STAND_INS = {
 let pg;
 let server;
 let tmp;
+let store;
 
 async function cleanup() {
   await stopChild(server);
   server = undefined;
+  await stopChild(store);
+  store = undefined;
   if (pg) {
     pg.stop();
     pg = undefined;
@@ -66,8 +74,14 @@ SELECT gen_random_uuid(), f.organisation_id, f.id, f.created_by, f.created_at + 
 FROM findings f WHERE f.state IN ('fixed', 'verified') AND f.notes LIKE 'Bench finding %';
 INSERT INTO verifications (id, organisation_id, finding_id, verified_by, verified_at, outcome)
 SELECT gen_random_uuid(), x.organisation_id, x.finding_id, x.fixed_by, x.fixed_at + interval '2 hours', 'verified'
-FROM fixes x JOIN findings f ON f.id = x.finding_id WHERE f.state = 'verified' AND f.notes LIKE 'Bench finding %';
-ANALYZE findings; ANALYZE fixes; ANALYZE verifications;`;
+FROM fixes x JOIN findings f ON f.id = x.finding_id WHERE f.state = 'verified' AND f.notes LIKE 'Bench finding %';`;
+
+/**
+ * The state autovacuum leaves a table in soon after a bulk insert (statistics, visibility map), so
+ * index-only scans are measured as they run in steady use. One statement per call: VACUUM cannot
+ * run inside the transaction psql wraps several statements in.
+ */
+const SETTLE_SQL = ['VACUUM (ANALYZE) findings', 'VACUUM (ANALYZE) fixes', 'VACUUM (ANALYZE) verifications'];
 
 /** An HS256 access token like the server's own (claims sub, org, role), valid for an hour. */
 function accessToken(claims) {
@@ -146,6 +160,40 @@ async function exportRun(url, headers, pid) {
   return { rows: lines - 1, bytes, seconds: (performance.now() - started) / 1000, rssBeforeKiB: before.now, rssPeakDuringKiB: Math.max(peakDuring, after.now), vmHwmKiB: after.peak };
 }
 
+/** Microseconds per call of `fn`, run for about `ms` after a short warm-up (single thread, this process). */
+function microsPerCall(fn, ms = 400) {
+  for (let i = 0; i < 200; i++) fn();
+  let calls = 0;
+  const started = performance.now();
+  while (performance.now() - started < ms) {
+    for (let i = 0; i < 50; i++) fn();
+    calls += 50;
+  }
+  return ((performance.now() - started) * 1000) / calls;
+}
+
+/**
+ * What a list request does besides the query, each measured on its own in this process: checking
+ * the access token (with the secret as a string, as jsonwebtoken rebuilds a key from it each call,
+ * and as a key object made once, as the server does), writing the page as JSON, and parsing it
+ * with the shared schema as the phone does (rows, then whole findings).
+ */
+async function requestPieces(token, rowsText, wholeText) {
+  const jwt = createRequire(import.meta.url)('jsonwebtoken');
+  const key = createSecretKey(Buffer.from(JWT_SECRET));
+  const shared = await import('../../shared/dist/index.js');
+  const rows = JSON.parse(rowsText);
+  const whole = JSON.parse(wholeText);
+  return {
+    verifyString: microsPerCall(() => jwt.verify(token, JWT_SECRET, { algorithms: ['HS256'] })),
+    verifyKey: microsPerCall(() => jwt.verify(token, key, { algorithms: ['HS256'] })),
+    stringifyRows: microsPerCall(() => JSON.stringify(rows)),
+    stringifyWhole: microsPerCall(() => JSON.stringify(whole)),
+    parseRows: microsPerCall(() => shared.FindingListResponseSchema.parse(rows)),
+    parseWhole: microsPerCall(() => shared.FindingFullListResponseSchema.parse(whole)),
+  };
+}
+
 const fmt = (n, digits = 1) => n.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
 async function main() {
@@ -172,6 +220,7 @@ async function main() {
   await migrateAndSeed(env);
   const started = Date.now();
   pg.psql(BULK_FINDINGS_SQL, 'plummet_bench');
+  for (const statement of SETTLE_SQL) pg.psql(statement, 'plummet_bench');
   const count = pg.psql('SELECT count(*) FROM findings', 'plummet_bench');
   say(`seeded ${Number(count).toLocaleString('en-GB')} findings in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 
@@ -183,14 +232,37 @@ async function main() {
     .split('|');
   const token = accessToken({ sub: userId, org: orgId, role: 'manager' });
 
+  // An object store that answers every request at once: /api/health checks the store, and one that
+  // is unreachable (DNS to AWS, retries) would make the baseline measure the network, not the server.
+  const storePort = await freePort();
+  // In a process of its own, so the load generator in this process never slows its answers.
+  store = spawn(
+    process.execPath,
+    ['-e', `require('node:http').createServer((q, s) => s.writeHead(200, { 'content-length': '0' }).end()).listen(${storePort}, '127.0.0.1')`],
+    { stdio: 'ignore' },
+  );
   const port = await freePort();
-  server = await startServer({ ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, PORT: String(port) }, { stdio: ['ignore', 'ignore', 'inherit'] });
+  server = await startServer(
+    { ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, S3_ENDPOINT: `http://127.0.0.1:${storePort}`, PORT: String(port) },
+    // A busy machine can take well over the default 30 s to start the server.
+    { stdio: ['ignore', 'ignore', 'inherit'], timeoutMs: 180_000 },
+  );
+  let healthBody;
+  for (let attempt = 0; attempt < 20 && healthBody?.status !== 'ok'; attempt++) {
+    if (attempt) await new Promise((resolve) => setTimeout(resolve, 500));
+    healthBody = await (await fetch(`http://127.0.0.1:${port}/api/health`)).json();
+  }
+  if (healthBody.status !== 'ok') throw new Error(`GET /api/health answered ${JSON.stringify(healthBody)}`);
   const base = `http://127.0.0.1:${port}/api`;
   const headers = { authorization: `Bearer ${token}` };
 
   const probe = await fetch(`${base}/findings?limit=50`, { headers });
-  const page = await probe.json();
-  if (probe.status !== 200 || page.items?.length !== 50) throw new Error(`GET /api/findings?limit=50 answered ${probe.status}: ${JSON.stringify(page).slice(0, 200)}`);
+  const pageText = await probe.text();
+  const page = JSON.parse(pageText);
+  if (probe.status !== 200 || page.items?.length !== 50) throw new Error(`GET /api/findings?limit=50 answered ${probe.status}: ${pageText.slice(0, 200)}`);
+  // Bytes of the JSON body per finding (no headers, not compressed): the rows alone, then whole findings.
+  const wholeText = await (await fetch(`${base}/findings?limit=50&estimate=full`, { headers })).text();
+  const bodyBytes = { rows: Buffer.byteLength(pageText) / 50, whole: Buffer.byteLength(wholeText) / 50 };
   const plan = pg.psql(
     `EXPLAIN SELECT * FROM findings WHERE organisation_id = '${orgId}' ORDER BY risk_score DESC, id DESC LIMIT 51`,
     'plummet_bench',
@@ -203,6 +275,8 @@ async function main() {
 
   say(`GET /api/findings?limit=50 as a manager: ${CONNECTIONS} connections for ${DURATION_S} s…`);
   const findings = await load(`${base}/findings?limit=50`, headers, DURATION_S);
+  say(`GET /api/findings?limit=50&estimate=full (whole findings, for comparison): ${CONNECTIONS} connections for ${DURATION_S} s…`);
+  const whole = await load(`${base}/findings?limit=50&estimate=full`, headers, DURATION_S);
   say(`GET /api/health (baseline): ${CONNECTIONS} connections for ${DURATION_S} s…`);
   const health = await load(`${base}/health`, {}, DURATION_S);
 
@@ -212,6 +286,7 @@ async function main() {
   const healthSeq = await sequential(`${base}/health`, {}, 30);
   const overviewLoad = await load(`${base}/overview`, headers, DURATION_S, 10);
   const trendsLoad = await load(`${base}/trends`, headers, DURATION_S, 10);
+  const pieces = await requestPieces(token, pageText, wholeText);
   say('GET /api/findings/export.csv of every finding…');
   const exported = await exportRun(`${base}/findings/export.csv`, headers, server.pid);
 
@@ -220,9 +295,16 @@ async function main() {
   console.log('');
   console.log(`API benchmark: ${Number(count).toLocaleString('en-GB')} findings, ${CONNECTIONS} connections, ${DURATION_S} s per route, one server process (node ${process.version})`);
   console.log(row('GET /api/findings?limit=50', findings));
+  console.log(row('  …&estimate=full', whole));
   console.log(row('GET /api/health (baseline)', health));
   console.log(
-    `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency`,
+    `ratio findings / health: ${fmt(findings.requestsPerS / health.requestsPerS, 3)} × the requests/s, ${fmt(findings.p95 / health.p95, 2)} × the p95 latency ` +
+      `(whole findings: ${fmt(whole.requestsPerS / health.requestsPerS, 3)} ×)`,
+  );
+  console.log(`JSON body per finding: ${fmt(bodyBytes.rows, 0)} bytes as list rows, ${fmt(bodyBytes.whole, 0)} bytes whole (estimate=full)`);
+  console.log(
+    `per request, besides the query (µs, this process): token check ${fmt(pieces.verifyString)} with a string secret, ${fmt(pieces.verifyKey)} with a key object; ` +
+      `JSON of a page ${fmt(pieces.stringifyRows)} as rows, ${fmt(pieces.stringifyWhole)} whole; schema parse of a page ${fmt(pieces.parseRows)} as rows, ${fmt(pieces.parseWhole)} whole`,
   );
   const seq = (name, r) => `${name.padEnd(30)} one at a time: p50 ${fmt(r.p50).padStart(7)} ms   p95 ${fmt(r.p95).padStart(7)} ms   max ${fmt(r.max).padStart(7)} ms`;
   console.log('');

@@ -61,8 +61,7 @@ export async function downloadSite(
 
     const fresh = findings.filter((finding) => scaffoldIds.has(finding.scaffoldId) && !waiting.has(finding.id));
     const findingRecords: FindingRecord[] = fresh.map((finding) => ({ ...finding, organisationId, siteId: site.id }));
-    // A copy on the phone at least as new stays: the list route's estimate is only a summary, the
-    // synced copy is whole (the finding editor needs it whole to open the finding).
+    // A copy on the phone at least as new stays (it may carry local fields the server's copy lacks).
     const local = await database.findings.bulkGet(findingRecords.map((finding) => finding.id));
     await database.findings.bulkPut(findingRecords.filter((finding, i) => !local[i] || local[i]!.version < finding.version));
     // Findings of this site that are no longer open on the server (fixed meanwhile) and have no

@@ -13,6 +13,11 @@ export type FindingRow = typeof findings.$inferSelect;
 /** What the mapper reads: any row with the API columns (a full row or a list row). */
 export type FindingApiRow = Pick<FindingRow, (typeof FINDING_API_COLUMNS)[number]>;
 
+const FINDING_LIST_COLUMNS_BASE = [
+  'id', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'itemName', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt',
+  'createdAt',
+] as const;
+
 export function isOverdue(row: Pick<FindingApiRow, 'state' | 'dueAt'>, now = Date.now()): boolean {
   return row.dueAt !== null && row.dueAt.getTime() < now && UNFIXED_STATES.includes(row.state);
 }
@@ -57,7 +62,47 @@ export function toFinding(row: FindingApiRow, now = Date.now()): Finding {
   };
 }
 
-/** A row read by the list query, whose estimate PostgreSQL already trimmed to the summary. */
-export function toFindingListItem(row: FindingApiRow, now = Date.now()): FindingListItem {
-  return toFinding(row, now) as unknown as FindingListItem;
+/** What a row of the CSV export is made from: the list's columns, the whole note and the impact energy read out of the estimate. */
+export const FINDING_EXPORT_COLUMNS = [...FINDING_LIST_COLUMNS_BASE, 'massKg', 'exposure', 'severity', 'likelihood', 'notes'] as const;
+export type FindingExportRow = Pick<FindingRow, (typeof FINDING_EXPORT_COLUMNS)[number]> & { impactEnergyJ: number };
+
+/** A finding as the export writes it (SI units; the export converts at its edge). */
+export interface ExportFinding {
+  id: string; scaffoldId: string; elevation: string; lift: number; bay: number; heightM: number; itemName: string; massKg: number;
+  exposure: string; impactEnergyJ: number; severity: number; likelihood: number; riskScore: number; riskBand: string; state: string;
+  assigneeId: string | null; dueAt: string | null; overdue: boolean; createdAt: string; notes: string;
+}
+
+export function toExportFinding(row: FindingExportRow, now = Date.now()): ExportFinding {
+  return {
+    id: row.id, scaffoldId: row.scaffoldId, elevation: row.elevation, lift: row.lift, bay: row.bay, heightM: row.heightM, itemName: row.itemName,
+    massKg: row.massKg, exposure: row.exposure, impactEnergyJ: row.impactEnergyJ, severity: row.severity, likelihood: row.likelihood,
+    riskScore: row.riskScore, riskBand: row.riskBand, state: row.state, assigneeId: row.assigneeId, dueAt: row.dueAt?.toISOString() ?? null,
+    overdue: isOverdue(row, now), createdAt: row.createdAt.toISOString(), notes: row.notes,
+  };
+}
+
+/** What a list row is made from: a few columns, the note already cut by PostgreSQL. */
+export const FINDING_LIST_COLUMNS = FINDING_LIST_COLUMNS_BASE;
+export type FindingListRow = Pick<FindingRow, (typeof FINDING_LIST_COLUMNS)[number]> & { notePreview: string };
+
+/** A list row: no estimate, the note cut short (FindingListItemSchema). */
+export function toFindingListItem(row: FindingListRow, now = Date.now()): FindingListItem {
+  return {
+    id: row.id,
+    scaffoldId: row.scaffoldId,
+    elevation: row.elevation,
+    lift: row.lift,
+    bay: row.bay,
+    heightM: row.heightM,
+    itemName: row.itemName,
+    riskScore: row.riskScore,
+    riskBand: row.riskBand,
+    state: row.state,
+    assigneeId: row.assigneeId,
+    dueAt: row.dueAt?.toISOString() ?? null,
+    overdue: isOverdue(row, now),
+    notePreview: row.notePreview,
+    createdAt: row.createdAt.toISOString(),
+  };
 }

@@ -38,7 +38,7 @@ async function listAll(who: Who, filter: string) {
     items.push(...res.body.items);
     cursor = res.body.nextCursor;
   } while (cursor);
-  return items as { id: string; heightM: number; item: { name: string }; notes: string; riskBand: string; state: string; createdAt: string }[];
+  return items as { id: string; heightM: number; itemName: string; riskBand: string; state: string; createdAt: string }[];
 }
 
 const exportCsv = async (who: Who, filter: string) => {

@@ -2,7 +2,6 @@ import { Injectable } from '@nestjs/common';
 import {
   csvLine,
   type FindingExportQuery,
-  type FindingListItem,
   type FindingListQuery,
   joulesToFootPounds,
   kilogramsToPounds,
@@ -10,6 +9,7 @@ import {
   type Units,
 } from '@plummet/shared';
 import type { AuthUser } from '../auth/auth.types.js';
+import type { ExportFinding } from './finding.mapper.js';
 import { FindingsExportRepository } from './findings-export.repository.js';
 import { FindingsService } from './findings.service.js';
 
@@ -35,14 +35,14 @@ export interface ExportNames {
 }
 
 /** One finding as a CSV row; figures converted from SI at this edge only. */
-export function exportRow(f: FindingListItem, units: Units, names: ExportNames): (string | number | boolean | null)[] {
+export function exportRow(f: ExportFinding, units: Units, names: ExportNames): (string | number | boolean | null)[] {
   const imperial = units === 'imperial';
   const scaffold = names.scaffolds.get(f.scaffoldId);
   return [
     f.id, scaffold?.siteName ?? '', scaffold?.reference ?? '', f.elevation, f.lift, f.bay,
-    round(imperial ? metresToFeet(f.heightM) : f.heightM, 2), f.item.name,
-    round(imperial ? kilogramsToPounds(f.item.massKg) : f.item.massKg, 3), f.exposure,
-    round(imperial ? joulesToFootPounds(f.estimate.impactEnergyJ) : f.estimate.impactEnergyJ, 1),
+    round(imperial ? metresToFeet(f.heightM) : f.heightM, 2), f.itemName,
+    round(imperial ? kilogramsToPounds(f.massKg) : f.massKg, 3), f.exposure,
+    round(imperial ? joulesToFootPounds(f.impactEnergyJ) : f.impactEnergyJ, 1),
     f.severity, f.likelihood, f.riskScore, f.riskBand, f.state,
     f.assigneeId ? (names.members.get(f.assigneeId) ?? '') : '', f.dueAt, f.overdue, f.createdAt, f.notes,
   ];
@@ -69,9 +69,9 @@ export class FindingsExportService {
     yield csvLine(exportHeader(units));
     let cursor: string | undefined;
     do {
-      const listQuery: FindingListQuery = { ...query, limit: EXPORT_BATCH, cursor, estimate: 'summary' };
-      const page = await this.findings.list(user, listQuery);
-      yield (page.items as FindingListItem[]).map((f) => csvLine(exportRow(f, units, names))).join('');
+      const listQuery: FindingListQuery = { ...query, limit: EXPORT_BATCH, cursor, estimate: 'full' };
+      const page = await this.findings.exportPage(user, listQuery);
+      yield page.items.map((f) => csvLine(exportRow(f, units, names))).join('');
       cursor = page.nextCursor ?? undefined;
     } while (cursor);
   }

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { assessDrop, BUILTIN_ITEMS, estimateFinding } from '@plummet/shared';
+import { assessDrop, BUILTIN_ITEMS, estimateFinding, FindingListItemSchema, NOTE_PREVIEW_MAX } from '@plummet/shared';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { describeAccessMatrix } from '../../test/access-matrix.js';
@@ -273,19 +273,31 @@ describe('listing findings', () => {
     expect(seen.slice(dated.length).every((d) => d === null)).toBe(true);
   });
 
-  it('carries the estimate figures in the list and the explanations only in the detail', async () => {
-    const list = await api.call('demo:manager', 'GET', '/findings?limit=1');
-    const item = list.body.items[0];
-    expect(item.estimate).toMatchObject({ impactEnergyJ: expect.any(Number), severity: { level: item.severity, label: expect.any(String) } });
-    expect(item.estimate.resolved).toBeUndefined();
-    expect(item.estimate.severity.basis).toBeUndefined();
-    const detail = await api.call('demo:manager', 'GET', `/findings/${item.id}`);
-    expect(detail.body.estimate.severity.basis).toEqual(expect.any(String));
-    expect(detail.body.estimate.resolved.massKg).toBe(item.item.massKg);
-    const { resolved: _r, ...figures } = detail.body.estimate;
-    expect({ ...figures, severity: { level: figures.severity.level, label: figures.severity.label }, likelihood: { level: figures.likelihood.level, label: figures.likelihood.label } }).toEqual(item.estimate);
+  it('lists rows without the estimate, each matching its detail, and whole findings with estimate=full', async () => {
+    const preview = (notes: string) => (notes.length > NOTE_PREVIEW_MAX ? `${notes.slice(0, NOTE_PREVIEW_MAX - 1)}…` : notes);
+    const list = await api.call('demo:manager', 'GET', '/findings?limit=5');
+    expect(list.status).toBe(200);
+    expect(list.body.items).toHaveLength(5);
+    for (const item of list.body.items) {
+      expect(FindingListItemSchema.strict().safeParse(item).success).toBe(true);
+      const detail = (await api.call('demo:manager', 'GET', `/findings/${item.id}`)).body;
+      expect(item).toEqual({
+        id: detail.id, scaffoldId: detail.scaffoldId, elevation: detail.elevation, lift: detail.lift, bay: detail.bay, heightM: detail.heightM,
+        itemName: detail.item.name, riskScore: detail.riskScore, riskBand: detail.riskBand, state: detail.state, assigneeId: detail.assigneeId,
+        dueAt: detail.dueAt, overdue: detail.overdue, notePreview: preview(detail.notes), createdAt: detail.createdAt,
+      });
+    }
     const full = await api.call('demo:manager', 'GET', '/findings?limit=1&estimate=full');
-    expect(full.body.items[0]).toEqual(detail.body);
+    expect(full.body.items[0]).toEqual((await api.call('demo:manager', 'GET', `/findings/${full.body.items[0].id}`)).body);
+  });
+
+  it('cuts a long note short in the list and keeps it whole in the detail', async () => {
+    const notes = `${'Loose fittings along the whole lift, '.repeat(4)}end`;
+    const { id } = await newFinding(api, { notes });
+    const row = (await api.call('demo:manager', 'GET', `/findings?limit=200&q=${encodeURIComponent('whole lift')}`)).body.items.find((f: { id: string }) => f.id === id);
+    expect(row.notePreview).toBe(`${notes.slice(0, NOTE_PREVIEW_MAX - 1)}…`);
+    expect(row.notePreview).toHaveLength(NOTE_PREVIEW_MAX);
+    expect((await api.call('demo:manager', 'GET', `/findings/${id}`)).body.notes).toBe(notes);
   });
 
   it('refuses unknown filters values and sorts with 400', async () => {

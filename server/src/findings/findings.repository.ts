@@ -1,11 +1,19 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
-import type { FindingListQuery } from '@plummet/shared';
+import { type FindingListQuery, NOTE_PREVIEW_MAX } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
 import { findingFilters } from './finding-filters.js';
-import { FINDING_API_COLUMNS, type FindingRow } from './finding.mapper.js';
+import {
+  FINDING_API_COLUMNS,
+  FINDING_EXPORT_COLUMNS,
+  FINDING_LIST_COLUMNS,
+  type FindingApiRow,
+  type FindingExportRow,
+  type FindingListRow,
+  type FindingRow,
+} from './finding.mapper.js';
 
 const SORTS: Record<FindingListQuery['sort'], SortKey> = {
   riskScore: { expr: findings.riskScore, cast: 'integer' },
@@ -22,10 +30,16 @@ export type FindingChanges = Partial<Omit<FindingInsert, 'id' | 'organisationId'
 type ApiColumns = { [K in (typeof FINDING_API_COLUMNS)[number]]: (typeof findings)[K] };
 const API_COLUMNS = Object.fromEntries(FINDING_API_COLUMNS.map((k) => [k, findings[k]])) as ApiColumns;
 
-/** Lists carry the estimate without its long explanations (FindingEstimateSummarySchema); PostgreSQL trims it. */
+/** A list row reads neither the estimate nor the whole note (FindingListItemSchema). */
 const LIST_COLUMNS = {
-  ...API_COLUMNS,
-  estimate: sql<unknown>`${findings.estimate} - 'resolved' #- '{severity,basis}' #- '{likelihood,reasons}'`,
+  ...(Object.fromEntries(FINDING_LIST_COLUMNS.map((k) => [k, findings[k]])) as { [K in (typeof FINDING_LIST_COLUMNS)[number]]: (typeof findings)[K] }),
+  notePreview: sql<string>`CASE WHEN char_length(${findings.notes}) > ${NOTE_PREVIEW_MAX} THEN left(${findings.notes}, ${NOTE_PREVIEW_MAX - 1}) || '…' ELSE ${findings.notes} END`,
+};
+
+/** An export row reads the estimate's impact energy alone, not the whole estimate. */
+const EXPORT_COLUMNS = {
+  ...(Object.fromEntries(FINDING_EXPORT_COLUMNS.map((k) => [k, findings[k]])) as { [K in (typeof FINDING_EXPORT_COLUMNS)[number]]: (typeof findings)[K] }),
+  impactEnergyJ: sql<number>`(${findings.estimate} ->> 'impactEnergyJ')::float8`,
 };
 
 /** A finding with the foreman responsible for its scaffold (for a foreman's scope). */
@@ -38,12 +52,26 @@ export interface FindingWithScope {
 export class FindingsRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
-  /** `foremanId`: only findings on that foreman's scaffolds or assigned to them. */
+  /** `foremanId`: only findings on that foreman's scaffolds or assigned to them. Rows of the list (FindingListItemSchema). */
   async list(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
+    return this.page(LIST_COLUMNS, organisationId, query, foremanId, executor) as Promise<{ row: FindingListRow; sortKey: string }[]>;
+  }
+
+  /** The same page as `list`, each finding whole (GET /findings?estimate=full, the export). */
+  async listWhole(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
+    return this.page(API_COLUMNS, organisationId, query, foremanId, executor) as Promise<{ row: FindingApiRow; sortKey: string }[]>;
+  }
+
+  /** The same page as `list`, as the CSV export writes it. */
+  async listForExport(organisationId: string, query: FindingListQuery, foremanId?: string, executor: DbExecutor = this.db) {
+    return this.page(EXPORT_COLUMNS, organisationId, query, foremanId, executor) as Promise<{ row: FindingExportRow; sortKey: string }[]>;
+  }
+
+  private page(columns: typeof LIST_COLUMNS | typeof EXPORT_COLUMNS | ApiColumns, organisationId: string, query: FindingListQuery, foremanId: string | undefined, executor: DbExecutor) {
     const page = keyset(SORTS[query.sort], findings.id, query);
     const where = [...findingFilters(organisationId, query, foremanId), page.after];
     return executor
-      .select({ row: query.estimate === 'full' ? API_COLUMNS : LIST_COLUMNS, sortKey: page.sortKey })
+      .select({ row: columns, sortKey: page.sortKey })
       .from(findings)
       .where(and(...where))
       .orderBy(...page.orderBy)

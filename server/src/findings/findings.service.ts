@@ -9,7 +9,7 @@ import { type CommandActor, findingNotFound, inScope } from './finding-command-r
 import { FindingCommands } from './finding-commands.js';
 import { toFindingHistory } from './finding-history.js';
 import type { FindingStore } from './finding-store.js';
-import { toFinding, toFindingListItem } from './finding.mapper.js';
+import { type ExportFinding, toExportFinding, toFinding, toFindingListItem } from './finding.mapper.js';
 import { FindingsRepository, type FindingWithScope } from './findings.repository.js';
 
 export { inScope } from './finding-command-rules.js';
@@ -28,13 +28,32 @@ export class FindingsService {
 
   /** Managers, inspectors and admins see all; a foreman sees findings on their scaffolds or assigned to them. */
   async list(user: AuthUser, query: FindingListQuery): Promise<ListResponse<FindingListItem | Finding>> {
-    const rows = await this.findings.list(user.organisationId, query, user.role === 'foreman' ? user.userId : undefined);
+    return query.estimate === 'full' ? this.listWhole(user, query) : this.listRows(user, query);
+  }
+
+  /** Rows of the list (FindingListItemSchema). */
+  async listRows(user: AuthUser, query: FindingListQuery): Promise<ListResponse<FindingListItem>> {
+    const rows = await this.findings.list(user.organisationId, query, this.foremanScope(user));
     const now = Date.now();
-    return toPage(
-      rows.map((r) => ({ ...r.row, sortKey: r.sortKey })),
-      query,
-      (row) => (query.estimate === 'full' ? toFinding(row, now) : toFindingListItem(row, now)),
-    );
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toFindingListItem(row, now));
+  }
+
+  /** The same page, each finding whole as GET /findings/:id answers it. */
+  async listWhole(user: AuthUser, query: FindingListQuery): Promise<ListResponse<Finding>> {
+    const rows = await this.findings.listWhole(user.organisationId, query, this.foremanScope(user));
+    const now = Date.now();
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toFinding(row, now));
+  }
+
+  /** The same page as the export writes it (the export pages through the list with these). */
+  async exportPage(user: AuthUser, query: FindingListQuery): Promise<ListResponse<ExportFinding>> {
+    const rows = await this.findings.listForExport(user.organisationId, query, this.foremanScope(user));
+    const now = Date.now();
+    return toPage(rows.map((r) => ({ ...r.row, sortKey: r.sortKey })), query, (row) => toExportFinding(row, now));
+  }
+
+  private foremanScope(user: AuthUser): string | undefined {
+    return user.role === 'foreman' ? user.userId : undefined;
   }
 
   async get(user: AuthUser, id: string): Promise<Finding> {

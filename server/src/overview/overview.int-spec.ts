@@ -32,6 +32,12 @@ beforeAll(async () => {
   await insertFix(db, org, f6, 30);
   verifiedAt = new Date(Date.now() - 3_600_000);
   await insertVerification(db, f6, 'verified', verifiedAt.toISOString());
+  // Verified a second time in the same week: still one finding closed that week.
+  await insertVerification(db, f6, 'verified', verifiedAt.toISOString());
+  // First fixed before the period (100 days ago), fixed again within it: not a first fix of the period.
+  const f8 = await insertFinding(db, org, scaffoldA, { band: 'High', state: 'verified', raisedHoursAgo: 100 * 24, lift: 7, bay: 7 });
+  await insertFix(db, org, f8, 1);
+  await insertFix(db, org, f8, 99 * 24);
   await insertConflict(db, org, f1, 'open');
   await insertConflict(db, org, f3, 'resolved');
 });
@@ -127,7 +133,7 @@ describe('the trends of a hand-built site', () => {
     expect({ High: sum('High'), Medium: sum('Medium'), Low: sum('Low') }).toEqual({ High: 2, Medium: 3, Low: 2 });
   });
 
-  it('counts a verified finding as closed in the week of its verification', async () => {
+  it('counts a verified finding as closed in the week of its verification, once however often it was verified', async () => {
     const res = await api.call('demo:manager', 'GET', `/trends?siteId=${site}`);
     const week = res.body.weeks.find((w: { weekStart: string }) => {
       const start = Date.parse(w.weekStart);
@@ -138,13 +144,29 @@ describe('the trends of a hand-built site', () => {
     expect(closed).toBe(1);
   });
 
-  it('gives the median time to the first fix by band (Low: 10 h and 30 h, median 20 h)', async () => {
+  it('gives the median time to the first fix by band (Low: 10 h and 30 h, median 20 h), leaving out findings first fixed before the period', async () => {
     const res = await api.call('demo:manager', 'GET', `/trends?siteId=${site}`);
     expect(res.body.timeToFix).toEqual([
       { band: 'Low', medianHours: 20, fixes: 2 },
       { band: 'Medium', medianHours: 30, fixes: 1 },
       { band: 'High', medianHours: null, fixes: 0 },
     ]);
+  });
+
+  it('keeps each finding’s first fix time as the earliest of its fixes, whichever arrives first or is removed', async () => {
+    const db = api.t.drizzle;
+    const org = await orgIdOf(db, 'harrow-span');
+    const f = await insertFinding(db, org, scaffoldA, { band: 'Low', state: 'verified', raisedHoursAgo: 100, lift: 9, bay: 9 });
+    const firstFix = async () =>
+      (await db.execute<{ hours: number | null }>(sql`SELECT date_part('epoch', first_fixed_at - created_at) / 3600 AS hours FROM findings WHERE id = ${f}`)).rows[0].hours;
+    expect(await firstFix()).toBeNull();
+    await insertFix(db, org, f, 50);
+    expect(await firstFix()).toBe(50);
+    await insertFix(db, org, f, 5); // recorded offline earlier, synced later
+    expect(await firstFix()).toBe(5);
+    await db.execute(sql`DELETE FROM fixes WHERE finding_id = ${f} AND fixed_at = (SELECT created_at FROM findings WHERE id = ${f}) + interval '5 hours'`);
+    expect(await firstFix()).toBe(50);
+    await db.execute(sql`DELETE FROM findings WHERE id = ${f}`);
   });
 
   it('lists the same scaffold, lift and bay with three findings in 30 days as a repeat location, and nothing with fewer', async () => {

@@ -166,6 +166,7 @@ export class BatchSyncStore implements FindingStore {
       handBack: null,
       syncFields: {},
       ...(defined(values) as FindingInsert),
+      firstFixedAt: null, // kept by the database (triggers on fixes); never written from here
       createdAt: this.now_,
       updatedAt: this.now_,
       version: 1,

@@ -243,18 +243,34 @@ export const FindingAssignSchema = z.object({
 });
 export type FindingAssign = z.infer<typeof FindingAssignSchema>;
 
-/**
- * The estimate as lists carry it: every figure, the severity and likelihood levels with their
- * words, but not the long explanations (basis, reasons, resolved inputs) that only the detail
- * (GET /findings/:id) shows. Keeps a page of 50 findings small for phones and fast under load.
- */
-export const FindingEstimateSummarySchema = FindingEstimateSchema.omit({ resolved: true }).extend({
-  severity: z.object({ level: z.number().int(), label: z.string() }),
-  likelihood: z.object({ level: z.number().int(), label: z.string() }),
-});
-export type FindingEstimateSummary = z.infer<typeof FindingEstimateSummarySchema>;
+/** Characters of a finding's note that a list row carries. */
+export const NOTE_PREVIEW_MAX = 80;
 
-export const FindingListItemSchema = FindingSchema.extend({ estimate: FindingEstimateSummarySchema });
+/**
+ * A finding as lists carry it: what a row of a table or list shows, and no estimate (the detail,
+ * GET /findings/:id, has it whole, as does GET /findings?estimate=full). Keeps a page of 50
+ * findings near 20 KB for phones and fast under load.
+ */
+export const FindingListItemSchema = z.object({
+  id: IdSchema,
+  scaffoldId: IdSchema,
+  elevation: z.string(),
+  lift: z.number().int(),
+  bay: z.number().int(),
+  heightM: z.number(),
+  itemName: z.string(),
+  riskScore: z.number().int(),
+  riskBand: RiskBandSchema,
+  state: FindingStateSchema,
+  assigneeId: IdSchema.nullable(),
+  dueAt: DateTimeSchema.nullable(),
+  /** Open or made safe, and past its due time. */
+  overdue: z.boolean(),
+  /** The note's first NOTE_PREVIEW_MAX characters, ending in "…" when there is more. */
+  notePreview: z.string(),
+  /** When it was raised. */
+  createdAt: DateTimeSchema,
+});
 export type FindingListItem = z.infer<typeof FindingListItemSchema>;
 
 export const FindingListQuerySchema = z.object({
@@ -273,7 +289,7 @@ export const FindingListQuerySchema = z.object({
   raisedTo: DateTimeSchema.optional(),
   /** Free text, matched case-insensitively within the item's name and the note. */
   q: z.string().trim().min(1).max(200).optional(),
-  /** `summary` (default): FindingListItemSchema; `full`: every item as GET /findings/:id answers it (FindingFullListResponseSchema). */
+  /** `summary` (default): rows of FindingListItemSchema, without the estimate; `full`: every item as GET /findings/:id answers it (FindingFullListResponseSchema). */
   estimate: z.enum(['summary', 'full']).default('summary'),
 });
 export type FindingListQuery = z.infer<typeof FindingListQuerySchema>;

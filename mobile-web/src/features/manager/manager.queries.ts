@@ -22,7 +22,8 @@ export const managerKeys = {
   all: ['manager'] as const,
   overview: (siteId?: string) => [...managerKeys.all, 'overview', siteId ?? 'organisation'] as const,
   trends: (siteId: string | undefined, weeks: number) => [...managerKeys.all, 'trends', siteId ?? 'organisation', weeks] as const,
-  findings: (filters: FindingFilters) => [...managerKeys.all, 'findings', filters] as const,
+  // Rows without the estimate; a copy of the earlier whole findings, kept offline under 'findings', is left unread.
+  findings: (filters: FindingFilters) => [...managerKeys.all, 'finding-rows', filters] as const,
   finding: (id: string) => [...managerKeys.all, 'finding', id] as const,
   history: (id: string) => [...managerKeys.all, 'finding', id, 'history'] as const,
   photos: (id: string) => [...managerKeys.all, 'finding', id, 'photos'] as const,

@@ -19,8 +19,8 @@ export interface OfflineCopyResult {
 export function useMakeSiteOfflineMutation() {
   return useMutation({
     mutationFn: async ({ site, organisationId }: { site: Site; organisationId: string }): Promise<OfflineCopyResult> => {
-      // The change feed brings findings whole; the site's list route trims their estimate to a
-      // summary. Syncing first puts the whole records on the phone, and the download keeps them.
+      // Syncing first sends what waits in the outbox and brings the change feed up to date; the
+      // download then adds the site's open findings, whole, that the feed has not brought.
       await currentSyncEngine()?.sync();
       const download = await downloadSite(db, site, organisationId, {
         scaffolds: fetchScaffoldsOfSite,

@@ -6,11 +6,17 @@ import { useSession, useUnits } from '../../auth/session.queries';
 import { FindingFiltersBar } from '../components/FindingFiltersBar';
 import { findingsColumns, findingsTableFeatures } from '../components/findings-columns';
 import { ManagerLayout } from '../components/ManagerLayout';
+import { TableScroll } from '../components/TableScroll';
 import { readColumnChoice, saveColumnChoice } from '../column-choice';
 import { filtersFromSearch, filtersToSearch, SORTABLE, type FindingFilters } from '../finding-filters';
 import { downloadFindingsCsv } from '../manager.api';
 import { useAssignFindingsMutation } from '../manager.mutations';
 import { useFindingsTable, useMembers, useScaffolds } from '../manager.queries';
+
+/** The heading a stacked card shows before a value (none for the selection box and the item, which speak for themselves). */
+function cellLabel(id: string, header: unknown): string | undefined {
+  return id === 'select' || id === 'item' || typeof header !== 'string' ? undefined : header;
+}
 
 /** Every finding of the organisation, filtered and sorted by the server, a page of 50 at a time. */
 export function FindingsTablePage() {
@@ -112,8 +118,8 @@ export function FindingsTablePage() {
           </button>
         </div>
       )}
-      <div className="manager-table-wrap">
-        <table className="manager-table" data-testid="findings-table">
+      <TableScroll label="Findings table">
+        <table className="manager-table manager-table--stack" data-testid="findings-table">
           <caption className="visually-hidden">Findings, sorted by {filters.sort} {filters.order === 'desc' ? 'descending' : 'ascending'}</caption>
           <thead>
             {table.getHeaderGroups().map((group) => (
@@ -122,7 +128,7 @@ export function FindingsTablePage() {
                   const sortable = SORTABLE.includes(header.column.id as FindingFilters['sort']);
                   const sorted = filters.sort === header.column.id ? (filters.order === 'desc' ? 'descending' : 'ascending') : undefined;
                   return (
-                    <th key={header.id} scope="col" aria-sort={sorted}>
+                    <th key={header.id} scope="col" aria-sort={sorted} className={sortable ? 'is-sortable' : header.column.id === 'select' ? 'is-select' : undefined}>
                       {sortable ? (
                         <button type="button" className="sort" onClick={header.column.getToggleSortingHandler()} data-testid={`sort-${header.column.id}`}>
                           <table.FlexRender header={header} /> {sorted === 'descending' ? '▼' : sorted === 'ascending' ? '▲' : ''}
@@ -140,7 +146,7 @@ export function FindingsTablePage() {
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} className="is-clickable" data-testid="finding-row" data-finding-id={row.id} onClick={() => navigate(`/review/${row.id}`)}>
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id}>
+                  <td key={cell.id} data-label={cellLabel(cell.column.id, cell.column.columnDef.header)}>
                     <table.FlexRender cell={cell} />
                   </td>
                 ))}
@@ -148,7 +154,7 @@ export function FindingsTablePage() {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       {rows.length === 0 && !query.isFetching && <p>No finding matches these filters.</p>}
       {query.isError && rows.length === 0 && <p role="alert">The findings could not be loaded: {query.error.message}</p>}
       {query.hasNextPage && (

@@ -2,6 +2,7 @@ import { type OverviewFigures, scaffoldStatusWords } from '@plummet/shared';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
+import { TableScroll } from '../components/TableScroll';
 import { useOverview, useSites } from '../manager.queries';
 
 const BANDS = ['High', 'Medium', 'Low'] as const;
@@ -82,7 +83,7 @@ export function OverviewPage() {
           {!siteId && (
             <section className="manager-section" aria-labelledby="overview-sites">
               <h2 id="overview-sites">By site</h2>
-              <div className="manager-table-wrap">
+              <TableScroll label="Sites table">
                 <table className="manager-table" data-testid="overview-sites">
                   <thead>
                     <tr>
@@ -121,7 +122,7 @@ export function OverviewPage() {
                     ))}
                   </tbody>
                 </table>
-              </div>
+              </TableScroll>
             </section>
           )}
         </>

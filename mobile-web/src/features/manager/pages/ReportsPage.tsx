@@ -3,6 +3,7 @@ import type { Inspection } from '@plummet/shared';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
+import { TableScroll } from '../components/TableScroll';
 import { downloadInspectionReport, openInspectionReport, sendInspectionReportAgain } from '../manager.api';
 import { useScaffoldReports, useScaffolds, useSites } from '../manager.queries';
 
@@ -84,7 +85,7 @@ export function ReportsPage() {
     <ManagerLayout title="Reports" loadedAt={scaffolds.dataUpdatedAt} refreshFailed={scaffolds.isError} testId="reports-page">
       <section className="manager-section" aria-labelledby="reports-scaffolds">
         <h2 id="reports-scaffolds">Scaffolds{filters.length ? `: ${filters.join(', ')}` : ''}</h2>
-        <div className="manager-table-wrap">
+        <TableScroll label="Scaffolds table">
           <table className="manager-table" data-testid="reports-scaffolds">
             <thead>
               <tr>
@@ -109,7 +110,7 @@ export function ReportsPage() {
               ))}
             </tbody>
           </table>
-        </div>
+        </TableScroll>
         {shown.length === 0 && scaffolds.data && <p>No scaffold matches.</p>}
       </section>
       {reports.data && (

@@ -1,6 +1,7 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
+import { TableScroll } from '../components/TableScroll';
 import { useSites, useTrends } from '../manager.queries';
 
 const WeeklyChart = lazy(() => import('../components/WeeklyChart'));
@@ -49,7 +50,7 @@ export function TrendsPage() {
               <WeeklyChart title="Raised per week" weekStarts={chart.starts} series={chart.raised} />
               <WeeklyChart title="Verified per week" weekStarts={chart.starts} series={chart.closed} />
             </Suspense>
-            <div className="manager-table-wrap">
+            <TableScroll label="Raised and closed per week">
               <table className="manager-table" data-testid="trends-weekly-table">
                 <caption>Findings raised and verified per week, by band</caption>
                 <thead>
@@ -69,7 +70,7 @@ export function TrendsPage() {
                   ))}
                 </tbody>
               </table>
-            </div>
+            </TableScroll>
           </section>
           <section className="manager-section" aria-labelledby="trends-fix">
             <h2 id="trends-fix">Median time to fix</h2>

@@ -1,0 +1,2 @@
+ALTER TABLE "findings" ADD COLUMN "first_fixed_at" timestamp with time zone;--> statement-breakpoint
+CREATE INDEX "findings_first_fix_idx" ON "findings" USING btree ("organisation_id","first_fixed_at","risk_band","created_at","scaffold_id") WHERE "findings"."first_fixed_at" IS NOT NULL;
