@@ -1,7 +1,7 @@
 import { useIonAlert } from '@ionic/react';
 import { CATALOGUE_CATEGORIES, SHAPE_DIMENSIONS, SHAPE_KINDS, type CatalogueCategory, type CatalogueItem, type ShapeKind } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useState, type FormEvent } from 'react';
 import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
 import { useUnits } from '../../auth/session.queries';
 import { describeShape, DIMENSION_WORDS, SHAPE_WORDS } from '../../findings/finding-words';
@@ -110,7 +110,7 @@ function CatalogueItemForm({ units }: { units: Units }) {
     onError: (error) => setErrors(fieldErrorsOfError(error)),
   });
   const err = (path: string) => errorFor(errors, path);
-  function submit(event: React.FormEvent) {
+  function submit(event: FormEvent) {
     event.preventDefault();
     const checked = readCatalogueForm(form, units);
     if (!checked.ok) return setErrors(checked.errors);

@@ -1,6 +1,6 @@
 import { UNITS_VALUES, type OrganisationSettings } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
 import { describedBy, Field } from '../components/Field';
 import { SeverityTableEditor } from '../components/SeverityTableEditor';
@@ -55,7 +55,7 @@ function SettingsFormBody({ settings }: { settings: OrganisationSettings }) {
     </label>
   );
 
-  function submit(event: React.FormEvent) {
+  function submit(event: FormEvent) {
     event.preventDefault();
     const checked = readSettingsForm(form);
     if (!checked.ok) return setErrors(checked.errors);

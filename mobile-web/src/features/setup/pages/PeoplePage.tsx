@@ -1,7 +1,7 @@
 import { useIonAlert } from '@ionic/react';
 import { InvitationCreateSchema, ROLE_VALUES, type Member, type Role } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useState, type FormEvent } from 'react';
 import { useSession } from '../../auth/session.queries';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
 import { describedBy, Field } from '../components/Field';
@@ -167,7 +167,7 @@ function InviteForm({ onInvited }: { onInvited(member: Member): void }) {
     },
     onError: (error) => setErrors(fieldErrorsOfError(error)),
   });
-  function submit(event: React.FormEvent) {
+  function submit(event: FormEvent) {
     event.preventDefault();
     const parsed = InvitationCreateSchema.safeParse(form);
     if (!parsed.success) return setErrors(fieldErrorsOf(parsed.error.issues));

@@ -1,7 +1,7 @@
 import { useIonAlert } from '@ionic/react';
 import { INSPECTION_REGIMES, LOAD_CLASS_WORDS, LOAD_CLASSES, type Scaffold, type Site } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useEffect, useState } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useUnits } from '../../auth/session.queries';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
@@ -71,7 +71,7 @@ function ScaffoldEditor({ site, scaffold }: { site: Site; scaffold?: Scaffold })
   const err = (path: string) => errorFor(errors, path);
   const height = unitLabel('height', units);
 
-  function submit(event: React.FormEvent) {
+  function submit(event: FormEvent) {
     event.preventDefault();
     const checked = scaffold ? readScaffoldChange(form, scaffold, units) : readScaffoldForm(form, site.id, units);
     if (!checked.ok) return setErrors(checked.errors);

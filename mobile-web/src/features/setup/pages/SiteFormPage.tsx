@@ -1,6 +1,6 @@
 import { INSPECTION_REGIMES, JURISDICTIONS, type Site } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
 import { describedBy, Field } from '../components/Field';
@@ -60,7 +60,7 @@ function SiteFormBody({ site }: { site?: Site }) {
     </Field>
   );
 
-  function submit(event: React.FormEvent) {
+  function submit(event: FormEvent) {
     event.preventDefault();
     const checked = site ? readSiteChange(form, site) : readSiteForm(form);
     if (!checked.ok) return setErrors(checked.errors);
