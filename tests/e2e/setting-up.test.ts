@@ -4,7 +4,7 @@ import { simpleParser } from 'mailparser';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchBrowser, launchPhone } from '../support/browser.js';
-import { onScreen, typeInto } from '../support/phone-page.js';
+import { onScreen, readTable, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 const NEW_FOREMAN = { name: 'Robin Fairweather', email: `robin.fairweather.${Date.now()}@demo.test` };
@@ -116,7 +116,7 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
   });
 
   it('a manager adds a site and a scaffold, the drawing following the form', async () => {
-    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 1100 } });
     const manager = await desk.newPage();
     manager.on('pageerror', (e) => pageErrors.push(e.message));
     await signIn(manager, server.url, 'manager@demo.test', 'plummet-demo');
@@ -164,13 +164,37 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
     await form.locator('#scaffold-design').fill('Design sheet WL-07 rev A');
     await form.locator('#scaffold-contractor').fill('Northgate Access Ltd');
     await form.locator('#scaffold-handed-over').fill('2026-03-02');
-    await manager.screenshot({ path: artifactPath('scaffold-editor.png'), fullPage: true });
+    await form.locator('#scaffold-reference').focus();
+    await manager.getByTestId('offline-ready').waitFor({ state: 'detached', timeout: 15_000 });
+    await manager.locator('ion-content').filter({ visible: true }).evaluate((el) => (el as HTMLElement & { scrollToTop(ms: number): Promise<void> }).scrollToTop(0));
+    await manager.screenshot({ path: artifactPath('scaffold-editor.png') });
     await onScreen(manager, 'save-scaffold').click();
 
     // Saved: the editor reopens on the new scaffold, closed to use until its first inspection.
     await expect.poll(() => new URL(manager.url()).pathname, { timeout: 15_000 }).toMatch(/^\/setup\/scaffolds\//);
     await expect.poll(() => onScreen(manager, 'scaffold-status').getAttribute('data-status'), { timeout: 15_000 }).toBe('closed');
+    const editorPath = new URL(manager.url()).pathname;
     await desk.close();
+
+    // The same editor on a phone: nothing wider than the screen but the drawing's own scroller.
+    const phone = await launchPhone();
+    try {
+      const page = await phone.context.newPage();
+      page.on('pageerror', (e) => pageErrors.push(e.message));
+      await signIn(page, server.url, 'manager@demo.test', 'plummet-demo');
+      await onScreen(page, 'overview-page').waitFor({ timeout: 20_000 });
+      await page.goto(`${server.url}${editorPath}`);
+      const phoneForm = onScreen(page, 'scaffold-form');
+      await phoneForm.waitFor({ timeout: 20_000 });
+      expect(await phoneForm.locator('#scaffold-reference').inputValue()).toBe('WL-1');
+      expect(await phoneForm.locator('#scaffold-lift-1').inputValue()).toBe('2.7');
+      const box = await phoneForm.boundingBox();
+      expect(box!.x + box!.width).toBeLessThanOrEqual(390);
+      await page.getByTestId('offline-ready').waitFor({ state: 'detached', timeout: 15_000 });
+      await page.screenshot({ path: artifactPath('scaffold-editor-phone.png') });
+    } finally {
+      await phone.close();
+    }
   });
 
   it('the inspector’s phone receives the site and scaffold after sync, and shows the scaffold closed until inspected', async () => {
@@ -180,9 +204,14 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
       page.on('pageerror', (e) => pageErrors.push(e.message));
       await signIn(page, server.url, 'inspector@demo.test', 'plummet-demo');
       await expect.poll(() => onScreen(page, 'session-expiry').textContent(), { timeout: 20_000 }).toMatch(/Works offline until/);
+      // The sync engine's pull puts the new scaffold on the phone, closed until its first inspection.
+      await expect
+        .poll(async () => (await readTable<{ reference: string; status: string }>(page, 'scaffolds')).find((s) => s.reference === 'WL-1')?.status, { timeout: 30_000 })
+        .toBe('closed');
       const card = onScreen(page, 'site-card').filter({ hasText: SITE_NAME });
       await card.waitFor({ timeout: 30_000 });
-      await card.getByTestId('open-site').click();
+      await card.getByTestId('make-offline').click();
+      await card.getByTestId('open-site').click({ timeout: 30_000 });
       const byReference = page.locator('[data-testid="scaffold-card"][data-reference="WL-1"]').filter({ visible: true });
       await byReference.waitFor({ timeout: 30_000 });
       expect(await byReference.getByTestId('scaffold-status').getAttribute('data-status')).toBe('closed');

@@ -18,9 +18,9 @@ export function ScaffoldPreviewPanel({ form, units }: { form: ScaffoldForm; unit
         {formatQuantity('height', topPlatformHeightM(preview), units)}.
       </p>
       {preview.elevations.length > 1 && (
-        <div className="manager-actions" role="group" aria-label="Elevation shown">
+        <div className="setup-toggles" role="group" aria-label="Elevation shown">
           {preview.elevations.map((name, i) => (
-            <button key={`${name}-${i}`} type="button" className={`manager-button ${i === index ? '' : 'manager-button--plain'}`} aria-pressed={i === index} onClick={() => setChosen(i)}>
+            <button key={`${name}-${i}`} type="button" aria-pressed={i === index} onClick={() => setChosen(i)}>
               {name}
             </button>
           ))}
