@@ -2,8 +2,16 @@
  * An organisation's own catalogue item: typed in the user's units, checked by the shared schema and,
  * for the shape, by the physics' own shape rules (the same that guard every estimate).
  */
-import { CatalogueItemCreateSchema, SHAPE_DIMENSIONS, shapeIssuesOf, type CatalogueCategory, type CatalogueItemCreate, type ShapeKind } from '@plummet/shared';
-import { parseQuantity, type Units } from '../../lib/units';
+import {
+  CatalogueItemCreateSchema,
+  SHAPE_DIMENSIONS,
+  shapeIssuesOf,
+  type CatalogueCategory,
+  type CatalogueItem,
+  type CatalogueItemCreate,
+  type ShapeKind,
+} from '@plummet/shared';
+import { formatForInput, parseQuantity, type Units } from '../../lib/units';
 import { fieldErrorsOf, type FieldErrors } from './form-errors';
 
 export interface CatalogueForm {
@@ -17,6 +25,13 @@ export interface CatalogueForm {
 }
 
 export const newCatalogueForm = (): CatalogueForm => ({ name: '', category: 'other', mass: '', kind: 'box', sizes: {}, source: '' });
+
+/** An own item back in the form, to change it. */
+export function catalogueFormOf(item: CatalogueItem, units: Units): CatalogueForm {
+  const sizes: Record<string, string> = {};
+  for (const field of SHAPE_DIMENSIONS[item.shape.kind]) sizes[field] = formatForInput('size', (item.shape as unknown as Record<string, number>)[field], units);
+  return { name: item.name, category: item.category, mass: formatForInput('mass', item.massKg, units), kind: item.shape.kind, sizes, source: item.source };
+}
 
 const DIMENSION_WORDS: Record<string, string> = { lengthM: 'Length', widthM: 'Width', heightM: 'Height', thicknessM: 'Thickness', diameterM: 'Diameter' };
 

@@ -9,6 +9,7 @@ import {
   SiteSchema,
   type CatalogueItem,
   type CatalogueItemCreate,
+  type CatalogueItemUpdate,
   type Foreman,
   type InvitationCreate,
   type Member,
@@ -73,6 +74,9 @@ export async function updateOrganisationSettings(body: OrganisationSettingsUpdat
 
 export async function createCatalogueItem(body: CatalogueItemCreate): Promise<CatalogueItem> {
   return CatalogueItemSchema.parse(await authorisedFetch('/catalogue', { method: 'POST', body }));
+}
+export async function updateCatalogueItem(id: string, body: CatalogueItemUpdate): Promise<CatalogueItem> {
+  return CatalogueItemSchema.parse(await authorisedFetch(`/catalogue/${id}`, { method: 'PATCH', body }));
 }
 export async function deleteCatalogueItem(id: string): Promise<void> {
   await authorisedFetch(`/catalogue/${id}`, { method: 'DELETE' });

@@ -1,5 +1,13 @@
 import { useIonAlert } from '@ionic/react';
-import { CATALOGUE_CATEGORIES, SHAPE_DIMENSIONS, SHAPE_KINDS, type CatalogueCategory, type CatalogueItem, type ShapeKind } from '@plummet/shared';
+import {
+  CATALOGUE_CATEGORIES,
+  SHAPE_DIMENSIONS,
+  SHAPE_KINDS,
+  type CatalogueCategory,
+  type CatalogueItem,
+  type CatalogueItemCreate,
+  type ShapeKind,
+} from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
@@ -7,9 +15,9 @@ import { useUnits } from '../../auth/session.queries';
 import { describeShape, DIMENSION_WORDS, SHAPE_WORDS } from '../../findings/finding-words';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
 import { describedBy, Field } from '../components/Field';
-import { newCatalogueForm, readCatalogueForm, type CatalogueForm } from '../catalogue-form';
+import { catalogueFormOf, newCatalogueForm, readCatalogueForm, type CatalogueForm } from '../catalogue-form';
 import { errorFor, fieldErrorsOfError, type FieldErrors } from '../form-errors';
-import { createCatalogueItem, deleteCatalogueItem } from '../setup.api';
+import { createCatalogueItem, deleteCatalogueItem, updateCatalogueItem } from '../setup.api';
 import { useCatalogueItems, useRefreshSetup } from '../setup.queries';
 import '../setup.css';
 
@@ -29,6 +37,7 @@ export function CatalogueSetupPage() {
   const units = useUnits();
   const refresh = useRefreshSetup();
   const [presentAlert] = useIonAlert();
+  const [editing, setEditing] = useState<CatalogueItem | null>(null);
   const remove = useMutation({ mutationFn: deleteCatalogueItem, onSuccess: refresh });
   const own = items.data?.filter((i) => !i.builtIn) ?? [];
   const builtIn = items.data?.filter((i) => i.builtIn) ?? [];
@@ -41,12 +50,12 @@ export function CatalogueSetupPage() {
   return (
     <ManagerLayout title="Item catalogue" testId="catalogue-setup-page">
       <section className="manager-section">
-        <h2>Add an item of your own</h2>
-        <CatalogueItemForm units={units} />
+        <h2>{editing ? `Change ${editing.name}` : 'Add an item of your own'}</h2>
+        <CatalogueItemForm key={editing?.id ?? 'new'} units={units} item={editing ?? undefined} onDone={() => setEditing(null)} />
       </section>
       <section className="manager-section">
         <h2>Your items</h2>
-        {own.length === 0 ? <p className="setup-muted">None yet.</p> : <ItemTable items={own} units={units} onRemove={confirmRemove} />}
+        {own.length === 0 ? <p className="setup-muted">None yet.</p> : <ItemTable items={own} units={units} onRemove={confirmRemove} onChange={setEditing} />}
       </section>
       <section className="manager-section">
         <h2>Built into Plummet</h2>
@@ -56,7 +65,14 @@ export function CatalogueSetupPage() {
   );
 }
 
-function ItemTable({ items, units, onRemove }: { items: CatalogueItem[]; units: Units; onRemove?(item: CatalogueItem): void }) {
+interface ItemTableProps {
+  items: CatalogueItem[];
+  units: Units;
+  onRemove?(item: CatalogueItem): void;
+  onChange?(item: CatalogueItem): void;
+}
+
+function ItemTable({ items, units, onRemove, onChange }: ItemTableProps) {
   return (
     <div className="manager-table-wrap">
       <table className="manager-table">
@@ -84,9 +100,16 @@ function ItemTable({ items, units, onRemove }: { items: CatalogueItem[]; units: 
               <td className="setup-muted">{item.source}</td>
               {onRemove && (
                 <td>
-                  <button type="button" className="manager-button manager-button--plain" onClick={() => onRemove(item)}>
-                    Remove…
-                  </button>
+                  <div className="setup-card__actions">
+                    {onChange && (
+                      <button type="button" className="manager-button manager-button--plain" onClick={() => onChange(item)}>
+                        Change
+                      </button>
+                    )}
+                    <button type="button" className="manager-button manager-button--plain" onClick={() => onRemove(item)}>
+                      Remove…
+                    </button>
+                  </div>
                 </td>
               )}
             </tr>
@@ -97,15 +120,16 @@ function ItemTable({ items, units, onRemove }: { items: CatalogueItem[]; units: 
   );
 }
 
-function CatalogueItemForm({ units }: { units: Units }) {
+function CatalogueItemForm({ units, item, onDone }: { units: Units; item?: CatalogueItem; onDone(): void }) {
   const refresh = useRefreshSetup();
-  const [form, setForm] = useState<CatalogueForm>(newCatalogueForm);
+  const [form, setForm] = useState<CatalogueForm>(() => (item ? catalogueFormOf(item, units) : newCatalogueForm()));
   const [errors, setErrors] = useState<FieldErrors>({});
   const create = useMutation({
-    mutationFn: createCatalogueItem,
+    mutationFn: (body: CatalogueItemCreate) => (item ? updateCatalogueItem(item.id, { ...body, version: item.version }) : createCatalogueItem(body)),
     onSuccess: async () => {
       setForm(newCatalogueForm());
       await refresh();
+      onDone();
     },
     onError: (error) => setErrors(fieldErrorsOfError(error)),
   });
@@ -166,9 +190,14 @@ function CatalogueItemForm({ units }: { units: Units }) {
         </p>
       )}
       <div className="manager-actions">
-        <button type="submit" className="manager-button" disabled={create.isPending}>
-          {create.isPending ? 'Adding…' : 'Add the item'}
+        <button type="submit" className="manager-button" disabled={create.isPending} data-testid="save-item">
+          {create.isPending ? 'Saving…' : item ? 'Save the changes' : 'Add the item'}
         </button>
+        {item && (
+          <button type="button" className="manager-button manager-button--plain" onClick={onDone}>
+            Cancel
+          </button>
+        )}
       </div>
     </form>
   );
