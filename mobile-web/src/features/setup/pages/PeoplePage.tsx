@@ -74,12 +74,12 @@ export function PeoplePage() {
         <InviteForm onInvited={(m) => setNote(`Invitation sent to ${m.email}.`)} />
       </section>
       {note && (
-        <p className="setup-form__saved" role="status" data-testid="people-note">
+        <p className="setup-form__saved setup-note" role="status" data-testid="people-note">
           {note}
         </p>
       )}
       {rowError && (
-        <p className="setup-form__error" role="alert">
+        <p className="setup-form__error setup-note" role="alert">
           {rowError}
         </p>
       )}
@@ -127,6 +127,7 @@ export function PeoplePage() {
                   </td>
                   <td>
                     <div className="setup-card__actions">
+                      {member.id === me && <span className="setup-muted">You (another admin changes your role)</span>}
                       {member.invitationPending && member.active && (
                         <button type="button" className="manager-button manager-button--plain" onClick={() => resend.mutate(member)} disabled={resend.isPending}>
                           Send the invitation again
