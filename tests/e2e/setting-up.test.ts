@@ -10,6 +10,8 @@ import { type RunningServer, startBuiltServer } from '../support/server.js';
 const NEW_FOREMAN = { name: 'Robin Fairweather', email: `robin.fairweather.${Date.now()}@demo.test` };
 const NEW_PASSWORD = 'kestrel-harbour-42';
 const SITE_NAME = 'Wharf Lane Offices';
+/** Each step drives two or three browsers in turn; on a loaded machine that outlasts the default. */
+const JOURNEY_TIMEOUT_MS = 300_000;
 
 async function signIn(page: Page, url: string, email: string, password: string): Promise<void> {
   await page.goto(url);
@@ -113,7 +115,7 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
     await admin.reload();
     await expect.poll(async () => (await onScreen(admin, `member-${NEW_FOREMAN.email}`).innerText()).includes('Active'), { timeout: 15_000 }).toBe(true);
     await desk.close();
-  });
+  }, JOURNEY_TIMEOUT_MS);
 
   it('a manager adds a site and a scaffold, the drawing following the form', async () => {
     const desk = await browser.newContext({ viewport: { width: 1366, height: 1100 } });
@@ -195,7 +197,7 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
     } finally {
       await phone.close();
     }
-  });
+  }, JOURNEY_TIMEOUT_MS);
 
   it('the inspector’s phone receives the site and scaffold after sync, and shows the scaffold closed until inspected', async () => {
     const phone = await launchPhone();
@@ -220,5 +222,5 @@ describe('setting up: people, a site and a scaffold, and the phone receiving the
       await phone.close();
     }
     expect(pageErrors).toEqual([]);
-  });
+  }, JOURNEY_TIMEOUT_MS);
 });
