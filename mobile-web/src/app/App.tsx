@@ -4,7 +4,14 @@ import { QueryClientProvider } from '@tanstack/react-query';
 import { Suspense } from 'react';
 import { Navigate, Route, Routes } from 'react-router-dom';
 import {
+  AcceptInvitePage,
   CalculatorPage,
+  CatalogueSetupPage,
+  OrganisationSettingsPage,
+  PeoplePage,
+  ScaffoldFormPage,
+  SiteFormPage,
+  SitesSetupPage,
   FindingEditorPage,
   FindingListPage,
   FixListPage,
@@ -40,6 +47,7 @@ export function App() {
             <Routes>
               <Route path="/" element={<Lazy page={HomePage} />} />
               <Route path="/sign-in" element={<Lazy page={SignInPage} />} />
+              <Route path="/accept-invite" element={<Lazy page={AcceptInvitePage} />} />
               <Route path="/sites/:siteId" element={<Lazy page={SitePage} />} />
               <Route path="/sites/:siteId/findings" element={<Lazy page={FindingListPage} />} />
               <Route path="/scaffolds/:scaffoldId" element={<Lazy page={ScaffoldPage} />} />
@@ -59,6 +67,14 @@ export function App() {
               <Route path="/fix-list/:findingId" element={<Lazy page={FixPage} />} />
               <Route path="/shift" element={<Lazy page={ShiftPage} />} />
               <Route path="/to-verify" element={<Lazy page={ToVerifyPage} />} />
+              <Route path="/setup/sites" element={<Lazy page={SitesSetupPage} />} />
+              <Route path="/setup/sites/new" element={<Lazy page={SiteFormPage} />} />
+              <Route path="/setup/sites/:siteId" element={<Lazy page={SiteFormPage} />} />
+              <Route path="/setup/sites/:siteId/scaffolds/new" element={<Lazy page={ScaffoldFormPage} />} />
+              <Route path="/setup/scaffolds/:scaffoldId" element={<Lazy page={ScaffoldFormPage} />} />
+              <Route path="/setup/people" element={<Lazy page={PeoplePage} />} />
+              <Route path="/setup/organisation" element={<Lazy page={OrganisationSettingsPage} />} />
+              <Route path="/setup/catalogue" element={<Lazy page={CatalogueSetupPage} />} />
               <Route path="*" element={<Navigate to="/" replace />} />
             </Routes>
           </IonRouterOutlet>

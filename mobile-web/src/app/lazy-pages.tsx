@@ -29,6 +29,13 @@ export const FindingsTablePage = page(() => import('../features/manager/pages/Fi
 export const ManagerFindingPage = page(() => import('../features/manager/pages/ManagerFindingPage'), 'ManagerFindingPage');
 export const TrendsPage = page(() => import('../features/manager/pages/TrendsPage'), 'TrendsPage');
 export const ReportsPage = page(() => import('../features/manager/pages/ReportsPage'), 'ReportsPage');
+export const AcceptInvitePage = page(() => import('../features/auth/pages/AcceptInvitePage'), 'AcceptInvitePage');
+export const SitesSetupPage = page(() => import('../features/setup/pages/SitesSetupPage'), 'SitesSetupPage');
+export const SiteFormPage = page(() => import('../features/setup/pages/SiteFormPage'), 'SiteFormPage');
+export const ScaffoldFormPage = page(() => import('../features/setup/pages/ScaffoldFormPage'), 'ScaffoldFormPage');
+export const PeoplePage = page(() => import('../features/setup/pages/PeoplePage'), 'PeoplePage');
+export const OrganisationSettingsPage = page(() => import('../features/setup/pages/OrganisationSettingsPage'), 'OrganisationSettingsPage');
+export const CatalogueSetupPage = page(() => import('../features/setup/pages/CatalogueSetupPage'), 'CatalogueSetupPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
 

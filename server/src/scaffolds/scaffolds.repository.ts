@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, inArray, isNotNull, lt, type SQL, sql } from 'drizzle-orm';
-import type { ScaffoldCreate, ScaffoldListQuery, ScaffoldStatus, ScaffoldUpdate } from '@plummet/shared';
+import type { InspectionRegime, ScaffoldCreate, ScaffoldListQuery, ScaffoldStatus, ScaffoldUpdate } from '@plummet/shared';
 import { scaffoldInScope } from '../common/foreman-scope.js';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
@@ -15,7 +15,7 @@ const SORTS: Record<ScaffoldListQuery['sort'], SortKey> = {
   nextDueAt: { expr: sql`coalesce(${scaffolds.nextDueAt}, 'infinity'::timestamptz)`, cast: 'timestamptz' },
 };
 
-/** The scaffold, with its site's regime and time zone (for when the next inspection is due). */
+/** The scaffold, with the regime it is inspected under (its own, else its site's) and the site's time zone (for when the next inspection is due). */
 export interface ScaffoldWithSite {
   scaffold: ScaffoldRow;
   site: { regime: '7-day' | 'pre-shift'; timeZone: string };
@@ -60,7 +60,10 @@ export class ScaffoldsRepository {
 
   async findWithSite(organisationId: string, id: string, executor: DbExecutor = this.db): Promise<ScaffoldWithSite | undefined> {
     const [row] = await executor
-      .select({ scaffold: scaffolds, site: { regime: sites.regime, timeZone: sites.timeZone } })
+      .select({
+        scaffold: scaffolds,
+        site: { regime: sql<InspectionRegime>`coalesce(${scaffolds.regime}, ${sites.regime})`, timeZone: sites.timeZone },
+      })
       .from(scaffolds)
       .innerJoin(sites, eq(sites.id, scaffolds.siteId))
       .where(and(eq(scaffolds.id, id), eq(scaffolds.organisationId, organisationId)))

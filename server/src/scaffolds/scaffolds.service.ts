@@ -1,11 +1,12 @@
 import { Inject, Injectable } from '@nestjs/common';
-import type {
-  ListResponse,
-  Scaffold,
-  ScaffoldCreate,
-  ScaffoldListQuery,
-  ScaffoldStatusChange,
-  ScaffoldUpdate,
+import {
+  liftHeightsMismatch,
+  type ListResponse,
+  type Scaffold,
+  type ScaffoldCreate,
+  type ScaffoldListQuery,
+  type ScaffoldStatusChange,
+  type ScaffoldUpdate,
 } from '@plummet/shared';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
@@ -16,6 +17,14 @@ import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { SitesRepository } from '../sites/sites.repository.js';
 import { toScaffold } from './scaffold.mapper.js';
 import { ScaffoldsRepository } from './scaffolds.repository.js';
+
+/** One height per lift or none (400 naming liftHeightsM), checked against the lifts after the change. */
+function checkLiftHeights(lifts: number, liftHeightsM: readonly number[]): void {
+  const mismatch = liftHeightsMismatch(lifts, liftHeightsM);
+  if (mismatch) {
+    throw new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [{ path: ['liftHeightsM'], code: 'custom', message: mismatch }]);
+  }
+}
 
 @Injectable()
 export class ScaffoldsService {
@@ -61,6 +70,7 @@ export class ScaffoldsService {
         throw new AppError(ErrorCode.Conflict, `The scaffold changed since version ${version}; it is now at version ${current.version}`);
       }
       await this.checkForeman(user, changes.foremanId, tx);
+      checkLiftHeights(changes.lifts ?? current.lifts, changes.liftHeightsM ?? current.liftHeightsM);
       const scaffold = toScaffold(await this.scaffolds.update(id, changes, tx));
       await this.audit.record(tx, user, { entityType: 'scaffold', entityId: id, action: 'update', before: toScaffold(current), after: scaffold });
       return scaffold;

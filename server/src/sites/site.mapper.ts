@@ -13,6 +13,7 @@ export function toSite(row: SiteRow): Site {
     clientContactEmail: row.clientContactEmail,
     timeZone: row.timeZone,
     regime: row.regime,
+    jurisdiction: row.jurisdiction,
     reportRecipients: row.reportRecipients,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),

@@ -20,6 +20,7 @@ export class SitesRepository {
     const page = keyset(SORTS[query.sort], sites.id, query);
     const where: (SQL | undefined)[] = [eq(sites.organisationId, organisationId), page.after];
     if (query.regime) where.push(eq(sites.regime, query.regime));
+    if (query.jurisdiction) where.push(eq(sites.jurisdiction, query.jurisdiction));
     return executor
       .select({ row: sites, sortKey: page.sortKey })
       .from(sites)

@@ -4,6 +4,7 @@
  */
 import {
   LIMITS,
+  liftPlatformHeightM,
   SHAPE_DIMENSIONS,
   type CatalogueItem,
   type FindingEstimateInput,
@@ -58,13 +59,16 @@ export function windAnswerFor(windSpeedMps: number | null | undefined): Likeliho
   return windSpeedMps < 10.8 ? 'breezy' : 'strong';
 }
 
-export function heightOfLift(lift: number, liftHeightM: number): number {
-  return lift * liftHeightM;
+/** Height of lift `lift`'s platform, m: the sum of the lifts below it (each its own height when listed). */
+export function heightOfLift(lift: number, liftHeightM: number, liftHeightsM?: readonly number[] | null): number {
+  return liftPlatformHeightM({ lifts: lift, liftHeightM, liftHeightsM }, lift);
 }
 
 export interface FormContext {
   units: Units;
   liftHeightM: number;
+  /** One height per lift when they differ (empty or absent: all are liftHeightM). */
+  liftHeightsM?: readonly number[] | null;
   windSpeedMps: number | null;
   catalogueItem?: Pick<CatalogueItem, 'id' | 'name' | 'massKg' | 'shape'>;
 }
@@ -118,7 +122,7 @@ function readItem(form: FindingForm, context: FormContext): { item?: ResolvedIte
 }
 
 export function readHeight(form: FindingForm, context: FormContext): { heightM?: number; problem?: string } {
-  if (form.heightMode === 'lift') return { heightM: heightOfLift(form.lift, context.liftHeightM) };
+  if (form.heightMode === 'lift') return { heightM: heightOfLift(form.lift, context.liftHeightM, context.liftHeightsM) };
   const heightM = parseQuantity('height', form.heightText, context.units);
   if (heightM === undefined || heightM <= 0) return { problem: 'Enter the measured height (more than zero).' };
   if (heightM > LIMITS.heightMaxM) return { problem: `The height cannot exceed ${LIMITS.heightMaxM} m.` };
@@ -181,9 +185,9 @@ export function formOfFinding(
     state: string;
     madeSafeNote: string | null;
   },
-  context: { units: Units; liftHeightM: number },
+  context: { units: Units; liftHeightM: number; liftHeightsM?: readonly number[] | null },
 ): FindingForm {
-  const fromLift = Math.abs(finding.heightM - heightOfLift(finding.lift, context.liftHeightM)) < 1e-9;
+  const fromLift = Math.abs(finding.heightM - heightOfLift(finding.lift, context.liftHeightM, context.liftHeightsM)) < 1e-9;
   const shape = finding.item.shape;
   const dimensionTexts: Record<string, string> = {};
   if (shape) {

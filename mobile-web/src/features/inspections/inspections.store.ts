@@ -1,6 +1,7 @@
 import {
   CONTROLS,
   nextInspectionDue,
+  regimeOfScaffold,
   type Control,
   type ControlResult,
   type InspectionFinish,
@@ -153,7 +154,7 @@ export async function finishInspection(
     const scaffold = await database.scaffolds.get(inspection.scaffoldId);
     const site: SiteRecord | undefined = scaffold ? await database.sites.get(scaffold.siteId) : undefined;
     if (scaffold) {
-      const nextDueAt = site ? nextInspectionDue(new Date(at), site.regime, site.timeZone).toISOString() : scaffold.nextDueAt;
+      const nextDueAt = site ? nextInspectionDue(new Date(at), regimeOfScaffold(scaffold, site), site.timeZone).toISOString() : scaffold.nextDueAt;
       await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt });
     }
     return finished;

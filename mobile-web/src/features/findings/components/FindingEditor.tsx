@@ -56,10 +56,10 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
   const patch = (changes: Partial<FindingForm>) => setForm((current) => ({ ...current, ...changes }));
 
   const catalogueItem = catalogue.find((item) => item.id === form.catalogueItemId);
-  const reading = readFindingForm(form, { units, liftHeightM: scaffold.liftHeightM, windSpeedMps, catalogueItem });
+  const reading = readFindingForm(form, { units, liftHeightM: scaffold.liftHeightM, liftHeightsM: scaffold.liftHeightsM, windSpeedMps, catalogueItem });
   const { result, problem } = tryEstimate(reading.input);
   const firstProblem = Object.values(reading.problems)[0];
-  const liftHeight = heightOfLift(form.lift, scaffold.liftHeightM);
+  const liftHeight = heightOfLift(form.lift, scaffold.liftHeightM, scaffold.liftHeightsM);
   const wasMadeSafe = existing?.state === 'made-safe';
 
   const leave = () => (router.canGoBack() ? router.goBack() : router.push(backHref, 'back', 'replace'));

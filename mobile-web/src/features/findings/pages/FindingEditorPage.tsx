@@ -71,7 +71,7 @@ export function FindingEditorPage() {
     lift: Math.min(scaffold.lifts, Math.max(1, Number(search.get('lift')) || 1)),
     bay: Math.min(scaffold.baysPerElevation, Math.max(1, Number(search.get('bay')) || 1)),
   };
-  const initialForm = existing ? formOfFinding(existing, { units, liftHeightM: scaffold.liftHeightM }) : newFindingForm(spot, windSpeedMps);
+  const initialForm = existing ? formOfFinding(existing, { units, liftHeightM: scaffold.liftHeightM, liftHeightsM: scaffold.liftHeightsM }) : newFindingForm(spot, windSpeedMps);
 
   return (
     <IonPage>

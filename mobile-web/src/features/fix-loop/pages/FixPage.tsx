@@ -122,6 +122,7 @@ export function FixPage() {
                     lifts={scaffold.lifts}
                     bays={scaffold.baysPerElevation}
                     liftHeightM={scaffold.liftHeightM}
+                    liftHeightsM={scaffold.liftHeightsM}
                     findings={[finding]}
                     selected={{ elevation: finding.elevation, lift: finding.lift, bay: finding.bay }}
                     onSelect={() => undefined}

@@ -3,13 +3,19 @@ import type { ReactNode } from 'react';
 import { NavLink } from 'react-router-dom';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { useOnlineStatus } from '../../../lib/use-online-status';
+import { useSession } from '../../auth/session.queries';
 import './ManagerLayout.css';
 
-const SECTIONS = [
+/** Sections of the managers' frame; the setting-up ones only for the roles that may change them. */
+const SECTIONS: readonly { to: string; label: string; adminOnly?: boolean }[] = [
   { to: '/overview', label: 'Overview' },
   { to: '/findings', label: 'Findings' },
   { to: '/trends', label: 'Trends' },
   { to: '/reports', label: 'Reports' },
+  { to: '/setup/sites', label: 'Sites and scaffolds' },
+  { to: '/setup/people', label: 'People', adminOnly: true },
+  { to: '/setup/organisation', label: 'Organisation', adminOnly: true },
+  { to: '/setup/catalogue', label: 'Item catalogue', adminOnly: true },
   { to: '/calculator', label: 'Quick estimate' },
   { to: '/settings', label: 'Settings' },
 ];
@@ -27,6 +33,7 @@ interface Props {
 /** The managers' frame: a side menu beside the page on a desk, a row of sections above it on a phone. */
 export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId }: Props) {
   const online = useOnlineStatus();
+  const isAdmin = useSession().session?.user.role === 'admin';
   const stale = loadedAt !== undefined && loadedAt > 0 && (!online || refreshFailed);
   return (
     <IonPage data-testid={testId}>
@@ -43,7 +50,7 @@ export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId
           <nav className="manager-layout__nav" aria-label="Manager sections">
             <span className="manager-layout__brand" aria-hidden="true">Plummet</span>
             <ul>
-              {SECTIONS.map((s) => (
+              {SECTIONS.filter((s) => isAdmin || !s.adminOnly).map((s) => (
                 <li key={s.to}>
                   <NavLink to={s.to} className={({ isActive }) => (isActive ? 'is-active' : undefined)}>
                     {s.label}

@@ -1,3 +1,4 @@
+import { liftPlatformHeightM } from '@plummet/shared';
 import { useMemo } from 'react';
 import { RiskBadge } from '../../../components/RiskBadge';
 import { formatQuantity, type Units } from '../../../lib/units';
@@ -21,6 +22,8 @@ interface ElevationGridProps {
   lifts: number;
   bays: number;
   liftHeightM: number;
+  /** One height per lift when they differ (empty or absent: all are liftHeightM). */
+  liftHeightsM?: readonly number[] | null;
   findings: readonly PinnedFinding[];
   selected?: GridSpot;
   onSelect(spot: GridSpot): void;
@@ -31,7 +34,7 @@ interface ElevationGridProps {
  * One face of the scaffold as a drawing of its lifts and bays, with every bay of every lift a
  * button. Findings are pinned where they are, with the band in words on its colour.
  */
-export function ElevationGrid({ elevation, lifts, bays, liftHeightM, findings, selected, onSelect, units }: ElevationGridProps) {
+export function ElevationGrid({ elevation, lifts, bays, liftHeightM, liftHeightsM, findings, selected, onSelect, units }: ElevationGridProps) {
   const geometry = useMemo(() => gridGeometry(lifts, bays), [lifts, bays]);
   const cells = useMemo(() => summariseCells(findings, elevation), [findings, elevation]);
   const liftNumbers = Array.from({ length: lifts }, (_, i) => lifts - i);
@@ -44,7 +47,7 @@ export function ElevationGrid({ elevation, lifts, bays, liftHeightM, findings, s
           {liftNumbers.map((lift) => (
             <div key={lift} className="elevation-grid__lift-label" style={{ top: geometry.platformY(lift) - CELL_HEIGHT, height: CELL_HEIGHT }}>
               <span className="elevation-grid__lift-number">Lift {lift}</span>
-              <span className="elevation-grid__lift-height">{formatQuantity('height', lift * liftHeightM, units)}</span>
+              <span className="elevation-grid__lift-height">{formatQuantity('height', liftPlatformHeightM({ lifts, liftHeightM, liftHeightsM }, lift), units)}</span>
             </div>
           ))}
           <div className="elevation-grid__lift-label elevation-grid__lift-label--ground" style={{ top: geometry.groundY - 12, height: BAY_AXIS_HEIGHT }}>

@@ -41,6 +41,7 @@ export function ScaffoldElevations({ scaffold, findings, units, onAddFinding }: 
         lifts={scaffold.lifts}
         bays={scaffold.baysPerElevation}
         liftHeightM={scaffold.liftHeightM}
+        liftHeightsM={scaffold.liftHeightsM}
         findings={findings}
         selected={selected}
         onSelect={setSelected}
