@@ -38,3 +38,4 @@ export * from './manager/overview.schema.js';
 export * from './manager/trends.schema.js';
 export * from './manager/reports.schema.js';
 export * from './manager/csv-cell.js';
+export * from './register/exclusion-zone.js';
