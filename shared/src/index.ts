@@ -39,3 +39,4 @@ export * from './manager/trends.schema.js';
 export * from './manager/reports.schema.js';
 export * from './manager/csv-cell.js';
 export * from './register/exclusion-zone.js';
+export * from './register/exclusion-zone.schema.js';

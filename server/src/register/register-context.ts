@@ -22,3 +22,11 @@ export function registerContextOf(
     timeZone: site.timeZone,
   };
 }
+
+/**
+ * Height of the top working platform above the ground, m: the top of the last lift. Scaffolds hold
+ * one lift height for now; with a height per lift, sum them here.
+ */
+export function topWorkingHeightOf(scaffold: { lifts: number; liftHeightM: number }): number {
+  return scaffold.lifts * scaffold.liftHeightM;
+}

@@ -31,8 +31,9 @@ export const scaffoldTriggers = pgTable(
 
 /**
  * The exclusion zone below one elevation of a scaffold: the heaviest item handled there (from the
- * catalogue), and the width the site actually barriers. The suggestion itself is computed by the
- * shared rule from these, the scaffold's height and the site's limiting wind speed.
+ * catalogue), the wind speed the site works up to, and the width the site actually barriers. The
+ * suggestion itself is computed by the shared rule from these and the scaffold's height; findings
+ * play no part, so the zone does not shrink as they are fixed.
  */
 export const exclusionZones = pgTable(
   'exclusion_zones',
@@ -42,6 +43,8 @@ export const exclusionZones = pgTable(
     scaffoldId: uuid('scaffold_id').notNull().references(() => scaffolds.id, { onDelete: 'cascade' }),
     elevation: text('elevation').notNull(),
     heaviestItemId: uuid('heaviest_item_id').references(() => catalogueItems.id, { onDelete: 'set null' }),
+    /** Wind speed up to which the site works at height, m/s (the drift is sized for it). */
+    limitingWindMps: real('limiting_wind_mps'),
     /** The width barriered below the elevation, measured out from its face, m. */
     barrieredWidthM: real('barriered_width_m'),
     createdAt: createdAt(),
