@@ -14,7 +14,7 @@ export interface RegisterContext {
 
 export function registerContextOf(
   site: { regime: InspectionRegime; timeZone: string; jurisdiction?: Jurisdiction | null },
-  scaffold: { regime?: InspectionRegime | null },
+  scaffold: { id: string; regime?: InspectionRegime | null },
 ): RegisterContext {
   return {
     jurisdiction: site.jurisdiction ?? 'uk',

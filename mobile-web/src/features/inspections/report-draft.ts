@@ -8,7 +8,7 @@ import type { ControlCheckRecord, FindingRecord, ScaffoldRecord, SiteRecord } fr
 import { formatQuantity, type Units } from '../../lib/units';
 import { CONTROL_WORDS } from './inspection-words';
 
-export type ReportFields = Omit<InspectionFinish, 'signature' | 'finishedAt'>;
+export type ReportFields = Omit<InspectionFinish, 'signature' | 'finishedAt' | 'tagStatus' | 'restriction' | 'accessTagsChanged'>;
 
 export const REPORT_FIELD_LABELS: Record<keyof ReportFields, string> = {
   reportFor: 'Report for (client)',

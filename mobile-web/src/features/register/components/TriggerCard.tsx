@@ -46,7 +46,7 @@ export function TriggerCard({ scaffold }: { scaffold: ScaffoldRecord }) {
         After an alteration or adverse weather the scaffold must be inspected before use ({TRIGGER_REGULATION.uk}; {TRIGGER_REGULATION.us}). Recording it
         closes the scaffold to use and puts its inspection on everyone&rsquo;s due list now.
       </p>
-      <ChoiceGroup
+      <ChoiceGroup<ScaffoldTriggerKind>
         legend="What happened"
         value={kind}
         choices={(['altered', 'adverse-weather'] as const).map((value) => ({ value, label: SCAFFOLD_TRIGGER_WORDS[value], hint: KIND_HINTS[value] }))}
