@@ -53,7 +53,7 @@ describe('an inspection on the phone', () => {
 
   it('refuses to finish before every control is answered', async () => {
     const { database, inspection } = await seeded();
-    await expect(finishInspection(database, inspection.id, report)).rejects.toThrow(/7 left/);
+    await expect(finishInspection(database, inspection.id, report)).rejects.toThrow(/10 left/);
   });
 
   it('finishes with the report, queues the finish and moves the scaffold’s due date on (7-day regime)', async () => {
