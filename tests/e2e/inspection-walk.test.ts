@@ -169,7 +169,7 @@ describe('the inspector’s walk with no signal', () => {
     await typeInto(page, 'control-toe-boards-note', 'Missing at North bay 7, lift 5');
     await onScreen(page, 'tab-checks').click(); // leave the note: it is saved on blur
     await attachPhoto(page, 'control-toe-boards-photo-input', jpegC);
-    await expect.poll(() => onScreen(page, 'control-toe-boards-photo').getAttribute('data-count')).toBe('1');
+    await expect.poll(() => onScreen(page, 'control-toe-boards-photo').getAttribute('data-count'), { timeout: 15_000 }).toBe('1');
     await expect.poll(() => onScreen(page, 'tab-checks').textContent()).toBe('Checks 10/10');
     await onScreen(page, 'control-toe-boards').scrollIntoViewIfNeeded();
     await page.screenshot({ path: artifactPath('control-checks.png') });
