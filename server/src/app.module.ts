@@ -26,6 +26,7 @@ import { OverviewModule } from './overview/overview.module.js';
 import { TrendsModule } from './trends/trends.module.js';
 import { ScaffoldReportsModule } from './scaffold-reports/scaffold-reports.module.js';
 import { ReportsModule } from './reports/reports.module.js';
+import { RegisterModule } from './register/register.module.js';
 
 /** Feature modules are listed here once each. */
 const FEATURES = [
@@ -48,6 +49,7 @@ const FEATURES = [
   TrendsModule,
   ScaffoldReportsModule,
   ReportsModule,
+  RegisterModule,
 ];
 
 @Module({})

@@ -125,7 +125,7 @@ export async function created<T = { id: string }>(api: DataApi, who: Who, method
   return res.body as T;
 }
 
-const DATA_TABLES = ['sites', 'scaffolds', 'inspections', 'control_checks', 'findings', 'fixes', 'verifications', 'catalogue_items', 'audit_events'] as const;
+const DATA_TABLES = ['sites', 'scaffolds', 'inspections', 'control_checks', 'findings', 'fixes', 'verifications', 'catalogue_items', 'audit_events', 'scaffold_triggers', 'exclusion_zones'] as const;
 
 /** Row count and content fingerprint of every table of the inspection data: a refused request must change neither. */
 export async function dataTablesDigest(db: Db): Promise<Record<string, string>> {

@@ -158,17 +158,19 @@ describe('the inspector’s walk with no signal', () => {
     await saveFinding(page);
     await onScreen(page, 'inspection-page').waitFor();
 
-    // The seven control checks; toe boards fail, with a note and a photo.
+    // The ten control checks; toe boards fail, with a note and a photo.
     await onScreen(page, 'tab-checks').click();
-    for (const control of ['brick-guards', 'netting-or-sheeting', 'fans-or-canopies', 'exclusion-zone-barriers', 'tool-tethering', 'material-storage']) {
+    expect(await onScreen(page, 'control-toe-boards-criterion').innerText()).toContain('150 mm'); // a UK site
+    const others = ['brick-guards', 'netting-or-sheeting', 'fans-or-canopies', 'exclusion-zone-barriers', 'tool-tethering', 'material-storage'];
+    for (const control of [...others, 'chutes-and-lowering', 'loading-bay-gates', 'guardrail-mesh']) {
       await choose(page, `control-${control}-result`, control === 'fans-or-canopies' ? 'not-applicable' : 'pass');
     }
     await choose(page, 'control-toe-boards-result', 'fail');
     await typeInto(page, 'control-toe-boards-note', 'Missing at North bay 7, lift 5');
     await onScreen(page, 'tab-checks').click(); // leave the note: it is saved on blur
     await attachPhoto(page, 'control-toe-boards-photo-input', jpegC);
-    await expect.poll(() => onScreen(page, 'control-toe-boards-photo').getAttribute('data-count')).toBe('1');
-    await expect.poll(() => onScreen(page, 'tab-checks').textContent()).toBe('Checks 7/7');
+    await expect.poll(() => onScreen(page, 'control-toe-boards-photo').getAttribute('data-count'), { timeout: 15_000 }).toBe('1');
+    await expect.poll(() => onScreen(page, 'tab-checks').textContent()).toBe('Checks 10/10');
     await onScreen(page, 'control-toe-boards').scrollIntoViewIfNeeded();
     await page.screenshot({ path: artifactPath('control-checks.png') });
 
@@ -194,6 +196,9 @@ describe('the inspector’s walk with no signal', () => {
       await page.mouse.move(pad.x + pad.width * 0.8, pad.y + pad.height * 0.7, { steps: 8 });
       await page.mouse.up();
     }
+    // The outcome written on the tag.
+    await choose(page, 'outcome-status', 'closed');
+    await choose(page, 'outcome-tags', 'yes');
     await page.screenshot({ path: artifactPath('finish-and-sign.png') });
     await onScreen(page, 'sign-and-finish').click();
     await onScreen(page, 'scaffold-page').waitFor();
@@ -237,7 +242,7 @@ describe('the inspector’s walk with no signal', () => {
       'finding:create': 3,
       'finding:state': 1,
       'photo:upload': 3,
-      'control-check:put': 7,
+      'control-check:put': 10,
       'inspection:finish': 1,
     });
     expect(await onScreen(page, 'outbox-count').getAttribute('data-count')).toBe(String(outbox.length));

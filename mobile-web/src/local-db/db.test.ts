@@ -43,10 +43,10 @@ function catalogueItem(id: string, name: string) {
 }
 
 describe('PlummetDb', () => {
-  it('opens at version 2 with every table the app needs', async () => {
+  it('opens at version 3 with every table the app needs', async () => {
     const database = freshDb();
     await database.open();
-    expect(database.verno).toBe(2);
+    expect(database.verno).toBe(3);
     expect(database.tables.map((table) => table.name).sort()).toEqual([
       'catalogue',
       'controlChecks',
@@ -58,6 +58,7 @@ describe('PlummetDb', () => {
       'photoMeta',
       'photos',
       'scaffolds',
+      'signedReports',
       'sites',
       'verifications',
     ]);

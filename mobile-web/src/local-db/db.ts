@@ -10,6 +10,7 @@ import type {
   OutboxEntry,
   PhotoRecord,
   ScaffoldRecord,
+  SignedReportRecord,
   SiteRecord,
   VerificationRecord,
 } from './records';
@@ -35,6 +36,7 @@ export class PlummetDb extends Dexie {
   fixes!: EntityTable<FixRecord, 'id'>;
   verifications!: EntityTable<VerificationRecord, 'id'>;
   photoMeta!: EntityTable<PhotoMetaRecord, 'id'>;
+  signedReports!: EntityTable<SignedReportRecord, 'scaffoldId'>;
   outbox!: EntityTable<OutboxEntry, 'id'>;
   meta!: EntityTable<MetaEntry, 'key'>;
 
@@ -65,6 +67,14 @@ export class PlummetDb extends Dexie {
         findings: 'id, siteId, scaffoldId, inspectionId, state, dueAt, updatedAt, [scaffoldId+state], assigneeId',
       })
       .upgrade(() => undefined);
+
+    // ── Version 3: the register (kept as one block; renumber on merge if another version lands first) ──
+    // The last signed report of each scaffold, readable at the scaffold offline. A new table only:
+    // nothing to convert; the download of a site and the change feed fill it.
+    this.version(3)
+      .stores({ signedReports: 'scaffoldId, finishedAt' })
+      .upgrade(() => undefined);
+    // ── end of version 3 ──
   }
 }
 
@@ -84,6 +94,7 @@ export function userDataTables(database: PlummetDb) {
     database.fixes,
     database.verifications,
     database.photoMeta,
+    database.signedReports,
     database.outbox,
     database.meta,
   ];

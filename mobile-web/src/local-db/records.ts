@@ -16,6 +16,7 @@ import type {
   Photo,
   Inspection,
   InspectionCreate,
+  InspectionDetail,
   InspectionFinish,
   InspectionUpdate,
   PhotoOwnerType,
@@ -48,6 +49,14 @@ export type ScaffoldRecord = Scaffold & SyncedRecord;
 export interface InspectionRecord extends Inspection, SyncedRecord {
   siteId: string;
   status: 'in-progress' | 'finished';
+}
+
+/**
+ * The last signed report of a scaffold, kept for reading at the scaffold with no signal (whichever
+ * phone signed it). One per scaffold: a newer signature replaces it.
+ */
+export interface SignedReportRecord extends InspectionDetail {
+  organisationId: string;
 }
 
 export type FindingState = Finding['state'];

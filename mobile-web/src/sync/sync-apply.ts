@@ -2,6 +2,7 @@
 import type { SyncChange, SyncConflict, SyncPullResponse, SyncTombstone } from '@plummet/shared';
 import { catalogueRecordOf } from '../features/catalogue/catalogue-search';
 import { writeMeta, type PlummetDb } from '../local-db/db';
+import { keepSignedReport } from '../local-db/signed-reports';
 import { idsWithWaitingChanges } from '../local-db/outbox';
 import type { FindingRecord, InspectionRecord, ScaffoldRecord, SiteRecord } from '../local-db/records';
 import { readConflicts, SYNC_META } from './sync-state';
@@ -42,6 +43,7 @@ export function syncedTables(database: PlummetDb) {
     database.verifications,
     database.photoMeta,
     database.catalogue,
+    database.signedReports,
     database.outbox,
     database.meta,
   ];
@@ -95,6 +97,8 @@ async function applyChange(database: PlummetDb, change: SyncChange, waiting: Wai
     }
     case 'inspection': {
       if (waiting.inspection.has(change.record.id)) return;
+      // Any phone's signed report becomes its scaffold's last one here, readable offline.
+      if (change.record.finishedAt) await keepSignedReport(database, { ...change.record, controlChecks: [], organisationId });
       const local = await database.inspections.get(change.record.id);
       // Only walks already on this phone are updated for now: the finding editor treats findings of
       // a finished inspection on the phone as read-only, which would lock the fix loop's edits.

@@ -128,6 +128,15 @@ const ROUTES: WriteRoute[] = [
     outOfRange: [catalogueBody({ shape: { kind: 'rod', lengthM: 26, diameterM: 0.05 } }), 'shape.lengthM'],
   },
   { name: 'PATCH /catalogue/:id', who: 'demo:admin', method: 'PATCH', path: () => `/catalogue/${ids.item}`, wrongTypes: { category: 'spaceship' }, outOfRange: [{ massKg: -0.1 }, 'massKg'] },
+  { name: 'POST /scaffolds/:id/trigger', who: 'demo:foreman', method: 'POST', path: () => `/scaffolds/${ids.scaffold}/trigger`, wrongTypes: { kind: 3, note: [] }, outOfRange: [{ kind: 'altered', note: LONG_NOTE }, 'note'] },
+  {
+    name: 'PUT /scaffolds/:id/exclusion-zones/:elevation',
+    who: 'demo:manager',
+    method: 'PUT',
+    path: () => `/scaffolds/${ids.scaffold}/exclusion-zones/North`,
+    wrongTypes: { heaviestItemId: 5, limitingWindMps: '12', barrieredWidthM: true },
+    outOfRange: [{ heaviestItemId: null, limitingWindMps: 61, barrieredWidthM: 3 }, 'limitingWindMps'],
+  },
 ];
 
 async function unchanged(send: () => Promise<{ status: number; body: { code?: string } }>) {

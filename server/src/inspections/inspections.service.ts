@@ -19,6 +19,8 @@ import { scopedForeman } from '../common/foreman-scope.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { ReportMailQueue } from '../mail/report-mail.queue.js';
+import { registerContextOf } from '../register/register-context.js';
+import { RegisterRepository } from '../register/register.repository.js';
 import { toScaffold } from '../scaffolds/scaffold.mapper.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { type InspectionRow, toControlCheck, toInspection } from './inspection.mapper.js';
@@ -38,7 +40,7 @@ function sameStart(row: InspectionRow, input: InspectionCreate, user: AuthUser):
 }
 
 function sameFinish(row: InspectionRow, input: InspectionFinish): boolean {
-  const fields = ['reportFor', 'location', 'equipment', 'mattersGivingRisk', 'actionTaken', 'furtherAction', 'reporterName', 'reporterPosition'] as const;
+  const fields = ['reportFor', 'location', 'equipment', 'mattersGivingRisk', 'actionTaken', 'furtherAction', 'reporterName', 'reporterPosition', 'tagStatus', 'restriction', 'accessTagsChanged'] as const;
   return fields.every((f) => row[f] === input[f]) && row.signature === input.signature && sameInstant(row.finishedAt, input.finishedAt);
 }
 
@@ -50,6 +52,7 @@ export class InspectionsService {
     private readonly scaffolds: ScaffoldsRepository,
     private readonly audit: AuditService,
     private readonly reportMail: ReportMailQueue,
+    private readonly register: RegisterRepository,
   ) {}
 
   async list(user: AuthUser, query: InspectionListQuery): Promise<ListResponse<Inspection>> {
@@ -149,8 +152,11 @@ export class InspectionsService {
       const target = await this.scaffolds.findWithSite(user.organisationId, current.scaffoldId, tx);
       // An older inspection synced late must not move the scaffold's dates backwards.
       if (target && (!target.scaffold.lastInspectedAt || target.scaffold.lastInspectedAt < finishedAt)) {
-        const nextDueAt = nextInspectionDue(finishedAt, target.site.regime, target.site.timeZone);
-        const scaffold = toScaffold(await this.scaffolds.update(target.scaffold.id, { lastInspectedAt: finishedAt, nextDueAt }, tx));
+        const context = registerContextOf(target.site, target.scaffold);
+        const nextDueAt = nextInspectionDue(finishedAt, context.regime, context.timeZone);
+        // The tag status the inspector recorded becomes the scaffold's (none recorded: it stays as it was).
+        const status = input.tagStatus ? { status: input.tagStatus } : {};
+        const scaffold = toScaffold(await this.scaffolds.update(target.scaffold.id, { lastInspectedAt: finishedAt, nextDueAt, ...status }, tx));
         await this.audit.record(tx, user, {
           entityType: 'scaffold',
           entityId: scaffold.id,
@@ -159,6 +165,8 @@ export class InspectionsService {
           after: scaffold,
         });
       }
+      // Alterations and adverse weather recorded before the signature are answered by it.
+      await this.register.answerTriggers(current.scaffoldId, id, finishedAt, tx);
       return inspection;
     });
   }

@@ -1,4 +1,5 @@
 import { CAUTION_TEXT, scaffoldStatusWords } from '@plummet/shared';
+import { outcomeLines } from '../reports/report-outcome.js';
 import { byRisk, type ReportData } from '../reports/report-data.js';
 import { dateOnly, findingFacts } from '../reports/report-format.js';
 import type { ReportPhoto } from '../reports/report-photos.js';
@@ -67,6 +68,10 @@ export function renderReportMail(data: ReportData, photos: Map<string, ReportPho
     `<p>${escapeHtml(intro)}</p>`,
     `<p><strong>Scaffold tag status:</strong> ${escapeHtml(scaffoldStatusWords(data.scaffold.status))}</p>`,
   ];
+  const outcome = outcomeLines(data.inspection);
+  for (const [label, value] of outcome) text.push(wrapText(`${label}: ${value}`));
+  text.push('');
+  html.push(`<p>${outcome.map(([label, value]) => `<strong>${escapeHtml(label)}:</strong> ${escapeHtml(value)}`).join('<br>')}</p>`);
   if (list.length === 0) {
     text.push('No falling-object findings were recorded in this inspection.');
     html.push('<p><strong>No falling-object findings were recorded in this inspection.</strong></p>');

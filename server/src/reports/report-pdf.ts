@@ -4,6 +4,7 @@ import { byRisk, type ReportData } from './report-data.js';
 import { reportFont } from './report-fonts.js';
 import { dateTime, findingFacts } from './report-format.js';
 import type { ReportPhoto } from './report-photos.js';
+import { outcomeLines } from './report-outcome.js';
 import { schedule7Fields } from './schedule7.js';
 
 const MARGIN = 50;
@@ -45,6 +46,9 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
   doc.font('regular').fontSize(10).fillColor('#333').text(`${data.organisation.name} · ${data.site.name} · scaffold ${data.scaffold.reference}`, { width });
   doc.text(`Scaffold tag status at the time of the report: ${scaffoldStatusWords(data.scaffold.status)}`, { width });
   doc.fillColor('#000');
+
+  heading('Outcome');
+  for (const [label, value] of outcomeLines(data.inspection)) field(label, value);
 
   heading('Report particulars (Work at Height Regulations 2005, reg. 12 and Schedule 7)');
   for (const [label, value] of schedule7Fields(data)) field(label, value);

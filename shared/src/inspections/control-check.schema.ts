@@ -10,6 +10,10 @@ export const CONTROLS = [
   'exclusion-zone-barriers',
   'tool-tethering',
   'material-storage',
+  // Added with the register: what an inspector also looks at for objects falling.
+  'chutes-and-lowering',
+  'loading-bay-gates',
+  'guardrail-mesh',
 ] as const;
 export const ControlSchema = z.enum(CONTROLS);
 export type Control = z.infer<typeof ControlSchema>;

@@ -12,9 +12,16 @@ import {
   WindSpeedMpsSchema,
 } from '../common/fields.schema.js';
 import { listQueryShape, listResponseSchema, QueryBooleanSchema } from '../common/list.schema.js';
+import { ScaffoldStatusSchema } from '../scaffolds/scaffold.schema.js';
 import { ControlCheckSchema } from './control-check.schema.js';
+import { inspectionOutcomeFields, refineInspectionOutcome } from './inspection-outcome.js';
 
-export const INSPECTION_REASONS = ['scheduled', 'after-alteration', 'after-bad-weather', 'handover'] as const;
+/**
+ * Why the inspection is made: `handover` after erection (before first use), `scheduled` by the
+ * regime, `after-alteration` and `after-bad-weather` (UK WAHR 2005 reg. 12(4)(b)), `pre-shift`
+ * before the shift (US OSHA 29 CFR 1926.451(f)(3)).
+ */
+export const INSPECTION_REASONS = ['scheduled', 'after-alteration', 'after-bad-weather', 'handover', 'pre-shift'] as const;
 export const InspectionReasonSchema = z.enum(INSPECTION_REASONS);
 export type InspectionReason = z.infer<typeof InspectionReasonSchema>;
 
@@ -36,6 +43,12 @@ export const InspectionSchema = z.object({
   reporterPosition: z.string(),
   signature: z.string().nullable(),
   signedAt: DateTimeSchema.nullable(),
+  /** The outcome written on the tag when signing (null until finished, or from a phone that did not ask). */
+  tagStatus: ScaffoldStatusSchema.nullable(),
+  /** When limited: which lifts and bays, what load, in words. */
+  restriction: z.string(),
+  /** Whether the tags at every access point were changed to the recorded status. */
+  accessTagsChanged: z.boolean().nullable(),
   createdAt: DateTimeSchema,
   updatedAt: DateTimeSchema,
   version: z.number().int(),
@@ -83,20 +96,23 @@ export type InspectionUpdate = z.infer<typeof InspectionUpdateSchema>;
  * Finishing: every Schedule 7 field is required (for whom, where, what equipment, matters giving
  * rise to risk, action taken, further action, name and position of the person reporting).
  */
-export const InspectionFinishSchema = z.object({
-  reportFor: NameSchema,
-  location: RequiredNoteSchema,
-  equipment: RequiredNoteSchema,
-  mattersGivingRisk: RequiredNoteSchema,
-  actionTaken: RequiredNoteSchema,
-  furtherAction: RequiredNoteSchema,
-  reporterName: NameSchema,
-  reporterPosition: NameSchema,
-  /** A drawn signature as an SVG path string. */
-  signature: z.string().min(1).max(LIMITS.signatureMax).nullable().default(null),
-  /** When the inspector finished on the phone; the server's clock when absent. */
-  finishedAt: DateTimeSchema.optional(),
-});
+export const InspectionFinishSchema = z
+  .object({
+    reportFor: NameSchema,
+    location: RequiredNoteSchema,
+    equipment: RequiredNoteSchema,
+    mattersGivingRisk: RequiredNoteSchema,
+    actionTaken: RequiredNoteSchema,
+    furtherAction: RequiredNoteSchema,
+    reporterName: NameSchema,
+    reporterPosition: NameSchema,
+    /** A drawn signature as an SVG path string. */
+    signature: z.string().min(1).max(LIMITS.signatureMax).nullable().default(null),
+    /** When the inspector finished on the phone; the server's clock when absent. */
+    finishedAt: DateTimeSchema.optional(),
+    ...inspectionOutcomeFields,
+  })
+  .superRefine(refineInspectionOutcome);
 export type InspectionFinish = z.infer<typeof InspectionFinishSchema>;
 
 export const InspectionListQuerySchema = z.object({

@@ -4,10 +4,11 @@ export const REASON_WORDS: Record<InspectionReason, { label: string; hint: strin
   scheduled: { label: 'Scheduled', hint: 'The regular inspection of the site’s regime' },
   'after-alteration': { label: 'After an alteration', hint: 'Something was added, removed or changed' },
   'after-bad-weather': { label: 'After bad weather', hint: 'Storm, high wind or heavy snow' },
-  handover: { label: 'Handover', hint: 'Before first use, or taking over from another firm' },
+  handover: { label: 'Handover', hint: 'After erection, before first use, or taking over from another firm' },
+  'pre-shift': { label: 'Before the shift', hint: 'The check before each shift (US OSHA 29 CFR 1926.451(f)(3))' },
 };
 
-/** The seven falling-object controls, in the trade's words with what to look for. */
+/** The falling-object controls, in the trade's words with what to look for. */
 export const CONTROL_WORDS: Record<Control, { label: string; lookFor: string }> = {
   'toe-boards': { label: 'Toe boards', lookFor: 'Fitted on every working lift, no gaps, secured' },
   'brick-guards': { label: 'Brick guards', lookFor: 'Where materials are stacked above the toe board' },
@@ -16,4 +17,7 @@ export const CONTROL_WORDS: Record<Control, { label: string; lookFor: string }> 
   'exclusion-zone-barriers': { label: 'Exclusion-zone barriers', lookFor: 'Barriers and signs keep people out below' },
   'tool-tethering': { label: 'Tool tethering', lookFor: 'Hand tools at height are tethered' },
   'material-storage': { label: 'Material storage', lookFor: 'Stacked low, away from the edge, within guards' },
+  'chutes-and-lowering': { label: 'Rubbish chutes and lowering', lookFor: 'Waste goes down a chute or is lowered, never thrown or tipped' },
+  'loading-bay-gates': { label: 'Loading-bay gates', lookFor: 'Closed except while loading, no gap at the edge' },
+  'guardrail-mesh': { label: 'Guard-rail mesh or screening', lookFor: 'Fitted toe board to rail, openings small enough for what is handled' },
 };

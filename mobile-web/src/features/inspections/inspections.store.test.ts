@@ -17,6 +17,9 @@ const report: InspectionFinish = {
   reporterName: 'Aileen Marsh',
   reporterPosition: 'Scaffold inspector',
   signature: null,
+  tagStatus: 'limited',
+  restriction: 'Lifts 1–4 only',
+  accessTagsChanged: true,
 };
 
 async function seeded() {
@@ -50,7 +53,7 @@ describe('an inspection on the phone', () => {
 
   it('refuses to finish before every control is answered', async () => {
     const { database, inspection } = await seeded();
-    await expect(finishInspection(database, inspection.id, report)).rejects.toThrow(/7 left/);
+    await expect(finishInspection(database, inspection.id, report)).rejects.toThrow(/10 left/);
   });
 
   it('finishes with the report, queues the finish and moves the scaffold’s due date on (7-day regime)', async () => {
@@ -64,8 +67,9 @@ describe('an inspection on the phone', () => {
     const stored = await database.scaffolds.get(scaffold.id);
     expect(stored?.lastInspectedAt).toBe('2026-03-02T10:00:00.000Z');
     expect(stored?.nextDueAt).toBe('2026-03-09T10:00:00.000Z'); // UK WAHR 2005 reg. 12: every 7 days
+    expect(stored?.status).toBe('limited'); // the tag status the inspector recorded
     const entries = await listWaitingChanges(database);
-    expect(entries.at(-1)).toMatchObject({ entity: 'inspection', action: 'finish', payload: { reportFor: 'Eastmouth Libraries Trust' } });
+    expect(entries.at(-1)).toMatchObject({ entity: 'inspection', action: 'finish', payload: { reportFor: 'Eastmouth Libraries Trust', tagStatus: 'limited', restriction: 'Lifts 1–4 only', accessTagsChanged: true } });
     await expect(finishInspection(database, inspection.id, report)).rejects.toThrow(/already finished/);
   });
 });

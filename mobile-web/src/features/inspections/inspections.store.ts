@@ -46,6 +46,9 @@ export async function startInspection(database: PlummetDb, start: InspectionStar
     reporterPosition: '',
     signature: null,
     signedAt: null,
+    tagStatus: null,
+    restriction: '',
+    accessTagsChanged: null,
     createdAt: at,
     updatedAt: at,
     version: 0,
@@ -155,7 +158,8 @@ export async function finishInspection(
     const site: SiteRecord | undefined = scaffold ? await database.sites.get(scaffold.siteId) : undefined;
     if (scaffold) {
       const nextDueAt = site ? nextInspectionDue(new Date(at), regimeOfScaffold(scaffold, site), site.timeZone).toISOString() : scaffold.nextDueAt;
-      await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt });
+      // The tag status the inspector recorded shows on the phone at once, as on the server.
+      await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt, ...(report.tagStatus ? { status: report.tagStatus } : {}) });
     }
     return finished;
   });

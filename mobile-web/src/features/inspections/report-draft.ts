@@ -16,7 +16,7 @@ function liftsInWords(scaffold: LiftHeightSource, units: Units): string {
   return `${scaffold.lifts} lifts (${each} from the bottom; top platform at ${formatQuantity('height', topPlatformHeightM(scaffold), units)})`;
 }
 
-export type ReportFields = Omit<InspectionFinish, 'signature' | 'finishedAt'>;
+export type ReportFields = Omit<InspectionFinish, 'signature' | 'finishedAt' | 'tagStatus' | 'restriction' | 'accessTagsChanged'>;
 
 export const REPORT_FIELD_LABELS: Record<keyof ReportFields, string> = {
   reportFor: 'Report for (client)',

@@ -1,10 +1,10 @@
-import { index, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
-import { scaffolds } from './sites.table.js';
+import { scaffolds, scaffoldStatusEnum } from './sites.table.js';
 import { users } from './users.table.js';
 
-export const inspectionReasonEnum = pgEnum('inspection_reason', ['scheduled', 'after-alteration', 'after-bad-weather', 'handover']);
+export const inspectionReasonEnum = pgEnum('inspection_reason', ['scheduled', 'after-alteration', 'after-bad-weather', 'handover', 'pre-shift']);
 
 /** Ids are generated on the phone (offline), so they are never defaulted here. */
 export const inspections = pgTable(
@@ -30,6 +30,10 @@ export const inspections = pgTable(
     /** Optional drawn signature as an SVG path string. */
     signature: text('signature'),
     signedAt: timestamp('signed_at', { withTimezone: true }),
+    // The outcome recorded when signing: the tag status given, the restriction when limited, tags changed.
+    tagStatus: scaffoldStatusEnum('tag_status'),
+    restriction: text('restriction').notNull().default(''),
+    accessTagsChanged: boolean('access_tags_changed'),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
@@ -49,6 +53,9 @@ export const controlEnum = pgEnum('control', [
   'exclusion-zone-barriers',
   'tool-tethering',
   'material-storage',
+  'chutes-and-lowering',
+  'loading-bay-gates',
+  'guardrail-mesh',
 ]);
 export const controlResultEnum = pgEnum('control_result', ['pass', 'fail', 'not-applicable']);
 

@@ -6,6 +6,7 @@ import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
 import { FixLoopShortcut } from '../../fix-loop/components/FixLoopShortcut';
+import { DueSection } from '../../register/components/DueSection';
 import { SitesOverview } from '../../sites/components/SitesOverview';
 import './HomePage.css';
 
@@ -33,6 +34,7 @@ export function HomePage() {
         {signedIn ? (
           <>
             <FixLoopShortcut userId={session.user.id} role={session.user.role} />
+            <DueSection />
             <SitesOverview session={session} expired={status === 'expired'} />
           </>
         ) : (

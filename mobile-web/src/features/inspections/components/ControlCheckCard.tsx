@@ -1,4 +1,4 @@
-import { CONTROL_RESULTS, type Control, type ControlResult } from '@plummet/shared';
+import { CONTROL_RESULTS, type Control, type ControlCriterion, type ControlResult } from '@plummet/shared';
 import { useState } from 'react';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import type { ControlCheckRecord } from '../../../local-db/records';
@@ -12,12 +12,14 @@ const RESULT_WORDS: Record<ControlResult, string> = { pass: 'Pass', fail: 'Fail'
 interface ControlCheckCardProps {
   control: Control;
   check?: ControlCheckRecord;
+  /** What passes under the site's jurisdiction, with its source. */
+  criterion: ControlCriterion;
   disabled: boolean;
   onAnswer(answer: { result: ControlResult; note: string; photos?: PendingPhoto[] }): void;
 }
 
 /** One control: pass / fail / not applicable, a note, and a photo when it fails. Saved as it changes. */
-export function ControlCheckCard({ control, check, disabled, onAnswer }: ControlCheckCardProps) {
+export function ControlCheckCard({ control, check, criterion, disabled, onAnswer }: ControlCheckCardProps) {
   const [note, setNote] = useState(check?.note ?? '');
   const photos = usePhotos('control-check', check?.id);
   const words = CONTROL_WORDS[control];
@@ -27,6 +29,9 @@ export function ControlCheckCard({ control, check, disabled, onAnswer }: Control
     <section className={`control-card ${result ? `control-card--${result}` : ''}`} data-testid={`control-${control}`} data-result={result ?? ''}>
       <h3 className="control-card__title">{words.label}</h3>
       <p className="control-card__hint">{words.lookFor}</p>
+      <p className="control-card__criterion" data-testid={`control-${control}-criterion`}>
+        <strong>Passes when:</strong> {criterion.criterion} <span className="control-card__source">({criterion.source})</span>
+      </p>
       <ChoiceGroup
         legend={`${words.label}: result`}
         value={result}

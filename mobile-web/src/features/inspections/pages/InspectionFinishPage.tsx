@@ -1,5 +1,5 @@
 import { IonButton, IonContent, IonFooter, IonInput, IonNote, IonPage, useIonRouter } from '@ionic/react';
-import { InspectionFinishSchema } from '@plummet/shared';
+import { InspectionFinishSchema, outcomePrompts } from '@plummet/shared';
 import { useEffect, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { AppHeader } from '../../../components/AppHeader';
@@ -8,9 +8,10 @@ import { FormSection } from '../../../components/FormSection';
 import { db, readMeta, writeMeta } from '../../../local-db/db';
 import { RequireSession } from '../../auth/components/RequireSession';
 import { useSession, useUnits } from '../../auth/session.queries';
-import { useFindingsOfInspection } from '../../findings/findings.queries';
+import { useFindingsOfInspection, useFindingsOfScaffold } from '../../findings/findings.queries';
 import { useScaffold } from '../../scaffolds/scaffolds.queries';
 import { useLocalSite } from '../../sites/sites.queries';
+import { type OutcomeFields, OutcomeSection } from '../components/OutcomeSection';
 import { SignaturePad } from '../components/SignaturePad';
 import { CONTROL_WORDS } from '../inspection-words';
 import { useControlChecks, useInspection } from '../inspections.queries';
@@ -35,6 +36,12 @@ export function InspectionFinishPage() {
   const [fields, setFields] = useState<ReportFields>();
   const [signature, setSignature] = useState<string | null>(null);
   const [issues, setIssues] = useState<Partial<Record<string, string>>>({});
+  const [outcome, setOutcome] = useState<OutcomeFields>({ tagStatus: null, restriction: '', accessTagsChanged: null });
+  // Signing over a prompt (e.g. cleared with a High finding open) takes a second, deliberate press.
+  const [confirming, setConfirming] = useState(false);
+  const scaffoldFindings = useFindingsOfScaffold(inspection?.scaffoldId);
+  const openHigh = (scaffoldFindings ?? []).filter((f) => f.riskBand === 'High' && (f.state === 'open' || f.state === 'made-safe')).length;
+  const prompts = outcomePrompts(outcome, openHigh);
 
   const ready = inspection && scaffold && site !== undefined && findings && checks && session;
   useEffect(() => {
@@ -76,12 +83,22 @@ export function InspectionFinishPage() {
 
   function submit() {
     if (!fields || !inspection) return;
-    const parsed = InspectionFinishSchema.safeParse({ ...fields, signature });
-    if (!parsed.success) {
-      setIssues(Object.fromEntries(parsed.error.issues.map((issue) => [String(issue.path[0]), 'Fill this in.'])));
+    const parsed = InspectionFinishSchema.safeParse({ ...fields, signature, ...outcome });
+    const outcomeFields = new Set(['tagStatus', 'restriction', 'accessTagsChanged']);
+    const found: Partial<Record<string, string>> = parsed.success
+      ? {}
+      : Object.fromEntries(parsed.error.issues.map((issue) => [String(issue.path[0]), outcomeFields.has(String(issue.path[0])) ? issue.message : 'Fill this in.']));
+    // The phone always asks for the outcome (the server also takes a finish queued before it did).
+    if (outcome.tagStatus === null) found.tagStatus = 'Choose the tag status you give the scaffold.';
+    if (!parsed.success || Object.keys(found).length > 0) {
+      setIssues(found);
       return;
     }
     setIssues({});
+    if (prompts.length > 0 && !confirming) {
+      setConfirming(true);
+      return;
+    }
     finish.mutate(
       { inspectionId: inspection.id, report: parsed.data },
       {
@@ -126,6 +143,13 @@ export function InspectionFinishPage() {
                       </label>
                     ))}
                   </FormSection>
+                  <OutcomeSection
+                    value={outcome}
+                    onChange={(next) => (setOutcome(next), setConfirming(false))}
+                    issues={issues}
+                    prompts={prompts}
+                    disabled={inspection?.status === 'finished'}
+                  />
                   <FormSection title="Signed by">
                     {reportLine('reporterName')}
                     {reportLine('reporterPosition', 'report-field')}
@@ -142,7 +166,7 @@ export function InspectionFinishPage() {
       <IonFooter>
         <div className="bottom-actions">
           <IonButton disabled={!fields || missing.length > 0 || finish.isPending || inspection?.status === 'finished'} onClick={submit} data-testid="sign-and-finish">
-            Finish and sign
+            {confirming ? 'Sign with this status anyway' : 'Finish and sign'}
           </IonButton>
         </div>
         {finish.isError && (

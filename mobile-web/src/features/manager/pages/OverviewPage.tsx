@@ -1,6 +1,7 @@
 import { type OverviewFigures, scaffoldStatusWords } from '@plummet/shared';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { ManagerDueSection } from '../../register/components/ManagerDueSection';
 import { ManagerLayout } from '../components/ManagerLayout';
 import { TableScroll } from '../components/TableScroll';
 import { useOverview, useSites } from '../manager.queries';
@@ -80,6 +81,7 @@ export function OverviewPage() {
             <h2 id="overview-totals">{siteId ? data.sites[0]?.siteName : 'Every site'}</h2>
             <Figures figures={data.totals} siteId={siteId} prefix="total" />
           </section>
+          <ManagerDueSection siteId={siteId} />
           {!siteId && (
             <section className="manager-section" aria-labelledby="overview-sites">
               <h2 id="overview-sites">By site</h2>

@@ -10,6 +10,8 @@ import { useFindingsOfScaffold } from '../../findings/findings.queries';
 import { StartInspectionSheet } from '../../inspections/components/StartInspectionSheet';
 import { useInspectionInProgress } from '../../inspections/inspections.queries';
 import { useStartInspectionMutation } from '../../inspections/inspections.mutations';
+import { LastReportSection } from '../../register/components/LastReportSection';
+import { TriggerCard } from '../../register/components/TriggerCard';
 import { ScaffoldElevations } from '../components/ScaffoldElevations';
 import { ScaffoldStatusTag } from '../components/ScaffoldStatusTag';
 import { useScaffold } from '../scaffolds.queries';
@@ -51,6 +53,8 @@ export function ScaffoldPage() {
                     </dl>
                     <p className="muted scaffold-summary__description">{scaffold.description}</p>
                   </div>
+                  <TriggerCard scaffold={scaffold} />
+                  <LastReportSection scaffold={scaffold} />
                   <ScaffoldElevations scaffold={scaffold} findings={findings ?? []} units={units} />
                   <CautionNote />
                   <StartInspectionSheet
