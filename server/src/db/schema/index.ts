@@ -8,3 +8,4 @@ export * from './findings.table.js';
 export * from './photos.table.js';
 export * from './sync.table.js';
 export * from './digests.table.js';
+export * from './sync-given.table.js';
