@@ -27,8 +27,8 @@ export interface SyncEngineOptions {
   batchSize?: number;
   /** Changes per pull page. */
   pullLimit?: number;
-  /** Told about every push result (tests reconcile outcomes with it). */
-  onResult?: (clientId: string, result: SyncMutationResult) => void;
+  /** Told about every push result with the outbox entry it answers (tests reconcile outcomes with it). */
+  onResult?: (clientId: string, result: SyncMutationResult, entryId?: number) => void;
 }
 
 export type SyncRunOutcome = 'done' | 'offline' | 'error';
@@ -199,7 +199,7 @@ export class SyncEngine {
     const { mutations, byMutation } = await this.prepare(entries);
     if (!mutations.length) return;
     const response = await this.transport.push({ clientId, mutations: mutations as never });
-    for (const result of response.results) this.options.onResult?.(clientId, result);
+    for (const result of response.results) this.options.onResult?.(clientId, result, byMutation.get(result.id));
     await this.acknowledge(response, byMutation);
   }
 

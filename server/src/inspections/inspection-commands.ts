@@ -129,9 +129,10 @@ export class InspectionCommands {
       throw new AppError(ErrorCode.Conflict, `The inspection changed since version ${restVersion}; it is now at version ${current.version}`);
     }
     const merge = await this.merge(tx, actor, current, patch, seenVersion(actor, current.version, baseVersion), INSPECTION_MERGE_POLICIES);
-    const row = Object.keys(merge.changes).length ? await this.inspections.update(id, { ...merge.changes, syncFields: merge.stamps }, tx) : current;
+    if (!Object.keys(merge.changes).length && !merge.conflicts.length) return done(current, 'Nothing to change');
+    // Written even when the stored (safer) value stood: the new version carries it back to the phone through the feed.
+    const row = await this.inspections.update(id, { ...merge.changes, syncFields: merge.stamps }, tx);
     const conflictIds = await this.keepConflicts(tx, actor, 'inspection', id, merge.conflicts);
-    if (!Object.keys(merge.changes).length && !conflictIds.length) return done(current, 'Nothing to change');
     await this.audit.record(tx, actor.user, { entityType: 'inspection', entityId: id, action: 'update', before: toInspection(current), after: toInspection(row) });
     return this.answer(row, merge.conflicts, conflictIds);
   }
@@ -204,9 +205,10 @@ export class InspectionCommands {
     const patch = { ...(input.result !== undefined ? { result: input.result } : {}), ...(input.note !== undefined ? { note: input.note } : {}) };
     const merge = await this.merge(tx, actor, existing, patch, seenVersion(actor, existing.version, baseVersion), CONTROL_CHECK_MERGE_POLICIES);
     const changes = merge.changes as { result?: ControlCheckRow['result']; note?: string };
-    const row = Object.keys(changes).length ? await this.writes.updateControlCheck(existing.id, { ...changes, syncFields: merge.stamps }, tx) : existing;
+    if (!Object.keys(changes).length && !merge.conflicts.length) return done(existing, 'Nothing to change');
+    // Written even when the stored (safer) value stood: the new version carries it back to the phone through the feed.
+    const row = await this.writes.updateControlCheck(existing.id, { ...changes, syncFields: merge.stamps }, tx);
     const conflictIds = await this.keepConflicts(tx, actor, 'control-check', existing.id, merge.conflicts);
-    if (!Object.keys(changes).length && !conflictIds.length) return done(existing, 'Nothing to change');
     await this.audit.record(tx, user, { entityType: 'control-check', entityId: existing.id, action: 'update', before: toControlCheck(existing), after: toControlCheck(row) });
     return this.answer(row, merge.conflicts, conflictIds);
   }
