@@ -23,6 +23,14 @@ export class InspectionCommandRepository {
     return row;
   }
 
+  async findControlCheck(organisationId: string, id: string, executor: DbExecutor = this.db): Promise<ControlCheckRow | undefined> {
+    const [row] = await executor
+      .select()
+      .from(controlChecks)
+      .where(and(eq(controlChecks.id, id), eq(controlChecks.organisationId, organisationId)));
+    return row;
+  }
+
   /** Undefined when the (inspection, control) pair or the id is taken meanwhile. */
   async insertControlCheck(values: ControlCheckInsert, executor: DbExecutor = this.db): Promise<ControlCheckRow | undefined> {
     const [row] = await executor.insert(controlChecks).values(values).onConflictDoNothing().returning();

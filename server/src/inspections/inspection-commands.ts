@@ -213,6 +213,20 @@ export class InspectionCommands {
     return this.answer(row, merge.conflicts, conflictIds);
   }
 
+  /**
+   * Settling a conflict on an inspection or control check writes the chosen value as a server-side
+   * edit (it has seen every value): the same command, with the same role, scope and signed rule.
+   */
+  async settle(tx: DbExecutor, actor: CommandActor, entity: 'inspection' | 'control-check', id: string, field: string, value: unknown): Promise<void> {
+    if (entity === 'inspection') {
+      await this.edit(tx, actor, id, { [field]: value });
+      return;
+    }
+    const check = await this.writes.findControlCheck(actor.user.organisationId, id, tx);
+    if (!check) throw AppError.notFound('Control check');
+    await this.putControlCheck(tx, actor, check.id, { inspectionId: check.inspectionId, control: check.control, [field]: value });
+  }
+
   private async merge(
     tx: DbExecutor,
     actor: CommandActor,

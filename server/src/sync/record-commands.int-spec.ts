@@ -194,6 +194,10 @@ describe('per-field merge of inspections and control checks', () => {
     const late = await push('demo:inspector', { entityId: checkId, entity: 'control-check', action: 'put', baseVersion: 1, payload: { inspectionId: id, control: 'brick-guards', result: 'pass' } });
     expect(late.outcome).toBe('conflict');
     expect((await get(id)).controlChecks[0]).toMatchObject({ control: 'brick-guards', result: 'fail', note: 'Guard missing at bay 4' });
+    // Settled by the inspector: the pass that waited in the conflict is written.
+    const settled = await api.call('demo:inspector', 'POST', `/sync/conflicts/${late.conflictIds[0]}/resolve`, { keep: 'replaced' });
+    expect(settled.status, JSON.stringify(settled.body)).toBe(200);
+    expect((await get(id)).controlChecks[0]).toMatchObject({ control: 'brick-guards', result: 'pass' });
   });
 
   it('records a conflict when an offline push replaces an inspection field a REST edit wrote after the phone last saw it', async () => {
