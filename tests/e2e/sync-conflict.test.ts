@@ -21,6 +21,8 @@ interface StoredEntry {
 const SEEDED_NOTES = 'Podger left on the toe board above the library entrance';
 const NOTES_A = 'Podger taken down and tethered; toe board checked (phone A)';
 const NOTES_B = 'Podger still there at 10:40, foreman told (phone B)';
+/** Clashing notes keep both texts, the one already on the server first. */
+const BOTH_NOTES = `${NOTES_A}\n\n${NOTES_B}`;
 
 async function signInAndKeepOffline(phone: Phone, url: string, errors: string[]): Promise<Page> {
   const page = await phone.context.newPage();
@@ -75,7 +77,7 @@ describe('two phones edit the same finding offline', () => {
     await server?.dispose();
   });
 
-  it('merges different fields, keeps the same-field clash as a conflict, and settles it in the app', async () => {
+  it('merges different fields, keeps both texts of a notes clash with a conflict, and settles it in the app', async () => {
     const a = await signInAndKeepOffline(phoneA, server.url, errors);
     const b = await signInAndKeepOffline(phoneB, server.url, errors);
     const seeded = (await readTable<StoredFinding>(a, 'findings')).find((finding) => finding.notes === SEEDED_NOTES)!;
@@ -99,11 +101,11 @@ describe('two phones edit the same finding offline', () => {
     await expect.poll(() => onScreen(a, 'outbox-count').getAttribute('data-count'), { timeout: 20_000 }).toBe('0');
     expect(await storedFinding(a, seeded.id)).toMatchObject({ notes: NOTES_A, exposure: 'public' });
 
-    // Then B: its exposure merges; its notes replace A's, which B had not seen: a conflict.
+    // Then B: its exposure merges; its notes clash with A's, which B had not seen: both texts stay, and a conflict.
     await phoneB.context.setOffline(false);
     await expect.poll(() => onScreen(b, 'outbox-count').getAttribute('data-count'), { timeout: 30_000 }).toBe('0');
     await expect.poll(() => onScreen(b, 'sync-attention').textContent(), { timeout: 30_000 }).toBe('1 conflict to settle');
-    expect(await storedFinding(b, seeded.id)).toMatchObject({ notes: NOTES_B, exposure: 'hard-hats' });
+    expect(await storedFinding(b, seeded.id)).toMatchObject({ notes: BOTH_NOTES, exposure: 'hard-hats' });
 
     // The conflict in the app: the finding, the field, both values and who wrote them.
     await onScreen(b, 'sync-badge').click();
@@ -112,7 +114,7 @@ describe('two phones edit the same finding offline', () => {
     await card.waitFor();
     expect(await card.getByTestId('conflict-field').textContent()).toBe('Notes');
     expect(await card.innerText()).toMatch(/QL-A · North, lift 6, bay 3/);
-    expect(await card.getByTestId('conflict-current').textContent()).toBe(NOTES_B);
+    expect(await card.getByTestId('conflict-current').textContent()).toBe(BOTH_NOTES);
     expect(await card.getByTestId('conflict-replaced').textContent()).toBe(NOTES_A);
     expect(await card.innerText()).toMatch(/written by you/);
     await expect.poll(() => onScreen(b, 'online-status').first().getAttribute('data-online')).toBe('true');
@@ -125,7 +127,7 @@ describe('two phones edit the same finding offline', () => {
     await expect.poll(() => card.getByTestId('conflict-problem').textContent()).toMatch(/needs a connection/);
     await phoneB.context.setOffline(false);
 
-    // Settle it: keep A's notes.
+    // Settle it: keep A's notes alone.
     await card.getByTestId('keep-replaced').click();
     await onScreen(b, 'no-conflicts').waitFor({ timeout: 15_000 });
     await expect.poll(async () => (await storedFinding(b, seeded.id)).notes, { timeout: 15_000 }).toBe(NOTES_A);

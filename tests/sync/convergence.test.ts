@@ -3,21 +3,23 @@
  * real client sync engine over fake-indexeddb against two server instances on one PostgreSQL
  * database, with random offline periods, dropped requests (server killed before commit), dropped
  * answers (killed after commit), duplicated and late (reordered) deliveries, and device clocks
- * ±24 h. After a full sync, every phone's findings equal the server's, every mutation a phone was
- * told about is applied, conflicted or rejected on the server exactly once, and the counts reconcile.
- * SYNC_SCHEDULES=n runs n schedules (default 200).
+ * ±24 h. The phones edit findings, the inspection under way and its control checks, and record new
+ * findings, all under the flaky network. After a full sync, every phone's findings, inspection
+ * and checks equal the server's; every edit a phone made (the outbox entry it went into) was
+ * answered and is applied, conflicted or rejected on the server exactly once; a replayed answer
+ * equals the first; and the counts reconcile. SYNC_SCHEDULES=n runs n schedules (default 200).
  */
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import type { SyncMutationResult } from '@plummet/shared';
-import { inArray, sql } from 'drizzle-orm';
+import { eq, inArray, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO } from '../../server/test/data-api.js';
 import { startTestApp, type TestApp } from '../../server/test/test-app.js';
 import { createApp } from '../../server/src/bootstrap.js';
 import { loadConfig } from '../../server/src/config/config.js';
-import { findings, syncConflicts, syncMutations } from '../../server/src/db/schema/index.js';
+import { controlChecks, findings, inspections, syncConflicts, syncMutations } from '../../server/src/db/schema/index.js';
 import { deliverLate, loadMobile, type Network, Phone, type PhoneFinding, prng } from './sync-harness.js';
 
 /** How many random schedules to run: a positive whole number; 0 or anything else is an error, not a pass. */
@@ -61,6 +63,9 @@ afterAll(async () => {
 type Step =
   | { kind: 'edit'; phone: number; finding: number; field: 'notes' | 'heightM' | 'lift'; value: number }
   | { kind: 'state'; phone: number; finding: number; to: 'made-safe' | 'fixed' | 'verified' | 'open' }
+  | { kind: 'create'; phone: number }
+  | { kind: 'inspection'; phone: number; field: 'location' | 'windSpeedMps'; value: number }
+  | { kind: 'check'; phone: number; control: 'toe-boards' | 'brick-guards'; result: 'pass' | 'fail'; value: number }
   | { kind: 'sync'; phone: number }
   | { kind: 'offline' | 'online'; phone: number }
   | { kind: 'late' };
@@ -71,6 +76,12 @@ const phoneIx = fc.integer({ min: 0, max: PHONES - 1 });
 const stepArb: fc.Arbitrary<Step> = fc.oneof(
   { weight: 4, arbitrary: fc.record({ kind: fc.constant('edit' as const), phone: phoneIx, finding: fc.integer({ min: 0, max: FINDINGS - 1 }), field: fc.constantFrom('notes' as const, 'heightM' as const, 'lift' as const), value: fc.integer({ min: 1, max: 5 }) }) },
   { weight: 2, arbitrary: fc.record({ kind: fc.constant('state' as const), phone: phoneIx, finding: fc.integer({ min: 0, max: FINDINGS - 1 }), to: fc.constantFrom('made-safe' as const, 'fixed' as const, 'verified' as const, 'open' as const) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('create' as const), phone: phoneIx }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant('inspection' as const), phone: phoneIx, field: fc.constantFrom('location' as const, 'windSpeedMps' as const), value: fc.integer({ min: 1, max: 5 }) }) },
+  {
+    weight: 2,
+    arbitrary: fc.record({ kind: fc.constant('check' as const), phone: phoneIx, control: fc.constantFrom('toe-boards' as const, 'brick-guards' as const), result: fc.constantFrom('pass' as const, 'fail' as const), value: fc.integer({ min: 1, max: 5 }) }),
+  },
   { weight: 4, arbitrary: fc.record({ kind: fc.constant('sync' as const), phone: phoneIx }) },
   { weight: 1, arbitrary: fc.record({ kind: fc.constantFrom('offline' as const, 'online' as const), phone: phoneIx }) },
   { weight: 1, arbitrary: fc.constant({ kind: 'late' as const }) },
@@ -78,41 +89,52 @@ const stepArb: fc.Arbitrary<Step> = fc.oneof(
 const scheduleArb = fc.record({
   seed: fc.integer(),
   skews: fc.array(fc.constantFrom(-DAY_MS, 0, DAY_MS), { minLength: PHONES, maxLength: PHONES }),
-  steps: fc.array(stepArb, { minLength: 2, maxLength: 7 }),
+  steps: fc.array(stepArb, { minLength: 2, maxLength: 9 }),
 });
 
 const fieldValue = (field: 'notes' | 'heightM' | 'lift', value: number, phone: number) =>
   field === 'notes' ? `note ${value} from phone ${phone}` : field === 'heightM' ? value + 2 : value;
 
+/** The foreman's phone: it holds the findings of its scaffold, not the inspector's walk. */
+const FOREMAN = PHONES - 1;
+
 async function runSchedule(schedule: { seed: number; skews: number[]; steps: Step[] }): Promise<void> {
   const random = prng(schedule.seed);
   const network: Network = { servers, late: [], requests: 0 };
-  const told: { clientId: string; result: SyncMutationResult }[] = [];
+  // Every answer each phone heard (with the outbox entry it answers), and every edit each phone made.
+  const told: { phone: number; clientId: string; result: SyncMutationResult; entryId?: number }[] = [];
+  const ledger: { phone: number; entryId: number; what: string }[] = [];
   const phones = Array.from(
     { length: PHONES },
     (_, i) =>
       new Phone(m, {
         name: `convergence-${randomUUID()}`,
-        token: i === PHONES - 1 ? foremanToken : inspectorToken,
+        token: i === FOREMAN ? foremanToken : inspectorToken,
         network,
         random,
         clockSkewMs: schedule.skews[i],
-        onResult: (clientId: string, result: SyncMutationResult) => told.push({ clientId, result }),
+        onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => told.push({ phone: i, clientId, result, entryId }),
       }),
   );
+  const made = (phone: number, what: string) => (entryId: number) => ledger.push({ phone, entryId, what });
   try {
     // The phones have synced before: they start at the end of the feed (earlier schedules' records are not theirs to hold).
     const cursor = await feedEnd();
     for (const phone of phones) await phone.db.meta.put({ key: m.SYNC_META.cursor, value: cursor });
-    // Phone 0 records the findings; everyone gets them.
+    // Phone 0 starts the walk and records the findings; everyone gets them.
+    const inspectionId = randomUUID();
+    const startedAt = new Date().toISOString();
+    await phones[0]!.create('inspections', inspectionRecord(inspectionId, startedAt), {
+      entity: 'inspection',
+      action: 'create',
+      payload: { id: inspectionId, scaffoldId: DEMO.foremansScaffold, reason: 'scheduled', windSpeedMps: 3, startedAt },
+    });
     const ids = Array.from({ length: FINDINGS }, () => randomUUID());
-    for (const [n, id] of ids.entries()) {
-      await m.saveFinding(
-        phones[0]!.db,
-        m.sampleFinding({ id, organisationId: orgId, siteId, scaffoldId: DEMO.foremansScaffold, inspectionId: null, elevation: 'North', lift: 2, bay: n + 1, notes: 'start', version: 0 }),
-      );
-    }
+    for (const [n, id] of ids.entries()) await m.saveFinding(phones[0]!.db, newFinding(id, n + 1));
     for (const phone of phones) expect(await phone.engine.sync()).toBe('done');
+    // The inspector's other phones carry the walk too (as if it had been opened on each).
+    const walk = (await phones[0]!.db.inspections.get(inspectionId))!;
+    for (const phone of phones.slice(1, FOREMAN)) await phone.db.inspections.put(walk);
     for (const phone of phones) phone.flaky = true;
 
     for (const step of schedule.steps) {
@@ -121,16 +143,32 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
         continue;
       }
       const phone = phones[step.phone]!;
+      const record = made(step.phone, step.kind);
       if (step.kind === 'offline') phone.online = false;
       if (step.kind === 'online') phone.online = true;
       if (step.kind === 'sync') await phone.engine.sync();
       const id = 'finding' in step ? ids[step.finding]! : '';
       if (step.kind === 'edit' && (await phone.db.findings.get(id))) {
         const value = fieldValue(step.field, step.value, step.phone);
-        await phone.change(id, { [step.field]: value }, { entity: 'finding', action: 'update', payload: { [step.field]: value } });
+        record(await phone.change(id, { [step.field]: value }, { entity: 'finding', action: 'update', payload: { [step.field]: value } }));
       }
       if (step.kind === 'state' && (await phone.db.findings.get(id))) {
-        await phone.change(id, { state: step.to }, { entity: 'finding', action: 'state', payload: { to: step.to, note: 'Seen on the walk', photoIds: [randomUUID()] } });
+        record(await phone.change(id, { state: step.to }, { entity: 'finding', action: 'state', payload: { to: step.to, note: 'Seen on the walk', photoIds: [randomUUID()] } }));
+      }
+      // Creates happen under the flaky network too; only inspectors record findings.
+      if (step.kind === 'create' && step.phone !== FOREMAN) {
+        const created = randomUUID();
+        ids.push(created);
+        const finding = newFinding(created, ids.length);
+        record(await phone.create('findings', finding, { entity: 'finding', action: 'create', payload: createPayload(finding) }));
+      }
+      if (step.kind === 'inspection' && step.phone !== FOREMAN && (await phone.db.inspections.get(inspectionId))) {
+        const value = step.field === 'location' ? `North face, seen from phone ${step.phone} (${step.value})` : step.value * 2;
+        record(await phone.change(inspectionId, { [step.field]: value }, { entity: 'inspection', action: 'update', payload: { [step.field]: value } }, 'inspections'));
+      }
+      if (step.kind === 'check' && step.phone !== FOREMAN) {
+        const note = `${step.result} at bay ${step.value} (phone ${step.phone})`;
+        record(await phone.answerControl({ inspectionId, organisationId: orgId, control: step.control, result: step.result, note }));
       }
     }
 
@@ -141,35 +179,93 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
     let converged = false;
     while (!converged && Date.now() < deadline) {
       for (const phone of phones) expect(await phone.engine.sync()).toBe('done');
-      converged = await sameAsServer(phones, ids);
+      converged = await sameAsServer(phones, ids, inspectionId);
     }
     expect(await Promise.all(phones.map((p) => p.db.outbox.count()))).toEqual(phones.map(() => 0));
     expect(await phoneViews(phones, ids)).toEqual(await serverViewFor(phones, ids));
+    expect(await walkViews(phones, inspectionId)).toEqual(await serverWalkFor(phones, inspectionId));
 
     // Every mutation a phone sent was answered, and its outcome is the server's, exactly once.
     const clientIds = [...new Set(told.map((x) => x.clientId))];
     const logged = clientIds.length ? await t.drizzle.select().from(syncMutations).where(inArray(syncMutations.clientId, clientIds)) : [];
-    const answered = new Map(told.map((x) => [`${x.clientId}:${x.result.id}`, x.result]));
-    expect(answered.size).toBe(logged.length);
-    for (const row of logged) expect(answered.get(`${row.clientId}:${row.mutationId}`)?.outcome).toBe(row.outcome);
+    const answers = new Map<string, SyncMutationResult[]>();
+    for (const x of told) answers.set(`${x.clientId}:${x.result.id}`, [...(answers.get(`${x.clientId}:${x.result.id}`) ?? []), x.result]);
+    expect(answers.size).toBe(logged.length);
+    for (const row of logged) expect(answers.get(`${row.clientId}:${row.mutationId}`)?.[0]?.outcome).toBe(row.outcome);
+    // A replayed answer (a retry after a lost one) repeats the first.
+    for (const [key, heard] of answers) {
+      const first = { outcome: heard[0]!.outcome, reason: heard[0]!.reason, conflictIds: [...heard[0]!.conflictIds].sort() };
+      for (const again of heard.slice(1)) expect({ outcome: again.outcome, reason: again.reason, conflictIds: [...again.conflictIds].sort() }, key).toEqual(first);
+    }
     for (const clientId of clientIds) {
       const mine = logged.filter((r) => r.clientId === clientId).map((r) => r.mutationId).sort((a, b) => a - b);
       expect(mine).toEqual(mine.map((_, i) => i + 1));
     }
-    const conflictIds = new Set([...answered.values()].flatMap((r) => r.conflictIds));
-    const conflicts = await t.drizzle.select({ id: syncConflicts.id }).from(syncConflicts).where(inArray(syncConflicts.entityId, ids));
+    // Every edit each phone made went out in a mutation the server logged as applied, conflicted or rejected.
+    const loggedOutcome = new Map(logged.map((r) => [`${r.clientId}:${r.mutationId}`, r.outcome]));
+    for (const edit of ledger) {
+      const heard = told.find((x) => x.phone === edit.phone && x.entryId === edit.entryId);
+      expect(heard, `${edit.what} on phone ${edit.phone} (outbox entry ${edit.entryId}) was never answered`).toBeDefined();
+      expect(['applied', 'conflict', 'rejected']).toContain(loggedOutcome.get(`${heard!.clientId}:${heard!.result.id}`));
+    }
+    const conflictIds = new Set([...answers.values()].flatMap((heard) => heard[0]!.conflictIds));
+    const conflicts = await t.drizzle.select({ id: syncConflicts.id }).from(syncConflicts).where(inArray(syncConflicts.winnerClientId, clientIds.length ? clientIds : [randomUUID()]));
     expect(conflicts.map((c) => c.id).sort()).toEqual([...conflictIds].sort());
-    expect(logged.filter((r) => r.outcome === 'conflict').length).toBe([...answered.values()].filter((r) => r.outcome === 'conflict').length);
+    expect(logged.filter((r) => r.outcome === 'conflict').length).toBe([...answers.values()].filter((heard) => heard[0]!.outcome === 'conflict').length);
   } finally {
     for (const phone of phones) phone.close();
   }
 }
+
+const newFinding = (id: string, bay: number) =>
+  m.sampleFinding({ id, organisationId: orgId, siteId, scaffoldId: DEMO.foremansScaffold, inspectionId: null, elevation: 'North', lift: 2, bay: (bay % 10) + 1, notes: 'start', version: 0 });
+
+/** The create body the findings store sends for a finding made on the phone. */
+const createPayload = (f: PhoneFinding) => ({
+  id: f.id,
+  scaffoldId: f.scaffoldId,
+  elevation: f.elevation,
+  lift: f.lift,
+  bay: f.bay,
+  heightM: f.heightM,
+  item: { name: f.item.name, massKg: f.item.massKg },
+  exposure: f.exposure,
+  likelihoodAnswers: f.likelihoodAnswers,
+  notes: f.notes,
+});
+
+const inspectionRecord = (id: string, startedAt: string) => ({
+  id,
+  organisationId: orgId,
+  siteId,
+  scaffoldId: DEMO.foremansScaffold,
+  inspectorId: '',
+  status: 'in-progress',
+  startedAt,
+  finishedAt: null,
+  reason: 'scheduled',
+  windSpeedMps: 3,
+  reportFor: '',
+  location: '',
+  equipment: '',
+  mattersGivingRisk: '',
+  actionTaken: '',
+  furtherAction: '',
+  reporterName: '',
+  reporterPosition: '',
+  signature: null,
+  signedAt: null,
+  createdAt: startedAt,
+  updatedAt: startedAt,
+  version: 0,
+});
 
 /** The end of the feed now (nothing of this database is in flight between schedules). */
 async function feedEnd(): Promise<string> {
   const rows = await t.drizzle.execute<{ xid: string; seq: string }>(sql`
     select xid::text as xid, seq from (
       select sync_xid as xid, sync_seq as seq from findings union all select sync_xid, sync_seq from sync_conflicts
+      union all select sync_xid, sync_seq from inspections union all select sync_xid, sync_seq from control_checks
     ) feed order by xid desc, seq desc limit 1`);
   const last = rows.rows[0];
   return last ? `${last.xid}.${last.seq}` : '0.0';
@@ -196,8 +292,27 @@ async function phoneViews(phones: Phone[], ids: string[]) {
   );
 }
 
-async function sameAsServer(phones: Phone[], ids: string[]): Promise<boolean> {
-  return JSON.stringify(await phoneViews(phones, ids)) === JSON.stringify(await serverViewFor(phones, ids));
+const WALK = (w: { location?: unknown; windSpeedMps?: unknown; version?: unknown } | undefined, checks: { control?: unknown; result?: unknown; note?: unknown; version?: unknown }[]) => ({
+  location: w?.location,
+  windSpeedMps: w?.windSpeedMps,
+  version: w?.version,
+  checks: checks.map((c) => ({ control: c.control, result: c.result, note: c.note, version: c.version })).sort((a, b) => String(a.control).localeCompare(String(b.control))),
+});
+
+/** The walk as each inspector's phone holds it (the foreman's phone does not carry it). */
+async function walkViews(phones: Phone[], inspectionId: string) {
+  return Promise.all(phones.slice(0, FOREMAN).map(async (p) => WALK(await p.db.inspections.get(inspectionId), await p.db.controlChecks.where('inspectionId').equals(inspectionId).toArray())));
+}
+
+async function serverWalkFor(phones: Phone[], inspectionId: string) {
+  const [walk] = await t.drizzle.select().from(inspections).where(eq(inspections.id, inspectionId));
+  const view = WALK(walk, await t.drizzle.select().from(controlChecks).where(eq(controlChecks.inspectionId, inspectionId)));
+  return phones.slice(0, FOREMAN).map(() => view);
+}
+
+async function sameAsServer(phones: Phone[], ids: string[], inspectionId: string): Promise<boolean> {
+  const findingsSame = JSON.stringify(await phoneViews(phones, ids)) === JSON.stringify(await serverViewFor(phones, ids));
+  return findingsSame && JSON.stringify(await walkViews(phones, inspectionId)) === JSON.stringify(await serverWalkFor(phones, inspectionId));
 }
 
 describe('the schedule count', () => {

@@ -123,7 +123,10 @@ async function settleAndReconcile(phones: Phone[], ids: string[], told: Told): P
 /**
  * Five phones (four of the inspector, the foreman's) take turns between both processes: phone 0
  * records two findings, then three rounds in which every phone writes the same field of the first
- * (conflicts) and its own field of the second, and syncs. The last write to arrive wins.
+ * (conflicts) and its own field of the second, and syncs. Clashing notes keep both texts: after the
+ * first write (which had seen the recorded note), every inspector's note arrives over one its phone
+ * had not seen, so the notes end as every inspector's note in the order they reached the server.
+ * The foreman's edits are refused (only inspectors edit findings).
  */
 async function roundsAcrossProcesses(skews: number[]): Promise<void> {
   const told: Told = [];
@@ -132,7 +135,7 @@ async function roundsAcrossProcesses(skews: number[]): Promise<void> {
   for (const [n, id] of ids.entries()) await m.saveFinding(phones[0]!.db, newFinding(id, n + 1));
   for (const p of phones) expect(await p.engine.sync()).toBe('done');
   const fields = ['notes', 'heightM', 'lift'] as const;
-  let lastInspectorNote = '';
+  const arrived: string[] = [];
   for (let round = 1; round <= 3; round++) {
     for (const [i, p] of phones.entries()) {
       const notes = `round ${round}, phone ${i}`;
@@ -144,11 +147,11 @@ async function roundsAcrossProcesses(skews: number[]): Promise<void> {
     // A different order each round, always ending with an inspector's phone.
     const order = [4, ...[0, 1, 2, 3].map((k) => (k + round) % 4)];
     for (const i of order) expect(await phones[i]!.engine.sync()).toBe('done');
-    lastInspectorNote = `round ${round}, phone ${order.at(-1)}`;
+    arrived.push(...order.slice(1).map((i) => `round ${round}, phone ${i}`));
   }
   await settleAndReconcile(phones, ids, told);
   const [stored] = await sqlDb.select().from(findings).where(eq(findings.id, ids[0]!));
-  expect(stored!.notes).toBe(lastInspectorNote);
+  expect(stored!.notes.split('\n\n')).toEqual(arrived);
   // The server stamps its own time, whatever the phones' clocks say.
   expect(Math.abs(stored!.updatedAt.getTime() - Date.now())).toBeLessThan(60_000);
 }

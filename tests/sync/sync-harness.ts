@@ -20,9 +20,14 @@ interface Table<T, K> {
   bulkGet(keys: K[]): Promise<(T | undefined)[]>;
   put(value: T): Promise<unknown>;
   count(): Promise<number>;
+  where(index: string): { equals(key: unknown): { first(): Promise<T | undefined>; toArray(): Promise<T[]> } };
 }
+/** An inspection or control check as the phone keeps it (only the fields the tests read are typed). */
+export type PhoneRecord = Record<string, unknown> & { id: string; version: number };
 export interface MobileDb {
   findings: Table<PhoneFinding, string>;
+  inspections: Table<PhoneRecord, string>;
+  controlChecks: Table<PhoneRecord, string>;
   outbox: Table<unknown, number>;
   meta: Table<{ key: string; value: unknown }, string>;
   transaction<R>(mode: 'rw', ...args: [...unknown[], () => Promise<R>]): Promise<R>;
@@ -30,7 +35,7 @@ export interface MobileDb {
   /** Deletes the whole browser database (a wiped phone). */
   delete(): Promise<void>;
 }
-export type OutboxChange = { entity: 'finding'; action: 'update' | 'state' | 'create'; payload: Record<string, unknown> };
+export type OutboxChange = { entity: 'finding' | 'inspection' | 'control-check'; action: 'update' | 'state' | 'create' | 'put'; payload: Record<string, unknown> };
 interface Engine {
   sync(): Promise<'done' | 'offline' | 'error'>;
 }
@@ -88,7 +93,8 @@ export interface PhoneOptions {
   random: () => number;
   /** Device clock offset, ms (±24 h in the tests: the server must not care). */
   clockSkewMs?: number;
-  onResult: (clientId: string, result: SyncMutationResult) => void;
+  /** Every push answer, with the outbox entry (what enqueueChange returned) it answers. */
+  onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => void;
 }
 
 export class Phone {
@@ -109,9 +115,9 @@ export class Phone {
       random: options.random,
       batchSize: 3,
       pullLimit: 10,
-      onResult: (clientId: string, result: SyncMutationResult) => {
+      onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => {
         this.clientId = clientId;
-        options.onResult(clientId, result);
+        options.onResult(clientId, result, entryId);
       },
     });
   }
@@ -147,14 +153,45 @@ export class Phone {
     }
   }
 
-  /** A local change the way the phone's stores make one: the record and its outbox entry in one transaction. */
-  async change(id: string, recordChange: Partial<PhoneFinding>, outbox: OutboxChange): Promise<void> {
+  private now(): Date {
+    return new Date(Date.now() + (this.options.clockSkewMs ?? 0));
+  }
+
+  /**
+   * A local change the way the phone's stores make one: the record and its outbox entry in one
+   * transaction. Answers the outbox entry the change went into (new, or folded into a waiting one).
+   */
+  async change(id: string, recordChange: Record<string, unknown>, outbox: OutboxChange, table: 'findings' | 'inspections' = 'findings'): Promise<number> {
     const db = this.db;
-    const now = new Date(Date.now() + (this.options.clockSkewMs ?? 0));
-    await db.transaction('rw', db.findings, db.outbox, async () => {
-      const current = await db.findings.get(id);
-      if (current) await db.findings.put({ ...current, ...recordChange, updatedAt: now.toISOString() });
-      await this.m.enqueueChange(db, id, outbox, now);
+    const now = this.now();
+    const records = db[table] as Table<PhoneRecord, string>;
+    return db.transaction('rw', records, db.outbox, async () => {
+      const current = await records.get(id);
+      if (current) await records.put({ ...current, ...recordChange, updatedAt: now.toISOString() });
+      return this.m.enqueueChange(db, id, outbox, now);
+    });
+  }
+
+  /** A record made on this phone with its create entry (offline or not), as the stores make one. */
+  async create(table: 'findings' | 'inspections', record: PhoneRecord, outbox: OutboxChange): Promise<number> {
+    const db = this.db;
+    const records = db[table] as Table<PhoneRecord, string>;
+    return db.transaction('rw', records, db.outbox, async () => {
+      await records.put(record);
+      return this.m.enqueueChange(db, record.id, outbox, this.now());
+    });
+  }
+
+  /** Answers one control of an inspection as the inspection store does: a second answer keeps the check's id. */
+  async answerControl(answer: { inspectionId: string; organisationId: string; control: string; result: string; note: string }): Promise<number> {
+    const db = this.db;
+    const now = this.now().toISOString();
+    return db.transaction('rw', db.controlChecks, db.outbox, async () => {
+      const existing = await db.controlChecks.where('[inspectionId+control]').equals([answer.inspectionId, answer.control]).first();
+      const check: PhoneRecord = { ...answer, id: existing?.id ?? crypto.randomUUID(), createdAt: existing?.createdAt ?? now, updatedAt: now, version: existing?.version ?? 0 };
+      await db.controlChecks.put(check);
+      const { organisationId: _org, ...payload } = answer;
+      return this.m.enqueueChange(db, check.id, { entity: 'control-check', action: 'put', payload }, this.now());
     });
   }
 

@@ -44,7 +44,7 @@ function fakeServer(options: { reject?: (id: number) => string | undefined; phot
 const finding = (n: number) => sampleFinding({ id: `0f000000-0000-4000-8000-00000000000${n}`, version: 0 });
 
 describe('the sync engine', () => {
-  it('pushes findings with rising mutation ids, sends other changes to their routes in order, and uploads photos after their owner', async () => {
+  it('pushes every record change as mutations with rising ids, in order, and uploads photos after their owner', async () => {
     const db = freshDb();
     const server = fakeServer();
     await enqueueChange(db, 'insp-1', { entity: 'inspection', action: 'create', payload: { id: 'insp-1' } as never });
@@ -55,7 +55,8 @@ describe('the sync engine', () => {
 
     expect(await new SyncEngine(db, server.transport).sync()).toBe('done');
 
-    expect(server.calls).toEqual(['send inspection:create', 'push 1', 'photo photo-1', 'push 2', 'pull']);
+    expect(server.calls).toEqual(['push 1,2', 'photo photo-1', 'push 3', 'pull']);
+    expect(server.pushes[0]!.mutations.map((m) => `${m.entity}:${m.action}`)).toEqual(['inspection:create', 'finding:create']);
     expect(await db.outbox.count()).toBe(0);
     expect((await db.photos.get('photo-1'))?.uploadedAt).toBeDefined();
     expect((await db.meta.get(SYNC_META.cursor))?.value).toBe('5.7');

@@ -16,6 +16,9 @@ import { clientIdOf, readAssignments, readConflicts, readRejected, type Rejected
 import { applyPulledPage, putIfNewer } from './sync-apply';
 import type { SyncStatus } from './sync-status';
 
+/** Where the signed-in session (with the user's profile) is kept; the engine reads only its version. */
+const SESSION_META = 'session';
+
 export interface SyncEngineOptions {
   /** The device clock (only for local bookkeeping: the server never orders by it). */
   now?: () => Date;
@@ -24,15 +27,17 @@ export interface SyncEngineOptions {
   batchSize?: number;
   /** Changes per pull page. */
   pullLimit?: number;
-  /** Told about every push result (tests reconcile outcomes with it). */
-  onResult?: (clientId: string, result: SyncMutationResult) => void;
+  /** Told about every push result with the outbox entry it answers (tests reconcile outcomes with it). */
+  onResult?: (clientId: string, result: SyncMutationResult, entryId?: number) => void;
 }
 
 export type SyncRunOutcome = 'done' | 'offline' | 'error';
 
-type PushableEntry = OutboxEntry & { entity: 'finding'; action: 'create' | 'update' | 'state' | 'assign' | 'hand-back' };
+type PushableEntry = Extract<OutboxEntry, { entity: 'finding' | 'inspection' | 'control-check' | 'user' }>;
 
-const pushable = (entry: OutboxEntry): entry is PushableEntry => entry.entity === 'finding';
+/** Every record change travels as a mutation; only photo bytes go to their own route. */
+const pushable = (entry: OutboxEntry): entry is PushableEntry =>
+  entry.entity === 'finding' || entry.entity === 'inspection' || entry.entity === 'control-check' || entry.entity === 'user';
 
 export class SyncEngine {
   private running: Promise<SyncRunOutcome> | null = null;
@@ -145,7 +150,7 @@ export class SyncEngine {
   /** Gives the entries their mutation ids (kept for retries) and marks them tried, so no later edit folds into them. */
   private async prepare(entries: PushableEntry[]): Promise<{ mutations: SyncMutationInput[]; byMutation: Map<number, number> }> {
     const db = this.database;
-    return db.transaction('rw', db.outbox, db.meta, db.findings, async () => {
+    return db.transaction('rw', [db.outbox, db.meta, db.findings, db.inspections, db.controlChecks], async () => {
       const assignments = await readAssignments(db);
       let next = (await readMeta<number>(db, SYNC_META.nextMutationId)) ?? 1;
       const mutations: SyncMutationInput[] = [];
@@ -160,9 +165,8 @@ export class SyncEngine {
         }
         await db.outbox.update(entry.id!, { attempts: entry.attempts + 1 });
         const payload = entry.payload as Record<string, unknown>;
-        const local = entry.action === 'create' ? undefined : await db.findings.get(entry.entityId);
-        const seen = typeof payload.version === 'number' ? payload.version : (local?.version ?? 0);
-        mutations.push({ id, entity: 'finding', entityId: entry.entityId, action: entry.action, baseVersion: entry.action === 'create' ? 0 : seen, payload });
+        const seen = typeof payload.version === 'number' ? payload.version : await this.localVersion(entry);
+        mutations.push({ id, entity: entry.entity, entityId: entry.entityId, action: entry.action, baseVersion: entry.action === 'create' ? 0 : seen, payload });
         byMutation.set(id, entry.id!);
       }
       await writeMeta(db, SYNC_META.assignments, assignments);
@@ -171,12 +175,31 @@ export class SyncEngine {
     });
   }
 
+  /** The version of the record this phone last had from the server (0: never had it). */
+  private async localVersion(entry: PushableEntry): Promise<number> {
+    const db = this.database;
+    switch (entry.entity) {
+      case 'finding':
+        return (await db.findings.get(entry.entityId))?.version ?? 0;
+      case 'inspection':
+        return (await db.inspections.get(entry.entityId))?.version ?? 0;
+      case 'control-check':
+        return (await db.controlChecks.get(entry.entityId))?.version ?? 0;
+      case 'user': {
+        const profile = await readMeta<{ id?: string; version?: number }>(db, SYNC_META.profile);
+        const session = await readMeta<{ user?: { id?: string; version?: number } }>(db, SESSION_META);
+        const versions = [profile?.id === entry.entityId ? profile.version : undefined, session?.user?.id === entry.entityId ? session.user.version : undefined];
+        return Math.max(0, ...versions.filter((v): v is number => typeof v === 'number'));
+      }
+    }
+  }
+
   private async pushBatch(entries: PushableEntry[]): Promise<void> {
     const clientId = await clientIdOf(this.database);
     const { mutations, byMutation } = await this.prepare(entries);
     if (!mutations.length) return;
     const response = await this.transport.push({ clientId, mutations: mutations as never });
-    for (const result of response.results) this.options.onResult?.(clientId, result);
+    for (const result of response.results) this.options.onResult?.(clientId, result, byMutation.get(result.id));
     await this.acknowledge(response, byMutation);
   }
 
@@ -264,8 +287,9 @@ export class SyncEngine {
 
   private async pullChanges(): Promise<void> {
     let cursor = await readMeta<string>(this.database, SYNC_META.cursor);
+    const clientId = await clientIdOf(this.database);
     for (;;) {
-      const page = await this.transport.pull(cursor, this.options.pullLimit ?? 500);
+      const page = await this.transport.pull(cursor, this.options.pullLimit ?? 500, clientId);
       await applyPulledPage(this.database, page);
       cursor = page.cursor;
       if (!page.hasMore) return;

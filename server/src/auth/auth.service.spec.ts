@@ -19,6 +19,7 @@ const account: SignInCandidate = {
   windUnits: 'mps',
   active: true,
   sessionVersion: 0,
+  version: 1,
   role: 'inspector',
   organisationId: '22222222-2222-4222-8222-222222222222',
   organisationName: 'Harrow & Span Access Ltd',

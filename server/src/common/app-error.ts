@@ -9,6 +9,8 @@ export enum ErrorCode {
   Conflict = 'CONFLICT',
   /** Separation of duties: whoever marked a finding fixed may not verify it (an organisation setting). */
   VerifierIsFixer = 'VERIFIER_IS_FIXER',
+  /** A finished and signed inspection (and its control checks) is a statutory record: read-only. */
+  InspectionSigned = 'INSPECTION_SIGNED',
   RateLimited = 'RATE_LIMITED',
   UnsupportedMediaType = 'UNSUPPORTED_MEDIA_TYPE',
   ServiceUnavailable = 'SERVICE_UNAVAILABLE',
@@ -28,6 +30,7 @@ const STATUS: Record<ErrorCode, number> = {
   [ErrorCode.NotFound]: 404,
   [ErrorCode.Conflict]: 409,
   [ErrorCode.VerifierIsFixer]: 403,
+  [ErrorCode.InspectionSigned]: 409,
   [ErrorCode.RateLimited]: 429,
   [ErrorCode.UnsupportedMediaType]: 415,
   [ErrorCode.ServiceUnavailable]: 503,

@@ -7,6 +7,7 @@
  */
 import { Injectable } from '@nestjs/common';
 import {
+  FINDING_MERGE_POLICIES,
   FINDING_SYNC_FIELDS,
   FindingCreateSchema,
   FindingUpdateSchema,
@@ -31,8 +32,7 @@ import { assignFinding, changeFindingState, handBackFinding } from './finding-st
 import { DbFindingStore, type FindingStore } from './finding-store.js';
 import { FindingsRepository } from './findings.repository.js';
 
-/** The client id a conflict names when a server-side write wins (it never does: a server write has seen every value). */
-const SERVER_CLIENT = '00000000-0000-0000-0000-000000000000';
+import { conflictReason, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
 
 @Injectable()
 export class FindingCommands {
@@ -99,7 +99,7 @@ export class FindingCommands {
     if (itemInput) {
       patch.item = resolveItem(itemInput, itemInput.catalogueItemId === undefined ? undefined : await store.catalogueItem(itemInput.catalogueItemId));
     }
-    const seen = actor.clientId === null ? current.version : Math.min(baseVersion ?? 0, current.version);
+    const seen = seenVersion(actor, current.version, baseVersion);
     return this.writeFields(store, actor, current, patch, seen, 'update');
   }
 
@@ -119,8 +119,9 @@ export class FindingCommands {
       nextVersion: current.version + 1,
       userId: actor.user.userId,
       at: (await store.now()).toISOString(),
+      policies: FINDING_MERGE_POLICIES,
     });
-    if (!Object.keys(merge.changes).length) return applied(current, 'Nothing to change');
+    if (!Object.keys(merge.changes).length && !merge.conflicts.length) return applied(current, 'Nothing to change');
     const fields = { ...before, ...merge.changes } as typeof before;
     const scaffold = await store.scaffold(current.scaffoldId);
     if (!scaffold) throw AppError.notFound('Scaffold');
@@ -128,7 +129,9 @@ export class FindingCommands {
     const wind = await inspectionWind(store, current.inspectionId, scaffold.id, false);
     const columns = findingColumns(fields, wind);
     const dueAt = columns.riskBand === current.riskBand ? undefined : fixDueAt(columns.riskBand, current.createdAt, await store.settings(), scaffold.nextDueAt);
-    const row = await store.updateFinding(current.id, { ...columns, notes: fields.notes, syncFields: merge.stamps, ...(dueAt !== undefined ? { dueAt } : {}) });
+    const row = Object.keys(merge.changes).length
+      ? await store.updateFinding(current.id, { ...columns, notes: fields.notes, syncFields: merge.stamps, ...(dueAt !== undefined ? { dueAt } : {}) })
+      : current;
     const conflicts = await store.insertConflicts(
       merge.conflicts.map((c) => ({
         organisationId: actor.user.organisationId,
@@ -148,7 +151,7 @@ export class FindingCommands {
     );
     await store.audit({ entityType: 'finding', entityId: current.id, action, before: toFinding(current), after: toFinding(row) });
     return conflicts.length
-      ? { outcome: 'conflict', reason: `Replaced a value you had not seen: ${conflicts.map((c) => c.field).join(', ')}`, conflictIds: conflicts.map((c) => c.id), row }
+      ? { outcome: 'conflict', reason: conflictReason(merge.conflicts), conflictIds: conflicts.map((c) => c.id), row }
       : applied(row);
   }
 

@@ -156,16 +156,55 @@ describe('versions decided by the server', () => {
     const rows = await api.t.drizzle.execute<{ field: string; replaced_value: unknown; current_value: unknown }>(
       sql`select field, replaced_value, current_value from sync_conflicts where id = ${pushed.conflictIds[0]}::uuid`,
     );
-    expect(rows.rows[0]).toEqual({ field: 'notes', replaced_value: 'Office: coupler is wired on', current_value: 'Phone: coupler loose' });
+    // Clashing notes keep both texts, the stored one first.
+    expect(rows.rows[0]).toEqual({ field: 'notes', replaced_value: 'Office: coupler is wired on', current_value: 'Office: coupler is wired on\n\nPhone: coupler loose' });
+    expect((await get(id)).notes).toBe('Office: coupler is wired on\n\nPhone: coupler loose');
     // The conflict names who wrote the replaced value, and when.
     const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${id}`);
     expect(list.body.items[0]).toMatchObject({ replacedUserId: api.userIds['demo:inspector'], replacedAt: expect.any(String), winnerUserId: api.userIds['demo:inspector'] });
+  });
+
+  it('keeps the public below when an offline push of hard hats clashes with a REST edit it had not seen', async () => {
+    const id = await open();
+    expect((await api.call('demo:inspector', 'PATCH', `/findings/${id}`, { exposure: 'hard-hats' })).status).toBe(200);
+    expect((await api.call('demo:inspector', 'PATCH', `/findings/${id}`, { exposure: 'public' })).status).toBe(200);
+    const pushed = await push('demo:inspector', { entityId: id, action: 'update', baseVersion: 1, payload: { exposure: 'hard-hats' } });
+    expect(pushed.outcome).toBe('conflict');
+    expect(await api.call('demo:manager', 'GET', `/findings/${id}`)).toMatchObject({ body: { exposure: 'public', version: 3 } });
+    const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${id}`);
+    expect(list.body.items[0]).toMatchObject({ field: 'exposure', currentValue: 'public', replacedValue: 'hard-hats', replacedUserId: api.userIds['demo:inspector'] });
   });
 
   it('records no conflict when the phone had seen the REST edit', async () => {
     const id = await open();
     await api.call('demo:inspector', 'PATCH', `/findings/${id}`, { notes: 'Office note' });
     expect((await push('demo:inspector', { entityId: id, action: 'update', baseVersion: 2, payload: { notes: 'Phone after seeing it' } })).outcome).toBe('applied');
+  });
+
+  it('checks a pushed base version against what the server gave that phone: a higher number does not hide a conflict', async () => {
+    const id = await open();
+    const clientId = randomUUID();
+    // The phone pulls the whole feed: it is given the finding at version 1.
+    let cursor: string | undefined;
+    for (let more = true; more; ) {
+      const page = await api.call('demo:inspector', 'GET', `/sync/pull?limit=1000&clientId=${clientId}${cursor ? `&cursor=${cursor}` : ''}`);
+      expect(page.status).toBe(200);
+      ({ cursor, hasMore: more } = page.body as { cursor: string; hasMore: boolean });
+    }
+    expect((await api.call('demo:inspector', 'PATCH', `/findings/${id}`, { lift: 5 })).status).toBe(200);
+    // It claims to have seen version 2, which it was never given.
+    const res = await api.call('demo:inspector', 'POST', '/sync/push', {
+      clientId,
+      mutations: [{ id: 1, entity: 'finding', entityId: id, action: 'update', baseVersion: 2, payload: { lift: 4 } }],
+    });
+    expect(res.body.results[0]).toMatchObject({ outcome: 'conflict' });
+    // Told version 3 in the answer, its next edit from there is seen.
+    expect(res.body.records[0]).toMatchObject({ id, version: 3, lift: 4 });
+    const next = await api.call('demo:inspector', 'POST', '/sync/push', {
+      clientId,
+      mutations: [{ id: 2, entity: 'finding', entityId: id, action: 'update', baseVersion: 3, payload: { lift: 6 } }],
+    });
+    expect(next.body.results[0]).toMatchObject({ outcome: 'applied', conflictIds: [] });
   });
 
   it('refuses a REST edit made from a version that is no longer current (409)', async () => {

@@ -13,6 +13,8 @@ import { resolveItem } from '../findings/finding-input.js';
 import { FindingsRepository } from '../findings/findings.repository.js';
 import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
 import { FindingCommands } from '../findings/finding-commands.js';
+import { InspectionCommands } from '../inspections/inspection-commands.js';
+import { UserSettingsCommands } from '../users/user-settings-commands.js';
 import { toSyncConflict } from './sync.mapper.js';
 import { SyncRepository } from './sync.repository.js';
 
@@ -25,6 +27,8 @@ export class SyncConflictsService {
     private readonly findings: FindingsRepository,
     private readonly catalogue: CatalogueRepository,
     private readonly commands: FindingCommands,
+    private readonly inspectionCommands: InspectionCommands,
+    private readonly settingsCommands: UserSettingsCommands,
   ) {}
 
   async list(user: AuthUser, query: SyncConflictListQuery): Promise<{ items: SyncConflict[] }> {
@@ -43,7 +47,12 @@ export class SyncConflictsService {
       if (!conflict) throw AppError.notFound('Conflict');
       if (conflict.status !== 'open') throw new AppError(ErrorCode.Conflict, 'The conflict is already settled');
       const settled = settleConflict(input.keep, conflict.replacedValue, input.value);
-      if (settled.write) {
+      const actor = { user, clientId: null, mutationId: null };
+      if (settled.write && (conflict.entity === 'inspection' || conflict.entity === 'control-check')) {
+        await this.inspectionCommands.settle(tx, actor, conflict.entity, conflict.entityId, conflict.field, settled.value);
+      } else if (settled.write && conflict.entity === 'user') {
+        await this.settingsCommands.edit(tx, actor, conflict.entityId, { [conflict.field]: settled.value });
+      } else if (settled.write) {
         const scoped = await this.findings.findWithScope(user.organisationId, conflict.entityId, tx, true);
         if (!scoped) throw AppError.notFound('Finding');
         let value = settled.value;
@@ -59,7 +68,6 @@ export class SyncConflictsService {
           value = (parsed.data as Record<string, unknown>)[conflict.field];
         }
         // A server-side write has seen every value: it never opens a new conflict.
-        const actor = { user, clientId: null, mutationId: null };
         await this.commands.writeFields(this.commands.store(tx, user), actor, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
       }
       return toSyncConflict(await this.sync.markResolved(id, { resolution: input.keep, resolvedBy: user.userId }, tx));

@@ -190,6 +190,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
           position: users.position,
           units: users.units,
           windUnits: users.windUnits,
+          version: users.version,
           role: memberships.role,
           organisationName: organisations.name,
           syncXid: users.syncXid,
@@ -201,7 +202,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
         .where(and(eq(users.id, scope.userId), window(users.syncXid, users.syncSeq))),
       (row) => ({
         type: 'user',
-        record: { id: row.id, email: row.email, name: row.name, position: row.position, units: row.units, windUnits: row.windUnits, role: row.role, organisation: { id: org, name: row.organisationName } },
+        record: { id: row.id, email: row.email, name: row.name, position: row.position, units: row.units, windUnits: row.windUnits, role: row.role, organisation: { id: org, name: row.organisationName }, version: row.version },
       }),
     ),
     read(

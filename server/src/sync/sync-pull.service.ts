@@ -3,6 +3,7 @@ import { SYNC_CURSOR_START, type SyncPullQuery, type SyncPullResponse } from '@p
 import type { AuthUser } from '../auth/auth.types.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
+import { SyncRepository } from './sync.repository.js';
 
 /**
  * GET /api/sync/pull: the caller's changes after a cursor, oldest first, a page at a time. Scoped
@@ -14,13 +15,14 @@ export class SyncPullService {
   constructor(
     @Inject(DRIZZLE) private readonly db: Db,
     private readonly pull: SyncPullRepository,
+    private readonly sync: SyncRepository,
   ) {}
 
   async changes(user: AuthUser, query: SyncPullQuery): Promise<SyncPullResponse> {
     const [xid, seq] = (query.cursor ?? SYNC_CURSOR_START).split('.') as [string, string];
     const foremanId = user.role === 'foreman' ? user.userId : undefined;
     // One REPEATABLE READ snapshot: one horizon for every table of the feed (see SyncPullRepository).
-    return this.db.transaction(
+    const page = await this.db.transaction(
       async (tx) => {
         const scope = { organisationId: user.organisationId, userId: user.userId, foremanId };
         const feed = await this.pull.changes(scope, { xid, seq: Number(seq) }, query.limit + 1, tx);
@@ -31,5 +33,18 @@ export class SyncPullService {
       },
       { isolationLevel: 'repeatable read', accessMode: 'read only' },
     );
+    if (query.clientId) await this.noteGiven(user, query.clientId, page);
+    return page;
+  }
+
+  /** The versions this page hands the phone, so its later pushes are checked against them. */
+  private async noteGiven(user: AuthUser, clientId: string, page: SyncPullResponse): Promise<void> {
+    const records = page.changes.flatMap((c) =>
+      (c.type === 'finding' || c.type === 'inspection' || c.type === 'control-check' || c.type === 'user') && typeof c.record.version === 'number'
+        ? [{ id: c.record.id, version: c.record.version }]
+        : [],
+    );
+    if (!records.length) return;
+    if (await this.sync.clientOf(clientId, user.organisationId, user.userId)) await this.sync.recordGiven(clientId, records);
   }
 }

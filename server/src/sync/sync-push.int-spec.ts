@@ -36,7 +36,7 @@ const update = (id: string, baseVersion: number, payload: Record<string, unknown
 const state = (id: string, to: string, note = '') => ({ entity: 'finding', entityId: id, action: 'state', payload: { to, note, photoIds: [randomUUID()] } });
 
 async function finding(id: string) {
-  return (await api.call('demo:manager', 'GET', `/findings/${id}`)).body as { notes: string; heightM: number; version: number; state: string; riskScore: number };
+  return (await api.call('demo:manager', 'GET', `/findings/${id}`)).body as { notes: string; heightM: number; lift: number; version: number; state: string; riskScore: number };
 }
 
 describe('pushing mutations', () => {
@@ -123,7 +123,30 @@ describe('per-field merge', () => {
     expect(after.riskScore).toBeGreaterThanOrEqual(before.riskScore);
   });
 
-  it('lets the later arrival win the same field, keeps the replaced value as a conflict, and settles it', async () => {
+  it('lets the later arrival win a field without a safety rule, keeps the replaced value as a conflict, and settles it', async () => {
+    const a = phone('demo:inspector');
+    const b = phone('demo:inspector');
+    const c = create({ lift: 3 });
+    await a.push([c]);
+    await a.push([update(c.entityId, 1, { lift: 4 })]);
+    const res = await b.push([update(c.entityId, 1, { lift: 5 })]);
+    expect(res.body.results[0].outcome).toBe('conflict');
+    const [conflictId] = res.body.results[0].conflictIds;
+    expect((await finding(c.entityId)).lift).toBe(5);
+
+    const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${c.entityId}&status=open`);
+    expect(list.body.items).toEqual([expect.objectContaining({ id: conflictId, field: 'lift', currentValue: 5, replacedValue: 4, status: 'open' })]);
+    expect((await api.call('demo:foreman', 'GET', '/sync/conflicts')).status).toBe(403);
+    expect((await api.call('other:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'current' })).status).toBe(404);
+
+    const settled = await api.call('demo:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'replaced' });
+    expect(settled.status).toBe(200);
+    expect(settled.body).toMatchObject({ status: 'resolved', resolution: 'replaced' });
+    expect((await finding(c.entityId)).lift).toBe(4);
+    expect((await api.call('demo:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'current' })).status).toBe(409);
+  });
+
+  it('keeps both texts when two phones’ notes clash, and settling can keep the earlier text alone', async () => {
     const a = phone('demo:inspector');
     const b = phone('demo:inspector');
     const c = create({ notes: 'start' });
@@ -131,21 +154,10 @@ describe('per-field merge', () => {
     await a.push([update(c.entityId, 1, { notes: 'A says bolt it' })]);
     const res = await b.push([update(c.entityId, 1, { notes: 'B says remove it' })]);
     expect(res.body.results[0].outcome).toBe('conflict');
+    expect((await finding(c.entityId)).notes).toBe('A says bolt it\n\nB says remove it');
     const [conflictId] = res.body.results[0].conflictIds;
-    expect((await finding(c.entityId)).notes).toBe('B says remove it');
-
-    const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${c.entityId}&status=open`);
-    expect(list.body.items).toEqual([
-      expect.objectContaining({ id: conflictId, field: 'notes', currentValue: 'B says remove it', replacedValue: 'A says bolt it', status: 'open' }),
-    ]);
-    expect((await api.call('demo:foreman', 'GET', '/sync/conflicts')).status).toBe(403);
-    expect((await api.call('other:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'current' })).status).toBe(404);
-
-    const settled = await api.call('demo:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'replaced' });
-    expect(settled.status).toBe(200);
-    expect(settled.body).toMatchObject({ status: 'resolved', resolution: 'replaced' });
+    expect((await api.call('demo:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'replaced' })).status).toBe(200);
     expect((await finding(c.entityId)).notes).toBe('A says bolt it');
-    expect((await api.call('demo:manager', 'POST', `/sync/conflicts/${conflictId}/resolve`, { keep: 'current' })).status).toBe(409);
   });
 
   it('settles a conflict with a typed value, checked like any edit', async () => {

@@ -9,6 +9,7 @@ import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
 import { BatchFallback, BatchSyncStore } from './batch-sync-store.js';
 import { faultAfter, faultPoint } from './fault-injection.js';
 import { FindingSyncService, type MutationApplied } from './finding-sync.service.js';
+import { RecordSyncService } from './record-sync.service.js';
 import { type BatchFinding, SyncBatchRepository } from './sync-batch.repository.js';
 import { isDatabaseError, isRetryable, pgCode, rejectionReason } from './mutation-rejected.js';
 import { SyncPullRepository } from './sync-pull.repository.js';
@@ -35,6 +36,7 @@ export class SyncPushService {
     private readonly sync: SyncRepository,
     private readonly pull: SyncPullRepository,
     private readonly findingSync: FindingSyncService,
+    private readonly recordSync: RecordSyncService,
     private readonly batch: SyncBatchRepository,
     private readonly audit: AuditService,
   ) {}
@@ -70,7 +72,7 @@ export class SyncPushService {
     }
 
     const replayed = body.mutations.filter((m) => m.id <= client.lastMutationId);
-    const fresh = body.mutations.filter((m) => m.id > client.lastMutationId);
+    const fresh = await this.checkedBaseVersions(tx, body.clientId, body.mutations.filter((m) => m.id > client.lastMutationId));
     const results: SyncMutationResult[] = [];
     const logged = new Map((await this.sync.loggedOutcomes(body.clientId, replayed.map((m) => m.id), tx)).map((r) => [r.mutationId, r]));
     const withConflicts = replayed.filter((m) => logged.get(m.id)?.outcome === 'conflict').map((m) => m.id);
@@ -102,8 +104,21 @@ export class SyncPushService {
       .filter((r) => r.finding.organisationId === user.organisationId)
       .filter((r) => inScope(user, r))
       .map((r) => toSyncFinding(r.finding, r.siteId));
+    await this.sync.recordGiven(body.clientId, records, tx);
     faultPoint('sync-push:before-commit');
     return { lastMutationId, results, records };
+  }
+
+  /**
+   * The server decides versions: a mutation's base version is never taken above the version of its
+   * record the server has handed this phone (in a pull or a push answer), whatever number it sends.
+   */
+  private async checkedBaseVersions(tx: DbExecutor, clientId: string, fresh: SyncMutation[]): Promise<SyncMutation[]> {
+    const given = await this.sync.givenVersions(clientId, [...new Set(fresh.filter((m) => m.baseVersion > 0).map((m) => m.entityId))], tx);
+    return fresh.map((m) => {
+      const handed = given.get(m.entityId);
+      return handed !== undefined && m.baseVersion > handed ? { ...m, baseVersion: handed } : m;
+    });
   }
 
   /**
@@ -113,19 +128,24 @@ export class SyncPushService {
    * savepoint and one savepoint per mutation instead, which records the offending one as rejected.
    */
   private async applyFresh(tx: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
-    try {
-      return await tx.transaction((sp) => this.applyInMemory(sp, user, clientId, fresh, touched));
-    } catch (error) {
-      if (!(error instanceof BatchFallback) && rejectionReason(error) === undefined) throw error;
-      const why = error instanceof BatchFallback ? error.message : `the database refused a value (${pgCode(error)})`;
-      this.logger.warn(`Push of ${fresh.length} mutations applied one by one: ${why}`);
+    // Only a batch of findings alone is applied in memory; inspections, checks and settings go one by one.
+    if (fresh.every((m) => m.entity === 'finding')) {
+      try {
+        return await tx.transaction((sp) => this.applyInMemory(sp, user, clientId, fresh, touched));
+      } catch (error) {
+        if (!(error instanceof BatchFallback) && rejectionReason(error) === undefined) throw error;
+        const why = error instanceof BatchFallback ? error.message : `the database refused a value (${pgCode(error)})`;
+        this.logger.warn(`Push of ${fresh.length} mutations applied one by one: ${why}`);
+      }
     }
     const scaffolds = new Map<string, ScaffoldRow>();
     const results: SyncMutationResult[] = [];
     for (const m of fresh) {
       const ctx = { user, clientId, mutationId: m.id };
       // A savepoint per mutation: a rejected one leaves no trace but its log row.
-      results.push(await this.applyOne(m, () => tx.transaction((sp) => this.findingSync.apply(this.findingSync.dbStore(sp, user, scaffolds), ctx, m))));
+      const apply = (sp: DbExecutor) =>
+        m.entity === 'finding' ? this.findingSync.apply(this.findingSync.dbStore(sp, user, scaffolds), ctx, m) : this.recordSync.apply(sp, ctx, m);
+      results.push(await this.applyOne(m, () => tx.transaction(apply)));
     }
     return { results, stored: undefined };
   }

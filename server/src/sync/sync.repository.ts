@@ -1,7 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { scaffolds, findings, syncClients, syncConflicts, syncMutations } from '../db/schema/index.js';
+import { scaffolds, findings, syncClients, syncClientVersions, syncConflicts, syncMutations } from '../db/schema/index.js';
 
 export type SyncClientRow = typeof syncClients.$inferSelect;
 export type SyncMutationLogRow = typeof syncMutations.$inferInsert;
@@ -21,6 +21,39 @@ export class SyncRepository {
     await tx.insert(syncClients).values({ id, organisationId, userId }).onConflictDoNothing({ target: syncClients.id });
     const [row] = await tx.select().from(syncClients).where(eq(syncClients.id, id)).for('update');
     return row!;
+  }
+
+  /**
+   * The client's row for a pull (made when the phone pulls before it ever pushed); undefined when
+   * the id belongs to another user, whose record of versions this caller must not touch.
+   */
+  async clientOf(id: string, organisationId: string, userId: string, executor: DbExecutor = this.db): Promise<SyncClientRow | undefined> {
+    await executor.insert(syncClients).values({ id, organisationId, userId }).onConflictDoNothing({ target: syncClients.id });
+    const [row] = await executor.select().from(syncClients).where(eq(syncClients.id, id));
+    return row && row.userId === userId && row.organisationId === organisationId ? row : undefined;
+  }
+
+  /** The highest version of each record handed to the client, by record id (absent: never handed). */
+  async givenVersions(clientId: string, recordIds: string[], tx: DbExecutor): Promise<Map<string, number>> {
+    if (!recordIds.length) return new Map();
+    const rows = await tx
+      .select({ recordId: syncClientVersions.recordId, version: syncClientVersions.version })
+      .from(syncClientVersions)
+      .where(and(eq(syncClientVersions.clientId, clientId), inArray(syncClientVersions.recordId, recordIds)));
+    return new Map(rows.map((r) => [r.recordId, r.version]));
+  }
+
+  /** Notes the versions handed to the client (one statement; a version never goes down). */
+  async recordGiven(clientId: string, records: { id: string; version: number }[], executor: DbExecutor = this.db): Promise<void> {
+    const latest = new Map<string, number>();
+    for (const r of records) latest.set(r.id, Math.max(r.version, latest.get(r.id) ?? 0));
+    if (!latest.size) return;
+    const json = JSON.stringify([...latest].map(([record_id, version]) => ({ client_id: clientId, record_id, version })));
+    await executor.execute(sql`
+      insert into sync_client_versions (client_id, record_id, version)
+      select client_id, record_id, version from json_populate_recordset(null::sync_client_versions, ${json}::json)
+      order by record_id
+      on conflict (client_id, record_id) do update set version = greatest(sync_client_versions.version, excluded.version)`);
   }
 
   async advanceClient(id: string, lastMutationId: number, tx: DbExecutor): Promise<void> {

@@ -12,6 +12,7 @@ export function toUserProfile(row: ProfileRow): UserProfile {
     windUnits: row.windUnits,
     role: row.role,
     organisation: { id: row.organisationId, name: row.organisationName },
+    version: row.version,
   };
 }
 

@@ -14,6 +14,7 @@ const profileColumns = {
   windUnits: users.windUnits,
   active: users.active,
   sessionVersion: users.sessionVersion,
+  version: users.version,
   role: memberships.role,
   organisationId: organisations.id,
   organisationName: organisations.name,
@@ -39,6 +40,7 @@ export type ProfileRow = {
   windUnits: WindUnits;
   active: boolean;
   sessionVersion: number;
+  version: number;
   role: Role;
   organisationId: string;
   organisationName: string;

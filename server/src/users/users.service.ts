@@ -7,6 +7,7 @@ import { SessionStateRepository } from '../auth/session-state.repository.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { UserSettingsCommands } from './user-settings-commands.js';
 import { toMember, toUserProfile } from './users.mapper.js';
 import { UsersRepository } from './users.repository.js';
 
@@ -20,6 +21,7 @@ export class UsersService {
     private readonly users: UsersRepository,
     private readonly sessionStates: SessionStateRepository,
     private readonly sessionCache: SessionStateCache,
+    private readonly settingsCommands: UserSettingsCommands,
   ) {}
 
   async me(caller: AuthUser): Promise<UserProfile> {
@@ -28,24 +30,12 @@ export class UsersService {
     return toUserProfile(row);
   }
 
+  /** Through the one settings command (user-settings-commands.ts), as a phone's push is. */
   async updateMe(caller: AuthUser, patch: UserProfileUpdate): Promise<UserProfile> {
     return this.db.transaction(async (tx) => {
-      const before = await this.users.findProfile(caller.userId, caller.organisationId, tx);
-      if (!before) throw AppError.notFound('User');
-      await this.users.updateUser(caller.userId, patch, tx);
-      const after = (await this.users.findProfile(caller.userId, caller.organisationId, tx))!;
-      await this.users.insertAudit(
-        {
-          organisationId: caller.organisationId,
-          actorId: caller.userId,
-          entityType: 'user',
-          entityId: caller.userId,
-          action: 'profile-updated',
-          before: { name: before.name, position: before.position, units: before.units, windUnits: before.windUnits },
-          after: { name: after.name, position: after.position, units: after.units, windUnits: after.windUnits },
-        },
-        tx,
-      );
+      await this.settingsCommands.edit(tx, { user: caller, clientId: null, mutationId: null }, caller.userId, patch);
+      const after = await this.users.findProfile(caller.userId, caller.organisationId, tx);
+      if (!after) throw AppError.notFound('User');
       return toUserProfile(after);
     });
   }

@@ -3,8 +3,12 @@ import {
   backoffMs,
   batchIsConsecutive,
   compareCursors,
+  bothTexts,
+  CONTROL_CHECK_MERGE_POLICIES,
   decideStateCommand,
+  FINDING_MERGE_POLICIES,
   mergeFieldPatch,
+  SCAFFOLD_MERGE_POLICIES,
   orderOfMutation,
   sameValue,
   settleConflict,
@@ -84,6 +88,61 @@ describe('per-field merge', () => {
 
   it('stamps every field of a new record with its maker', () => {
     expect(stampsOfCreate(['notes', 'lift'], A)).toEqual({ notes: { v: 1, c: A }, lift: { v: 1, c: A } });
+  });
+});
+
+describe('safety first when unseen edits clash', () => {
+  const finding = { exposure: 'public', heightM: 12, notes: 'loose clip', likelihoodAnswers: { securing: 'secured', edgeDistance: 'away', activity: 'none', wind: 'calm', footTraffic: 'none' } };
+  const stamps = { exposure: { v: 2, c: A, u: 'user-a', t: '2026-03-01T08:00:00.000Z' }, heightM: { v: 2, c: A }, notes: { v: 2, c: A }, likelihoodAnswers: { v: 2, c: A } };
+  const merge = (patch: Record<string, unknown>, baseVersion = 1) =>
+    mergeFieldPatch({ current: finding, stamps, patch, baseVersion, clientId: B, nextVersion: 3, userId: 'user-b', at: '2026-03-01T09:00:00.000Z', policies: FINDING_MERGE_POLICIES });
+
+  it('keeps the public below when a later unseen edit says hard hats, and keeps the milder value in the conflict with its writer', () => {
+    const result = merge({ exposure: 'hard-hats' });
+    expect(result.changes).toEqual({});
+    expect(result.stamps.exposure).toEqual(stamps.exposure);
+    expect(result.conflicts).toEqual([
+      { field: 'exposure', currentValue: 'public', replacedValue: 'hard-hats', replacedStamp: { v: 3, c: B, u: 'user-b', t: '2026-03-01T09:00:00.000Z' } },
+    ]);
+  });
+
+  it('lets a more restrictive later value stand and keeps the milder one it replaced', () => {
+    const result = mergeFieldPatch({ current: { exposure: 'hard-hats' }, stamps, patch: { exposure: 'public' }, baseVersion: 1, clientId: B, nextVersion: 3, policies: FINDING_MERGE_POLICIES });
+    expect(result.changes).toEqual({ exposure: 'public' });
+    expect(result.conflicts).toEqual([{ field: 'exposure', currentValue: 'public', replacedValue: 'hard-hats', replacedStamp: stamps.exposure }]);
+  });
+
+  it('keeps the higher fall and the answers that make a strike likelier', () => {
+    expect(merge({ heightM: 8 }).changes).toEqual({});
+    expect(merge({ heightM: 20 }).changes).toEqual({ heightM: 20 });
+    const likelier = { ...finding.likelihoodAnswers, securing: 'loose', edgeDistance: 'at-edge', footTraffic: 'frequent' };
+    expect(merge({ likelihoodAnswers: likelier }).changes).toEqual({ likelihoodAnswers: likelier });
+  });
+
+  it('keeps both notes when they clash, the stored one first', () => {
+    const result = merge({ notes: 'clip tied back' });
+    expect(result.changes).toEqual({ notes: 'loose clip\n\nclip tied back' });
+    expect(result.conflicts).toEqual([{ field: 'notes', currentValue: 'loose clip\n\nclip tied back', replacedValue: 'loose clip', replacedStamp: stamps.notes }]);
+  });
+
+  it('writes a seen edit as it is, whatever its policy', () => {
+    expect(merge({ exposure: 'hard-hats', notes: 'new text' }, 2)).toMatchObject({ changes: { exposure: 'hard-hats', notes: 'new text' }, conflicts: [] });
+  });
+
+  it('keeps a text that holds the other as it is', () => {
+    expect(bothTexts('loose clip', 'loose clip, tied back')).toBe('loose clip, tied back');
+    expect(bothTexts('loose clip, tied back', 'tied back')).toBe('loose clip, tied back');
+    expect(bothTexts('', 'new')).toBe('new');
+  });
+
+  it('keeps a closed tag over a limited one, and a failed control over a pass', () => {
+    const tag = mergeFieldPatch({ current: { status: 'closed' }, stamps: { status: { v: 2, c: A } }, patch: { status: 'cleared' }, baseVersion: 1, clientId: B, nextVersion: 3, policies: SCAFFOLD_MERGE_POLICIES });
+    expect(tag.changes).toEqual({});
+    expect(tag.conflicts[0]).toMatchObject({ currentValue: 'closed', replacedValue: 'cleared' });
+    const raised = mergeFieldPatch({ current: { status: 'cleared' }, stamps: { status: { v: 2, c: A } }, patch: { status: 'limited' }, baseVersion: 1, clientId: B, nextVersion: 3, policies: SCAFFOLD_MERGE_POLICIES });
+    expect(raised.changes).toEqual({ status: 'limited' });
+    const check = mergeFieldPatch({ current: { result: 'fail' }, stamps: { result: { v: 2, c: A } }, patch: { result: 'pass' }, baseVersion: 1, clientId: B, nextVersion: 3, policies: CONTROL_CHECK_MERGE_POLICIES });
+    expect(check.changes).toEqual({});
   });
 });
 

@@ -5,10 +5,31 @@
  */
 import type { Role } from '../auth/roles.js';
 import { checkFindingTransition, FINDING_TRANSITIONS, type FindingState, type FindingTransition } from '../findings/finding-state.js';
+import { FINDING_EXPOSURES } from '../findings/finding-estimate.js';
+import { likelihoodFromAnswers, type LikelihoodAnswers } from '../risk/likelihood.js';
+import { moreRestrictiveStatus, SCAFFOLD_STATUS_RESTRICTION, type ScaffoldStatus } from '../scaffolds/scaffold.schema.js';
 
 /** The fields of a finding a phone may patch; `item` is one field (name, mass and shape travel together). */
 export const FINDING_SYNC_FIELDS = ['elevation', 'lift', 'bay', 'heightM', 'item', 'exposure', 'likelihoodAnswers', 'notes'] as const;
 export type FindingSyncField = (typeof FINDING_SYNC_FIELDS)[number];
+
+/** The fields of an inspection a phone may patch while walking (the statutory report drafts among them). */
+export const INSPECTION_SYNC_FIELDS = [
+  'reason',
+  'windSpeedMps',
+  'reportFor',
+  'location',
+  'equipment',
+  'mattersGivingRisk',
+  'actionTaken',
+  'furtherAction',
+  'reporterName',
+  'reporterPosition',
+] as const;
+/** The fields of a control check a phone may set. */
+export const CONTROL_CHECK_SYNC_FIELDS = ['result', 'note'] as const;
+/** The user's own profile and settings a phone may patch. */
+export const USER_SETTINGS_SYNC_FIELDS = ['name', 'position', 'units', 'windUnits'] as const;
 
 /** Who last wrote a field: the record version after that write and the writing client (null: not through sync). */
 export interface FieldStamp {
@@ -75,7 +96,16 @@ export interface FieldMergeInput {
   /** Who writes, and when (ISO): kept on the stamps so a later conflict names the replaced value's writer. */
   userId?: string | null;
   at?: string;
+  /** How a clash on a field is settled until someone settles the conflict; a field without one: the later write. */
+  policies?: Readonly<Record<string, FieldPolicy>>;
 }
+
+/**
+ * How a clash between two unseen edits of one field stands until someone settles it:
+ * - `safer`: the more restrictive value stands (`pick` returns it), whichever arrived last;
+ * - `both-texts`: neither text is lost, the field keeps both.
+ */
+export type FieldPolicy = { kind: 'safer'; pick: (current: unknown, incoming: unknown) => unknown } | { kind: 'both-texts' };
 
 export interface FieldMergeResult {
   /** Fields whose value changes. */
@@ -88,23 +118,104 @@ export interface FieldMergeResult {
  * Per-field merge: a patch changes only the fields it names (so edits of different fields on
  * different devices both survive). On the same field the later arrival wins; when its writer had
  * not seen the value it replaces (the field was written after the writer's base version, by
- * another client), the replaced value is returned as a conflict so nothing is lost. Setting a
+ * another client), the replaced value is returned as a conflict so nothing is lost. Safety first:
+ * a field with a `safer` policy keeps the more restrictive of the two clashing values (the other
+ * waits in the conflict, naming its writer), and a `both-texts` field keeps both texts. Setting a
  * field to the value it already has changes nothing and is never a conflict.
  */
 export function mergeFieldPatch(input: FieldMergeInput): FieldMergeResult {
   const changes: Record<string, unknown> = {};
   const stamps: FieldStamps = { ...input.stamps };
   const conflicts: FieldConflict[] = [];
+  const mine: FieldStamp = { v: input.nextVersion, c: input.clientId, ...(input.userId !== undefined ? { u: input.userId } : {}), ...(input.at ? { t: input.at } : {}) };
   for (const [field, value] of Object.entries(input.patch)) {
     if (value === undefined || sameValue(input.current[field], value)) continue;
     const stamp = input.stamps[field] ?? UNSTAMPED;
+    const before = input.current[field] ?? null;
     const unseen = stamp.v > input.baseVersion && stamp.c !== input.clientId;
-    if (unseen) conflicts.push({ field, currentValue: value, replacedValue: input.current[field] ?? null, replacedStamp: stamp });
-    changes[field] = value;
-    stamps[field] = { v: input.nextVersion, c: input.clientId, ...(input.userId !== undefined ? { u: input.userId } : {}), ...(input.at ? { t: input.at } : {}) };
+    const policy = unseen ? input.policies?.[field] : undefined;
+    if (policy?.kind === 'safer' && sameValue(policy.pick(before, value), before)) {
+      // The stored value is the more restrictive: it stands, and the incoming one waits in the conflict.
+      conflicts.push({ field, currentValue: before, replacedValue: value, replacedStamp: mine });
+      continue;
+    }
+    const written = policy?.kind === 'both-texts' ? bothTexts(before, value) : value;
+    if (unseen) conflicts.push({ field, currentValue: written, replacedValue: before, replacedStamp: stamp });
+    changes[field] = written;
+    stamps[field] = mine;
   }
   return { changes, stamps, conflicts };
 }
+
+/** Two texts written apart: both kept, the stored one first (one that holds the other already is kept as it is). */
+export function bothTexts(current: unknown, incoming: unknown): string {
+  const a = typeof current === 'string' ? current.trim() : '';
+  const b = typeof incoming === 'string' ? incoming.trim() : '';
+  if (!a || b.includes(a)) return b;
+  if (!b || a.includes(b)) return a;
+  return `${a}\n\n${b}`;
+}
+
+const higherIndex = (order: readonly string[]) => (current: unknown, incoming: unknown) =>
+  order.indexOf(String(incoming)) > order.indexOf(String(current)) ? incoming : current;
+
+/** Who could be struck: the public without head protection is the worst case, a closed zone the mildest. */
+export const moreExposed = higherIndex([...FINDING_EXPOSURES].reverse());
+
+/** The greater number stands (a higher fall, a stronger wind). */
+export const greaterNumber = (current: unknown, incoming: unknown) => (Number(incoming) > Number(current) ? incoming : current);
+
+/** The heavier item stands (more energy at the same height). */
+export const heavierItem = (current: unknown, incoming: unknown) => {
+  const mass = (v: unknown) => Number((v as { massKg?: unknown } | null)?.massKg ?? 0);
+  return mass(incoming) > mass(current) ? incoming : current;
+};
+
+/** The answers that make a strike more likely stand. */
+export const likelierAnswers = (current: unknown, incoming: unknown) => {
+  const level = (v: unknown) => {
+    try {
+      return likelihoodFromAnswers(v as LikelihoodAnswers).level;
+    } catch {
+      return 0;
+    }
+  };
+  return level(incoming) > level(current) ? incoming : current;
+};
+
+/** A failed control stands against a pass or "not applicable". */
+export const failedControl = (current: unknown, incoming: unknown) => (current === 'fail' ? current : incoming);
+
+/** A scaffold's tag status: the more restrictive stands (an unknown code counts as closed). */
+export const moreRestrictiveTag = (current: unknown, incoming: unknown) => {
+  const known = (v: unknown): ScaffoldStatus => (typeof v === 'string' && v in SCAFFOLD_STATUS_RESTRICTION ? (v as ScaffoldStatus) : 'closed');
+  const [a, b] = [known(current), known(incoming)];
+  return a !== b && moreRestrictiveStatus(a, b) === b ? incoming : current;
+};
+
+const safer = (pick: (current: unknown, incoming: unknown) => unknown): FieldPolicy => ({ kind: 'safer', pick });
+const BOTH_TEXTS: FieldPolicy = { kind: 'both-texts' };
+
+/** A finding: who is below and the band's inputs keep the safer value; notes keep both texts. */
+export const FINDING_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = {
+  exposure: safer(moreExposed),
+  heightM: safer(greaterNumber),
+  item: safer(heavierItem),
+  likelihoodAnswers: safer(likelierAnswers),
+  notes: BOTH_TEXTS,
+};
+
+/** An inspection: the stronger wind stands (it carries items further); the report texts keep both. */
+export const INSPECTION_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = {
+  windSpeedMps: safer(greaterNumber),
+  mattersGivingRisk: BOTH_TEXTS,
+  actionTaken: BOTH_TEXTS,
+  furtherAction: BOTH_TEXTS,
+};
+
+export const CONTROL_CHECK_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = { result: safer(failedControl), note: BOTH_TEXTS };
+
+export const SCAFFOLD_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = { status: safer(moreRestrictiveTag) };
 
 /** Stamps for a record made by `clientId`: every given field written at version 1. */
 export function stampsOfCreate(fields: readonly string[], clientId: string | null, userId?: string, at?: string): FieldStamps {

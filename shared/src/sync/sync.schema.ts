@@ -4,10 +4,10 @@
  * the phone parses answers with them.
  */
 import { z } from 'zod';
-import { DateTimeSchema, IdSchema } from '../common/fields.schema.js';
+import { DateTimeSchema, IdSchema, NoteSchema } from '../common/fields.schema.js';
 import { CatalogueItemSchema } from '../catalogue/catalogue-item.schema.js';
 import { FindingSchema, FixSchema, VerificationSchema } from '../findings/finding.schema.js';
-import { ControlCheckSchema } from '../inspections/control-check.schema.js';
+import { ControlCheckSchema, ControlResultSchema, ControlSchema } from '../inspections/control-check.schema.js';
 import { InspectionSchema } from '../inspections/inspection.schema.js';
 import { PhotoSchema } from '../photos/photo.schema.js';
 import { ScaffoldSchema } from '../scaffolds/scaffold.schema.js';
@@ -19,16 +19,22 @@ export const SYNC_PUSH_MAX = 1000;
 /** Most changes one pull page holds. */
 export const SYNC_PULL_MAX = 1000;
 
-export const SYNC_ENTITIES = ['finding'] as const;
+/** The records a phone changes through push: findings, inspections, their control checks, and the user's own settings. */
+export const SYNC_ENTITIES = ['finding', 'inspection', 'control-check', 'user'] as const;
 export const SyncEntitySchema = z.enum(SYNC_ENTITIES);
 export type SyncEntity = z.infer<typeof SyncEntitySchema>;
 
-export const SyncActionSchema = z.enum(['create', 'update', 'state', 'assign', 'hand-back']);
+/**
+ * finding: create, update, state, assign, hand-back; inspection: create, update, finish;
+ * control-check: put (the answer to one control, made or changed); user: update (own settings).
+ */
+export const SyncActionSchema = z.enum(['create', 'update', 'state', 'assign', 'hand-back', 'finish', 'put']);
 export type SyncAction = z.infer<typeof SyncActionSchema>;
 
 /**
  * One mutation. The envelope is checked for the whole batch; the payload is checked per mutation by
- * the server (FindingCreateSchema, FindingUpdateSchema, FindingStateChangeSchema), so one invalid
+ * the server with the schema of its command (FindingCreateSchema, InspectionUpdateSchema,
+ * ControlCheckSyncPutSchema, UserProfileUpdateSchema…), so one invalid
  * payload is rejected with its reason instead of blocking every later mutation.
  */
 export const SyncMutationSchema = z.object({
@@ -43,6 +49,15 @@ export const SyncMutationSchema = z.object({
 });
 export type SyncMutation = z.infer<typeof SyncMutationSchema>;
 export type SyncMutationInput = z.input<typeof SyncMutationSchema>;
+
+/** A control check's answer through push: which inspection and control it answers, with the result and note. */
+export const ControlCheckSyncPutSchema = z.object({
+  inspectionId: IdSchema,
+  control: ControlSchema,
+  result: ControlResultSchema.optional(),
+  note: NoteSchema.optional(),
+});
+export type ControlCheckSyncPut = z.infer<typeof ControlCheckSyncPutSchema>;
 
 export const SyncPushSchema = z.object({
   /** The phone's id (one per browser database), made on the phone. */
@@ -130,6 +145,8 @@ export const SyncCursorSchema = z
 
 export const SyncPullQuerySchema = z.object({
   cursor: SyncCursorSchema.optional(),
+  /** The phone's id: the server notes the versions it hands it (a later push's base version is checked against them). */
+  clientId: IdSchema.optional(),
   limit: z.coerce.number().int().min(1).max(SYNC_PULL_MAX).default(500),
 });
 export type SyncPullQuery = z.infer<typeof SyncPullQuerySchema>;

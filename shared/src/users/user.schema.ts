@@ -35,6 +35,8 @@ export const UserProfileSchema = z.object({
   windUnits: z.enum(WIND_UNITS_VALUES),
   role: z.enum(ROLE_VALUES),
   organisation: z.object({ id: IdSchema, name: z.string() }),
+  /** The version of the profile and settings, the base of a phone's edit of them (absent from answers of older servers). */
+  version: z.number().int().optional(),
 });
 export type UserProfile = z.infer<typeof UserProfileSchema>;
 

@@ -9,3 +9,4 @@ export * from './photos.table.js';
 export * from './sync.table.js';
 export * from './digests.table.js';
 export * from './register.table.js';
+export * from './sync-given.table.js';

@@ -1,4 +1,4 @@
-import { boolean, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 
@@ -27,6 +27,10 @@ export const users = pgTable('users', {
    */
   sessionVersion: integer('session_version').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  /** Bumped by every change of the profile or settings, so pushed edits merge per field. */
+  version: integer('version').notNull().default(1),
+  /** Per-field write history of the profile and settings (see sync.table.ts). */
+  syncFields: jsonb('sync_fields').notNull().default({}),
   /** The change feed carries a user's own profile and settings to their phones (read by id). */
   ...syncStampColumns(),
 });

@@ -1,0 +1,81 @@
+/**
+ * THE place where a user's own profile and settings (name, position, display units) change, from
+ * PATCH /users/me or a phone's push: merged field by field, each written field stamped with its
+ * writer, a clash with a value the phone had not seen kept as a conflict, one audit event. Only the
+ * user changes their own settings.
+ */
+import { Injectable } from '@nestjs/common';
+import { type FieldStamps, mergeFieldPatch, UserProfileUpdateSchema } from '@plummet/shared';
+import { AppError, ErrorCode } from '../common/app-error.js';
+import { type CommandActor, conflictReason, parseInput, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
+import type { DbExecutor } from '../db/db.tokens.js';
+import { UserSettingsRepository } from './user-settings.repository.js';
+import { UsersRepository } from './users.repository.js';
+
+export interface SettingsCommandResult {
+  outcome: 'applied' | 'conflict';
+  reason: string | null;
+  conflictIds: string[];
+}
+
+@Injectable()
+export class UserSettingsCommands {
+  constructor(
+    private readonly settings: UserSettingsRepository,
+    private readonly users: UsersRepository,
+  ) {}
+
+  async edit(tx: DbExecutor, actor: CommandActor, userId: string, payload: unknown, baseVersion?: number): Promise<SettingsCommandResult> {
+    const { user } = actor;
+    if (userId !== user.userId) throw new AppError(ErrorCode.Forbidden, 'Only the user changes their own settings');
+    const patch = parseInput(UserProfileUpdateSchema, payload);
+    const current = await this.settings.lock(userId, tx);
+    if (!current) throw AppError.notFound('User');
+    const merge = mergeFieldPatch({
+      current: current as unknown as Record<string, unknown>,
+      stamps: (current.syncFields ?? {}) as FieldStamps,
+      patch,
+      baseVersion: seenVersion(actor, current.version, baseVersion),
+      clientId: actor.clientId,
+      nextVersion: current.version + 1,
+      userId: user.userId,
+      at: (await this.settings.now(tx)).toISOString(),
+    });
+    if (!Object.keys(merge.changes).length && !merge.conflicts.length) return { outcome: 'applied', reason: 'Nothing to change', conflictIds: [] };
+    if (Object.keys(merge.changes).length) await this.settings.update(userId, { ...merge.changes, syncFields: merge.stamps }, tx);
+    const conflicts = await this.settings.insertConflicts(
+      merge.conflicts.map((c) => ({
+        organisationId: user.organisationId,
+        entity: 'user',
+        entityId: userId,
+        field: c.field,
+        currentValue: c.currentValue ?? null,
+        replacedValue: c.replacedValue ?? null,
+        replacedVersion: c.replacedStamp.v,
+        replacedClientId: c.replacedStamp.c,
+        replacedUserId: c.replacedStamp.u ?? null,
+        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
+        winnerClientId: actor.clientId ?? SERVER_CLIENT,
+        winnerUserId: user.userId,
+        mutationId: actor.mutationId ?? 0,
+      })),
+      tx,
+    );
+    const shown = (row: typeof current) => ({ name: row.name, position: row.position, units: row.units, windUnits: row.windUnits });
+    await this.users.insertAudit(
+      {
+        organisationId: user.organisationId,
+        actorId: user.userId,
+        entityType: 'user',
+        entityId: userId,
+        action: 'profile-updated',
+        before: shown(current),
+        after: shown({ ...current, ...(merge.changes as Partial<typeof current>) }),
+      },
+      tx,
+    );
+    return conflicts.length
+      ? { outcome: 'conflict', reason: conflictReason(merge.conflicts), conflictIds: conflicts.map((c) => c.id) }
+      : { outcome: 'applied', reason: null, conflictIds: [] };
+  }
+}
