@@ -46,7 +46,7 @@ export interface BuiltServerOptions {
 export async function startBuiltServer(options: BuiltServerOptions = {}): Promise<RunningServer> {
   const db = options.database ?? (await createTestDatabase());
   const port = await freePort();
-  const env = { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: db.url, ...options.env };
+  const env = { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), ...db.serverEnv, ...options.env };
   if (options.seed ?? !options.database) await runNode([resolve(ROOT, 'server/dist/seed/seed-cli.js')], env);
   let child: ChildProcess | null = null;
   let exit: Promise<number | NodeJS.Signals | null> = Promise.resolve(null);
