@@ -112,7 +112,9 @@ export class UsersRepository {
    */
   async insertUser(values: { email: string; name: string }, ex: DbExecutor = this.db): Promise<string | null> {
     const id = randomUUID();
-    const result = await ex.insert(users).values({ id, ...values }).onConflictDoNothing({ target: users.email });
+    // No conflict target either: naming one makes PostgreSQL check the new row against the read
+    // policy too. The id is fresh, so only the unique e-mail can conflict.
+    const result = await ex.insert(users).values({ id, ...values }).onConflictDoNothing();
     return result.rowCount === 1 ? id : null;
   }
 
