@@ -93,7 +93,8 @@ export class InspectionsService {
       if (!row) {
         // A retry committed between our read and insert.
         const raced = await this.inspections.findAnyOrg(input.id, tx);
-        if (!raced) throw new AppError(ErrorCode.Conflict, 'The inspection id is taken');
+        // Taken by a row this organisation cannot see (row-level security): another organisation's.
+        if (!raced) throw AppError.notFound('Inspection');
         return { inspection: this.retried(raced, input, user), created: false };
       }
       const inspection = toInspection(row);
