@@ -58,7 +58,8 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
     const c = spawn('node', [resolve(ROOT, 'server/dist/main.js')], { cwd: ROOT, env: childEnv, stdio: ['ignore', 'ignore', 'inherit'] });
     child = c;
     exit = new Promise((done) => c.once('exit', (code, signal) => done(signal ?? code)));
-    const deadline = Date.now() + 30_000;
+    // Generous: under load a start (migrations as the owner, grants, the job queue) can take a while.
+    const deadline = Date.now() + 60_000;
     while (Date.now() < deadline) {
       if (ended(c)) throw new Error(`server exited with ${c.signalCode ?? c.exitCode}`);
       try {
@@ -68,7 +69,7 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
       }
       await new Promise((r) => setTimeout(r, 100));
     }
-    throw new Error('server did not become healthy in 30 s');
+    throw new Error('server did not become healthy in 60 s');
   }
 
   async function stop(): Promise<void> {
