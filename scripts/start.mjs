@@ -42,7 +42,12 @@ async function main() {
   if (await pg.init()) say(`created a PostgreSQL cluster in ${pg.dir}`);
   await pg.start();
   await pg.ensureDatabase('plummet');
-  say(`PostgreSQL on 127.0.0.1:${PG_PORT}`);
+  // The server runs as the application role (row-level security binds it); migrations and the
+  // demo seed run as the cluster's owner (PG_APP_USER and PG_APP_PASSWORD name the former).
+  const appUser = process.env.PG_APP_USER ?? 'plummet_app';
+  const appPassword = process.env.PG_APP_PASSWORD ?? '';
+  pg.ensureApplicationRole(appUser, appPassword);
+  say(`PostgreSQL on 127.0.0.1:${PG_PORT} (server as ${appUser}, migrations as ${pg.user})`);
 
   // NODE_ENV is set explicitly: the server treats an unset NODE_ENV as production.
   const nodeEnv = process.env.NODE_ENV ?? 'development';
@@ -69,7 +74,8 @@ async function main() {
     NODE_ENV: nodeEnv,
     HOST: '127.0.0.1',
     PORT: String(PORT),
-    DATABASE_URL: pg.url('plummet'),
+    DATABASE_URL: pg.urlAs(appUser, appPassword, 'plummet'),
+    MIGRATION_DATABASE_URL: pg.url('plummet'),
     ...(production
       ? {}
       : {

@@ -68,12 +68,19 @@ async function main() {
 
   const template = 'plummet_template';
   await pg.ensureDatabase(template);
+  // Tests run the server as the application role (row-level security binds it) and migrate,
+  // seed and inspect as the owner, like a deployment.
+  const appUser = process.env.PG_APP_USER ?? 'plummet_app';
+  const appPassword = process.env.PG_APP_PASSWORD ?? '';
+  pg.ensureApplicationRole(appUser, appPassword);
   const env = {
     ...process.env,
     NODE_ENV: 'test',
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
-    DATABASE_URL: pg.url(template),
+    DATABASE_URL: pg.urlAs(appUser, appPassword, template),
+    MIGRATION_DATABASE_URL: pg.url(template),
     PG_TEST_BASE_URL: pg.url(''),
+    PG_TEST_APP_BASE_URL: pg.urlAs(appUser, appPassword, ''),
     PG_TEST_TEMPLATE: template,
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(fakes.smtpPort),
@@ -91,6 +98,7 @@ async function main() {
   // Tests make their own databases from the template (server/test/test-db.ts), never use it directly.
   const testEnv = { ...env };
   delete testEnv.DATABASE_URL;
+  delete testEnv.MIGRATION_DATABASE_URL;
   await run('npx', ['vitest', 'run', ...vitestArgs], { cwd: ROOT, env: testEnv, label: 'vitest' });
   say(`all tests passed in ${((Date.now() - started) / 1000).toFixed(0)} s`);
 }

@@ -49,8 +49,27 @@ export class LocalPostgres {
     this.started = false;
   }
 
+  /** URLs of the cluster's owner (the superuser that runs migrations and seeds). */
   get url() {
     return (db) => `postgres://${this.user}@127.0.0.1:${this.port}/${db}`;
+  }
+
+  /** URL of another role of the cluster (e.g. the application role). */
+  urlAs(user, password, db) {
+    const auth = password ? `${encodeURIComponent(user)}:${encodeURIComponent(password)}` : encodeURIComponent(user);
+    return `postgres://${auth}@127.0.0.1:${this.port}/${db}`;
+  }
+
+  /**
+   * The server's own role: may sign in, owns nothing, cannot bypass row-level security. Created
+   * once per cluster; the migrations grant it its rights in each database.
+   */
+  ensureApplicationRole(name, password) {
+    if (!/^[a-z_][a-z0-9_]*$/.test(name)) fail(`PG_APP_USER must be a plain lower-case role name, not ${JSON.stringify(name)}`);
+    if (name === this.user) fail(`PG_APP_USER must differ from the owner role ${this.user}`);
+    const passwordSql = password ? ` PASSWORD '${password.replaceAll("'", "''")}'` : '';
+    const exists = this.psql(`SELECT 1 FROM pg_roles WHERE rolname = '${name}'`) === '1';
+    this.psql(`${exists ? 'ALTER' : 'CREATE'} ROLE "${name}" LOGIN NOSUPERUSER NOBYPASSRLS NOCREATEDB NOCREATEROLE${passwordSql}`);
   }
 
   async init() {

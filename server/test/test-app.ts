@@ -1,9 +1,12 @@
 import { JwtService } from '@nestjs/jwt';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { eq } from 'drizzle-orm';
+import { drizzle as drizzleOver } from 'drizzle-orm/node-postgres';
+import pg from 'pg';
 import { createApp } from '../src/bootstrap.js';
 import { loadConfig } from '../src/config/config.js';
 import { DRIZZLE, type Db } from '../src/db/db.tokens.js';
+import * as schema from '../src/db/schema/index.js';
 import { memberships, users } from '../src/db/schema/index.js';
 import { seedDemo } from '../src/seed/seed-demo.js';
 import { createTestDatabase, type TestDatabase } from './test-db.js';
@@ -11,6 +14,10 @@ import { createTestDatabase, type TestDatabase } from './test-db.js';
 export interface TestApp {
   app: NestExpressApplication;
   db: TestDatabase;
+  /**
+   * The database as its owner, across organisations (row-level security does not apply): for
+   * fixtures and checks. The server itself runs as the application role (`app.get(DRIZZLE)`).
+   */
   drizzle: Db;
   baseUrl: string;
   /** An access token for a seeded user, minted directly (independent of the sign-in route). */
@@ -23,14 +30,16 @@ export async function startTestApp(options: { seed?: boolean; env?: Record<strin
   const db = await createTestDatabase();
   const config = loadConfig({
     ...process.env,
-    DATABASE_URL: db.url,
+    ...db.serverEnv,
     PORT: '0',
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
     ...options.env,
   });
   const app = await createApp(config);
   await app.listen(0, '127.0.0.1');
-  const drizzle = app.get<Db>(DRIZZLE);
+  const ownerPool = new pg.Pool({ connectionString: db.url, max: 4 });
+  ownerPool.on('error', () => undefined);
+  const drizzle: Db = drizzleOver(ownerPool, { schema });
   if (options.seed !== false) await seedDemo(drizzle);
   const address = app.getHttpServer().address() as { port: number };
   const jwt = app.get(JwtService);
@@ -50,6 +59,7 @@ export async function startTestApp(options: { seed?: boolean; env?: Record<strin
     },
     async close() {
       await app.close();
+      await ownerPool.end();
       await db.drop();
     },
   };

@@ -7,7 +7,12 @@ import pg from 'pg';
  */
 export interface TestDatabase {
   name: string;
+  /** The owner's URL (migrations, seeds, fixtures and checks that look across organisations). */
   url: string;
+  /** The application role's URL: what the server connects as (row-level security binds it). */
+  appUrl: string;
+  /** Environment for a server on this database: the application role, the owner for migrations. */
+  serverEnv: { DATABASE_URL: string; MIGRATION_DATABASE_URL: string };
   drop(): Promise<void>;
 }
 
@@ -15,6 +20,10 @@ function baseUrl(): string {
   const base = process.env.PG_TEST_BASE_URL;
   if (!base) throw new Error('PG_TEST_BASE_URL is not set: run the tests with `npm test`.');
   return base.replace(/\/$/, '');
+}
+
+function appBaseUrl(): string {
+  return (process.env.PG_TEST_APP_BASE_URL ?? baseUrl()).replace(/\/$/, '');
 }
 
 async function admin<T>(fn: (client: pg.Client) => Promise<T>): Promise<T> {
@@ -40,9 +49,13 @@ export async function createTestDatabase(): Promise<TestDatabase> {
       await new Promise((r) => setTimeout(r, 50 + Math.random() * 100));
     }
   }
+  const url = `${baseUrl()}/${name}`;
+  const appUrl = `${appBaseUrl()}/${name}`;
   return {
     name,
-    url: `${baseUrl()}/${name}`,
+    url,
+    appUrl,
+    serverEnv: { DATABASE_URL: appUrl, MIGRATION_DATABASE_URL: url },
     drop: () => admin((c) => c.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`)).then(() => undefined),
   };
 }

@@ -208,11 +208,14 @@ async function main() {
   await pg.start();
   await pg.ensureDatabase('plummet_bench');
   say(`throwaway PostgreSQL on 127.0.0.1:${pg.port}`);
+  // Measured as deployed: the server as the application role, under row-level security.
+  pg.ensureApplicationRole('plummet_app');
 
   const env = {
     ...process.env,
     NODE_ENV: 'development',
-    DATABASE_URL: pg.url('plummet_bench'),
+    DATABASE_URL: pg.urlAs('plummet_app', '', 'plummet_bench'),
+    MIGRATION_DATABASE_URL: pg.url('plummet_bench'),
     JWT_SECRET,
     LOG_LEVEL: 'warn',
     HOST: '127.0.0.1',

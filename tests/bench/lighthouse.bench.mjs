@@ -109,7 +109,8 @@ async function main() {
   await pg.init();
   await pg.start();
   await pg.ensureDatabase('plummet_lighthouse');
-  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1', JWT_SECRET };
+  pg.ensureApplicationRole('plummet_app');
+  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: pg.urlAs('plummet_app', '', 'plummet_lighthouse'), MIGRATION_DATABASE_URL: pg.url('plummet_lighthouse'), LOG_LEVEL: 'warn', HOST: '127.0.0.1', JWT_SECRET };
   await migrateAndSeed(env);
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;

@@ -82,7 +82,9 @@ async function main() {
   await postgres.init();
   await postgres.start();
   await postgres.ensureDatabase('plummet_bench');
-  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: postgres.url('plummet_bench'), JWT_SECRET, LOG_LEVEL: 'warn', HOST: '127.0.0.1' };
+  // Measured as deployed: the server as the application role, under row-level security.
+  postgres.ensureApplicationRole('plummet_app');
+  const env = { ...process.env, NODE_ENV: 'development', DATABASE_URL: postgres.urlAs('plummet_app', '', 'plummet_bench'), MIGRATION_DATABASE_URL: postgres.url('plummet_bench'), JWT_SECRET, LOG_LEVEL: 'warn', HOST: '127.0.0.1' };
   await migrateAndSeed(env);
   const port = await freePort();
   server = await startServer({ ...env, NODE_ENV: 'production', ...PRODUCTION_STAND_INS, PORT: String(port), MAX_JSON_BODY: '5mb' }, { stdio: ['ignore', 'ignore', 'inherit'] });

@@ -91,7 +91,8 @@ describe('ending a user’s sessions reaches every server process', () => {
     const manager = await signIn('manager@demo.test');
     const { token, hash } = newOpaqueToken();
     await pool.query(
-      `INSERT INTO email_tokens (kind, user_id, token_hash, expires_at) VALUES ('password-reset', $1, $2, now() + interval '1 hour')`,
+      `INSERT INTO email_tokens (kind, user_id, organisation_id, token_hash, expires_at)
+       SELECT 'password-reset', $1, organisation_id, $2, now() + interval '1 hour' FROM memberships WHERE user_id = $1 LIMIT 1`,
       [manager.user.id, hash],
     );
     const confirm = await call(second, 'POST', '/auth/password-reset/confirm', undefined, { token, password: 'a-new-long-password-1' });

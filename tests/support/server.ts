@@ -46,7 +46,7 @@ export interface BuiltServerOptions {
 export async function startBuiltServer(options: BuiltServerOptions = {}): Promise<RunningServer> {
   const db = options.database ?? (await createTestDatabase());
   const port = await freePort();
-  const env = { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), DATABASE_URL: db.url, ...options.env };
+  const env = { ...process.env, NODE_ENV: 'test', HOST: '127.0.0.1', PORT: String(port), ...db.serverEnv, ...options.env };
   if (options.seed ?? !options.database) await runNode([resolve(ROOT, 'server/dist/seed/seed-cli.js')], env);
   let child: ChildProcess | null = null;
   let exit: Promise<number | NodeJS.Signals | null> = Promise.resolve(null);
@@ -58,6 +58,7 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
     const c = spawn('node', [resolve(ROOT, 'server/dist/main.js')], { cwd: ROOT, env: childEnv, stdio: ['ignore', 'ignore', 'inherit'] });
     child = c;
     exit = new Promise((done) => c.once('exit', (code, signal) => done(signal ?? code)));
+    // Generous: under load a start (migrations as the owner, grants, the job queue) can take a while.
     const deadline = Date.now() + 60_000;
     while (Date.now() < deadline) {
       if (ended(c)) throw new Error(`server exited with ${c.signalCode ?? c.exitCode}`);

@@ -45,7 +45,7 @@ let m: Awaited<ReturnType<typeof loadMobile>>;
 beforeAll(async () => {
   m = await loadMobile();
   t = await startTestApp();
-  second = await createApp(loadConfig({ ...process.env, DATABASE_URL: t.db.url, PORT: '0', LOG_LEVEL: 'warn' }));
+  second = await createApp(loadConfig({ ...process.env, ...t.db.serverEnv, PORT: '0', LOG_LEVEL: 'warn' }));
   await second.listen(0, '127.0.0.1');
   servers = [t.baseUrl, `http://127.0.0.1:${(second.getHttpServer().address() as { port: number }).port}`];
   inspectorToken = await t.tokenFor('inspector@demo.test');

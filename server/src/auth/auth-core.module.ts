@@ -1,8 +1,9 @@
 import { createSecretKey } from 'node:crypto';
 import { Global, Module } from '@nestjs/common';
-import { APP_GUARD } from '@nestjs/core';
+import { APP_GUARD, APP_INTERCEPTOR } from '@nestjs/core';
 import { JwtModule } from '@nestjs/jwt';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { OrganisationScopeInterceptor } from './organisation-scope.interceptor.js';
 import { AuthGuard } from './auth.guard.js';
 import { SessionStateCache } from './session-state.cache.js';
 import { SessionStateRepository } from './session-state.repository.js';
@@ -22,7 +23,7 @@ import { SessionStateRepository } from './session-state.repository.js';
       }),
     }),
   ],
-  providers: [{ provide: APP_GUARD, useClass: AuthGuard }, SessionStateRepository, SessionStateCache],
+  providers: [{ provide: APP_GUARD, useClass: AuthGuard }, { provide: APP_INTERCEPTOR, useClass: OrganisationScopeInterceptor }, SessionStateRepository, SessionStateCache],
   exports: [JwtModule, SessionStateRepository, SessionStateCache],
 })
 export class AuthCoreModule {}

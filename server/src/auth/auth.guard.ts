@@ -5,6 +5,7 @@ import { ROLE_VALUES, type Role } from '@plummet/shared';
 import type { Request } from 'express';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { isOrganisationId } from '../db/organisation-context.js';
 import { ACCEPTS_ENDED_SESSION, IS_PUBLIC, ROLES } from './auth.decorators.js';
 import type { AccessTokenClaims, AuthUser } from './auth.types.js';
 import { SessionStateCache } from './session-state.cache.js';
@@ -40,7 +41,7 @@ export class AuthGuard implements CanActivate {
       claims = late;
       ended = true;
     }
-    if (!claims.sub || !claims.org || !ROLE_VALUES.includes(claims.role)) {
+    if (!claims.sub || !isOrganisationId(claims.org) || !ROLE_VALUES.includes(claims.role)) {
       throw new AppError(ErrorCode.Unauthenticated, 'The access token is not valid');
     }
     // Signatures alone cannot be revoked: the user's session version in PostgreSQL (cached a few seconds) can.

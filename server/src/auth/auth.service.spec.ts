@@ -27,7 +27,11 @@ const account: SignInCandidate = {
 };
 
 function setUp(found: SignInCandidate | null, passwordMatches: boolean) {
-  const users = { findSignInCandidate: vi.fn(async () => found) };
+  const users = {
+    // The organisation sign-in opens for the e-mail (a look-up across organisations), then the account in it.
+    signInOrganisation: vi.fn(async () => found?.organisationId ?? null),
+    findSignInCandidate: vi.fn(async () => found),
+  };
   const passwords = { verify: vi.fn(async () => passwordMatches) };
   const sessions = { start: vi.fn(async () => ({ accessToken: 'a', refreshToken: 'r', user: {} })) };
   const limits = {

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Session, SignIn } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { runInOrganisation } from '../db/organisation-context.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { addressLimitKey } from '../rate-limit/client-address.js';
 import { RateLimitService } from '../rate-limit/rate-limit.service.js';
@@ -46,13 +47,18 @@ export class AuthService {
       throw error;
     }
 
-    const candidate = await this.users.findSignInCandidate(input.email);
+    // No organisation is known yet: a narrow look-up names the one this e-mail signs in to, and
+    // everything after it runs inside that organisation.
+    const organisationId = await this.users.signInOrganisation(input.email);
+    const candidate = organisationId
+      ? await runInOrganisation(organisationId, async () => await this.users.findSignInCandidate(input.email))
+      : null;
     const matches = await this.passwords.verify(candidate?.passwordHash ?? null, input.password);
     if (!candidate || !matches || !candidate.active) throw new AppError(ErrorCode.Unauthenticated, SIGN_IN_REFUSED);
 
     await this.limits.refund(addressKey);
     await this.limits.reset(accountKey);
     const { passwordHash: _hash, ...profile } = candidate;
-    return this.sessions.start(profile);
+    return runInOrganisation(profile.organisationId, () => this.sessions.start(profile));
   }
 }

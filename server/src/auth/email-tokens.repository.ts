@@ -15,6 +15,15 @@ export class EmailTokensRepository {
     await ex.insert(emailTokens).values(values);
   }
 
+  /**
+   * The organisation of an e-mailed link, by its hash, across organisations (the function
+   * auth_email_token_organisation): the link is opened before any organisation is known.
+   */
+  async organisationOf(tokenHash: string, ex: DbExecutor = this.db): Promise<string | null> {
+    const result = await ex.execute<{ organisation: string | null }>(sql`SELECT auth_email_token_organisation(${tokenHash})::text AS organisation`);
+    return result.rows[0]?.organisation ?? null;
+  }
+
   /** An unused, unexpired token of that kind; `forUpdate` locks it so only one request can use it. */
   async findUsable(kind: EmailTokenKind, tokenHash: string, ex: DbExecutor = this.db, forUpdate = false): Promise<EmailTokenRow | null> {
     const query = ex

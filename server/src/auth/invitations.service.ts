@@ -4,6 +4,7 @@ import type { AuthUser } from './auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { runInOrganisation } from '../db/organisation-context.js';
 import { MailService } from '../mail/mail.service.js';
 import { toMember } from '../users/users.mapper.js';
 import { UsersRepository } from '../users/users.repository.js';
@@ -85,6 +86,13 @@ export class InvitationsService {
   /** Spends the invitation, sets the password and opens a session in the inviting organisation. */
   async accept(input: InvitationAccept): Promise<Session> {
     const tokenHash = hashOpaqueToken(input.token);
+    // Before any organisation is known: the link's own names the one to work in.
+    const organisationId = await this.emailTokens.organisationOf(tokenHash);
+    if (!organisationId) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
+    return runInOrganisation(organisationId, () => this.acceptInOrganisation(input, tokenHash));
+  }
+
+  private async acceptInOrganisation(input: InvitationAccept, tokenHash: string): Promise<Session> {
     // Cheap check first: no argon2 work for links that cannot succeed.
     if (!(await this.emailTokens.findUsable('invite', tokenHash))) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
     const passwordHash = await this.passwords.hash(input.password);

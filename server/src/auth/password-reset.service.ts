@@ -3,6 +3,7 @@ import type { PasswordResetConfirm } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
+import { runInOrganisation } from '../db/organisation-context.js';
 import { MailService } from '../mail/mail.service.js';
 import { RateLimitService } from '../rate-limit/rate-limit.service.js';
 import { UsersRepository } from '../users/users.repository.js';
@@ -35,6 +36,13 @@ export class PasswordResetService {
     const windowS = this.config.PASSWORD_RESET_WINDOW_S;
     await this.limits.consume({ key: `password-reset:address:${address}`, limit: this.config.PASSWORD_RESET_ADDRESS_LIMIT, windowS });
     await this.limits.consume({ key: `password-reset:email:${email}`, limit: this.config.PASSWORD_RESET_EMAIL_LIMIT, windowS });
+    // The link belongs to the organisation sign-in opens for this e-mail, and is written inside it.
+    const organisationId = await this.users.signInOrganisation(email);
+    if (!organisationId) return;
+    await runInOrganisation(organisationId, () => this.issueLink(email, organisationId));
+  }
+
+  private async issueLink(email: string, organisationId: string): Promise<void> {
     const account = await this.users.findSignInCandidate(email);
     if (!account || !account.active) return;
     const { token, hash } = newOpaqueToken();
@@ -43,7 +51,7 @@ export class PasswordResetService {
     await this.db.transaction(async (tx) => {
       await this.emailTokens.spendAllForUser(account.userId, tx, 'password-reset');
       await this.emailTokens.insert(
-        { kind: 'password-reset', userId: account.userId, tokenHash: hash, expiresAt: new Date(Date.now() + ttlS * 1000) },
+        { kind: 'password-reset', userId: account.userId, organisationId, tokenHash: hash, expiresAt: new Date(Date.now() + ttlS * 1000) },
         tx,
       );
     });
@@ -57,6 +65,13 @@ export class PasswordResetService {
   /** Sets the new password, spends every outstanding link and ends every session of the user. */
   async confirm(input: PasswordResetConfirm): Promise<void> {
     const tokenHash = hashOpaqueToken(input.token);
+    // Before any organisation is known: the link's own names the one to work in.
+    const organisationId = await this.emailTokens.organisationOf(tokenHash);
+    if (!organisationId) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
+    await runInOrganisation(organisationId, () => this.confirmInOrganisation(input, tokenHash));
+  }
+
+  private async confirmInOrganisation(input: PasswordResetConfirm, tokenHash: string): Promise<void> {
     if (!(await this.emailTokens.findUsable('password-reset', tokenHash))) throw new AppError(ErrorCode.Unauthenticated, LINK_REFUSED);
     const passwordHash = await this.passwords.hash(input.password);
     const userId = await this.db.transaction(async (tx) => {

@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, eq, inArray, isNull } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { refreshTokens } from '../db/schema/index.js';
 
@@ -11,6 +11,15 @@ export class RefreshTokensRepository {
 
   async insert(values: typeof refreshTokens.$inferInsert, ex: DbExecutor = this.db): Promise<void> {
     await ex.insert(refreshTokens).values(values);
+  }
+
+  /**
+   * The organisation of a refresh token, by its hash, across organisations (the function
+   * auth_refresh_token_organisation): a refresh comes before any organisation is known.
+   */
+  async organisationOf(tokenHash: string, ex: DbExecutor = this.db): Promise<string | null> {
+    const result = await ex.execute<{ organisation: string | null }>(sql`SELECT auth_refresh_token_organisation(${tokenHash})::text AS organisation`);
+    return result.rows[0]?.organisation ?? null;
   }
 
   /** Locks the row until the transaction ends, so a second refresh with the same token waits and then sees it used. */

@@ -1,6 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, isNull, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
+import { runInOrganisation } from '../db/organisation-context.js';
 import { memberships, refreshTokens, users } from '../db/schema/index.js';
 
 export interface SessionState {
@@ -15,11 +16,15 @@ export class SessionStateRepository {
 
   /** Null when the user is not (or no longer) a member of the organisation. */
   async find(userId: string, organisationId: string, ex: DbExecutor = this.db): Promise<SessionState | null> {
-    const [row] = await ex
-      .select({ active: users.active, sessionVersion: users.sessionVersion })
-      .from(users)
-      .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)))
-      .where(eq(users.id, userId));
+    // The guard asks before the request's scope exists: the token's (signed) organisation is the one.
+    // (Awaited inside the scope: a Drizzle query runs when awaited, not when built.)
+    const [row] = await runInOrganisation(organisationId, async () => {
+      return await ex
+        .select({ active: users.active, sessionVersion: users.sessionVersion })
+        .from(users)
+        .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)))
+        .where(eq(users.id, userId));
+    });
     return row ?? null;
   }
 

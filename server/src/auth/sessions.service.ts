@@ -4,6 +4,7 @@ import { JwtService } from '@nestjs/jwt';
 import type { Session } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
+import { runInOrganisation } from '../db/organisation-context.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { toUserProfile } from '../users/users.mapper.js';
 import { type ProfileRow, UsersRepository } from '../users/users.repository.js';
@@ -43,6 +44,13 @@ export class SessionsService {
 
   async refresh(refreshToken: string): Promise<Session> {
     const tokenHash = hashOpaqueToken(refreshToken);
+    // Before any organisation is known: the token's own names the one to work in.
+    const organisationId = await this.refreshTokens.organisationOf(tokenHash);
+    if (!organisationId) throw new AppError(ErrorCode.Unauthenticated, 'The session has ended; sign in again');
+    return runInOrganisation(organisationId, () => this.refreshInOrganisation(tokenHash));
+  }
+
+  private async refreshInOrganisation(tokenHash: string): Promise<Session> {
     // The row lock makes concurrent refreshes with one token queue up: the first rotates it, the next sees it used.
     const outcome = await this.db.transaction(async (tx): Promise<RefreshOutcome> => {
       const row = await this.refreshTokens.findByHashForUpdate(tokenHash, tx);
@@ -71,7 +79,10 @@ export class SessionsService {
 
   /** Ends the session the token belongs to (its whole family). Unknown tokens are ignored. */
   async signOut(refreshToken: string): Promise<void> {
-    await this.refreshTokens.revokeFamilyOfToken(hashOpaqueToken(refreshToken));
+    const tokenHash = hashOpaqueToken(refreshToken);
+    const organisationId = await this.refreshTokens.organisationOf(tokenHash);
+    if (!organisationId) return;
+    await runInOrganisation(organisationId, () => this.refreshTokens.revokeFamilyOfToken(tokenHash));
   }
 
   private async addRefreshToken(

@@ -63,9 +63,12 @@ export class CatalogueService {
 
   /** An item of the caller's organisation; built-ins are shared and cannot be changed (403). */
   private async ownItem(user: AuthUser, id: string, tx: DbExecutor): Promise<CatalogueItemRow> {
+    const seen = await this.catalogue.findVisible(user.organisationId, id, tx);
+    if (!seen) throw AppError.notFound('Catalogue item');
+    if (seen.organisationId === null) throw new AppError(ErrorCode.Forbidden, 'Built-in catalogue items cannot be changed; add an item of your own');
+    // Locked only now: row-level security lets no organisation lock (FOR UPDATE) a built-in item.
     const row = await this.catalogue.findVisible(user.organisationId, id, tx, true);
     if (!row) throw AppError.notFound('Catalogue item');
-    if (row.organisationId === null) throw new AppError(ErrorCode.Forbidden, 'Built-in catalogue items cannot be changed; add an item of your own');
     return row;
   }
 }

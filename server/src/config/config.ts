@@ -18,7 +18,16 @@ export const ConfigSchema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
   PUBLIC_URL: z.string().url().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /**
+   * The application role's connection: not the owner of the tables, no BYPASSRLS, so PostgreSQL's
+   * row-level security keeps each organisation's rows apart (docs/operations.md).
+   */
   DATABASE_URL: z.string().startsWith('postgres'),
+  /**
+   * The owner's connection, used only to apply migrations at start and grant the application role
+   * (the role of DATABASE_URL) its rights. Unset: DATABASE_URL migrates too (one role; production refuses).
+   */
+  MIGRATION_DATABASE_URL: z.string().startsWith('postgres').optional(),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
   /** PostgreSQL ends any statement running longer, and any transaction left idle longer (ms). */
   DATABASE_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(100).default(15_000),

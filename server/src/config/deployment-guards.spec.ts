@@ -6,6 +6,7 @@ const DB = { DATABASE_URL: 'postgres://app@127.0.0.1:5432/plummet' };
 const STRONG_SECRET = 'q8Zr1vN3kLp0sX7bT2mW9yF4hJ6dC5aE+uGiOoRn/Q=';
 const PRODUCTION = {
   ...DB,
+  MIGRATION_DATABASE_URL: 'postgres://owner@127.0.0.1:5432/plummet',
   NODE_ENV: 'production',
   HOST: '0.0.0.0',
   JWT_SECRET: STRONG_SECRET,
@@ -45,11 +46,15 @@ describe('the server refuses configurations that would let a stranger sign token
 
   it('demands PUBLIC_URL and real mail and storage settings in production', () => {
     expect(loadConfig(PRODUCTION).NODE_ENV).toBe('production');
-    for (const name of ['PUBLIC_URL', 'SMTP_HOST', 'MAIL_FROM', 'S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
+    for (const name of ['MIGRATION_DATABASE_URL', 'PUBLIC_URL', 'SMTP_HOST', 'MAIL_FROM', 'S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
       const env: Record<string, string | undefined> = { ...PRODUCTION };
       delete env[name];
       expect(() => loadConfig(env), name).toThrow(new RegExp(name));
     }
+  });
+
+  it('refuses one role for migrations and requests in production (row-level security would not bind it)', () => {
+    expect(() => loadConfig({ ...PRODUCTION, MIGRATION_DATABASE_URL: PRODUCTION.DATABASE_URL })).toThrow(/MIGRATION_DATABASE_URL/);
   });
 
   it("refuses the local storage fake's keys in production", () => {

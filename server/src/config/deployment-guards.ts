@@ -46,6 +46,11 @@ export function deploymentProblems(config: AppConfig, env: NodeJS.ProcessEnv): s
   }
 
   if (config.NODE_ENV === 'production') {
+    if (!env.MIGRATION_DATABASE_URL) {
+      problems.push('MIGRATION_DATABASE_URL: required in production (the owner of the tables migrates; DATABASE_URL is the application role)');
+    } else if (databaseRole(env.MIGRATION_DATABASE_URL) === databaseRole(config.DATABASE_URL)) {
+      problems.push('MIGRATION_DATABASE_URL: must name another role than DATABASE_URL (the application role may not own the tables)');
+    }
     if (!env.PUBLIC_URL) problems.push('PUBLIC_URL: required in production (the address written into e-mailed links)');
     for (const name of ['SMTP_HOST', 'MAIL_FROM', 'S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
       if (!env[name]) problems.push(`${name}: required in production (no development default is used)`);
@@ -55,4 +60,13 @@ export function deploymentProblems(config: AppConfig, env: NodeJS.ProcessEnv): s
     }
   }
   return problems;
+}
+
+/** The role a PostgreSQL URL signs in as ('' when it names none and the driver's default applies). */
+export function databaseRole(url: string): string {
+  try {
+    return decodeURIComponent(new URL(url).username);
+  } catch {
+    return '';
+  }
 }

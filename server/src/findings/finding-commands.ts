@@ -73,7 +73,8 @@ export class FindingCommands {
     const row = await store.insertFinding({ ...values, dueAt, syncFields: stampsOfCreate(FINDING_SYNC_FIELDS, actor.clientId, user.userId, now.toISOString()) });
     if (!row) {
       const raced = await store.findingAnyOrg(input.id);
-      if (!raced) throw new AppError(ErrorCode.Conflict, 'The finding id is taken');
+      // Taken by a row this organisation cannot see (row-level security): another organisation's, as before.
+      if (!raced) throw AppError.notFound('Finding');
       return { ...applied(retried(raced, input, user), 'Already recorded: nothing to change'), created: false };
     }
     await store.audit({ entityType: 'finding', entityId: row.id, action: 'create', before: null, after: toFinding(row) });

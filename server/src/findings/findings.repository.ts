@@ -78,6 +78,7 @@ export class FindingsRepository {
       .limit(page.fetch);
   }
 
+  /** By id alone; row-level security shows only the organisation's own (another's shows up as a taken id on insert). */
   async findAnyOrg(id: string, executor: DbExecutor = this.db): Promise<FindingRow | undefined> {
     const [row] = await executor.select().from(findings).where(eq(findings.id, id));
     return row;

@@ -31,14 +31,10 @@ export class HousekeepingService {
   }
 
   async purge(): Promise<PurgeCounts> {
-    const counts: PurgeCounts = {
-      refreshTokens: await this.repository.purgeExpiredRefreshTokens(),
-      emailTokens: await this.repository.purgeStaleEmailTokens(),
-      rateLimits: await this.repository.purgeClosedRateLimits(),
-      // A phone offline longer than this may send a mutation again after its record of being
-      // applied is gone; SYNC_MUTATION_RETENTION_DAYS is therefore the longest allowed offline period.
-      syncMutations: await this.repository.purgeAppliedSyncMutations(this.config.SYNC_MUTATION_RETENTION_DAYS),
-    };
+    // A phone offline longer than SYNC_MUTATION_RETENTION_DAYS may send a mutation again after its
+    // record of being applied is gone: that setting is therefore the longest allowed offline period.
+    const { refreshTokens, emailTokens, syncMutations } = await this.repository.purgeOrganisationRows(this.config.SYNC_MUTATION_RETENTION_DAYS);
+    const counts: PurgeCounts = { refreshTokens, emailTokens, rateLimits: await this.repository.purgeClosedRateLimits(), syncMutations };
     this.logger.log(`purged ${JSON.stringify(counts)}`);
     return counts;
   }

@@ -111,7 +111,8 @@ export class InspectionCommands {
     if (!row) {
       // A retry committed between our read and insert.
       const raced = await this.inspections.findAnyOrg(input.id, tx);
-      if (!raced) throw new AppError(ErrorCode.Conflict, 'The inspection id is taken');
+      // Taken by a row this organisation cannot see (row-level security): another organisation's.
+      if (!raced) throw AppError.notFound('Inspection');
       return { ...done(this.retried(raced, input, user), 'Already recorded: nothing to change'), created: false };
     }
     await this.audit.record(tx, user, { entityType: 'inspection', entityId: row.id, action: 'create', before: null, after: toInspection(row) });

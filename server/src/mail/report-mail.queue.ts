@@ -2,6 +2,7 @@ import { createHash, randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import { APP_CONFIG, type AppConfig } from '../config/config.js';
 import type { DbExecutor } from '../db/db.tokens.js';
+import { requireOrganisation } from '../db/organisation-context.js';
 import { MAIL_QUEUES, retryOptions } from './queue/job-schema.js';
 import { MailJobsService } from './queue/mail-jobs.service.js';
 import { transactionDb } from './queue/transaction-db.js';
@@ -12,12 +13,15 @@ export function jobIdFor(purpose: string, ...keys: string[]): string {
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-5${hex.slice(13, 16)}-a${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
 }
 
+/** Jobs carry their organisation: the worker runs them inside it (row-level security). */
 export interface ReportJobData {
+  organisationId: string;
   inspectionId: string;
   /** Set on a manager's re-send: then only the managers get it again, not the client. */
   resentBy?: string;
 }
 export interface AssignmentJobData {
+  organisationId: string;
   findingId: string;
   assigneeId: string;
 }
@@ -36,7 +40,7 @@ export class ReportMailQueue {
 
   /** Queues the findings list and signed report of a finished inspection, once per inspection. */
   async enqueueInspectionReport(tx: DbExecutor, inspectionId: string): Promise<void> {
-    const data: ReportJobData = { inspectionId };
+    const data: ReportJobData = { organisationId: requireOrganisation(), inspectionId };
     await this.jobs.queue.send(MAIL_QUEUES.report, data, {
       id: jobIdFor('report', inspectionId),
       singletonKey: inspectionId,
@@ -48,14 +52,14 @@ export class ReportMailQueue {
   /** A manager's explicit re-send: a new job each time (the first one is never replaced). */
   async enqueueReportResend(inspectionId: string, managerId: string): Promise<string> {
     const id = randomUUID();
-    const data: ReportJobData = { inspectionId, resentBy: managerId };
+    const data: ReportJobData = { organisationId: requireOrganisation(), inspectionId, resentBy: managerId };
     await this.jobs.queue.send(MAIL_QUEUES.report, data, { id, ...retryOptions(this.config) });
     return id;
   }
 
   /** Queues the foreman's e-mail for a newly assigned finding, once per finding and assignee. */
   async enqueueAssignmentMail(tx: DbExecutor, findingId: string, assigneeId: string): Promise<void> {
-    const data: AssignmentJobData = { findingId, assigneeId };
+    const data: AssignmentJobData = { organisationId: requireOrganisation(), findingId, assigneeId };
     await this.jobs.queue.send(MAIL_QUEUES.assignment, data, {
       id: jobIdFor('assignment', findingId, assigneeId),
       singletonKey: `${findingId}:${assigneeId}`,

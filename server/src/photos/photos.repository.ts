@@ -1,5 +1,5 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, count, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { PhotoOwnerType } from '@plummet/shared';
 import { photoInScope } from '../common/foreman-scope.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
@@ -63,10 +63,19 @@ export class PhotosRepository {
     return row;
   }
 
-  /** Ids are generated on phones, so a clash with another organisation's photo is told apart. */
-  async findByIdInAnyOrganisation(id: string, ex: DbExecutor = this.db): Promise<PhotoRow | undefined> {
-    const [row] = await ex.select().from(photos).where(eq(photos.id, id));
-    return row;
+  /**
+   * Ids are generated on phones, so a clash with another organisation's photo is told apart:
+   * the organisation's own row, `'taken'` when another organisation's photo has the id (asked
+   * through the narrow function photo_id_taken; row-level security hides that row), else undefined.
+   */
+  async findByIdForUpload(organisationId: string, id: string, ex: DbExecutor = this.db): Promise<PhotoRow | 'taken' | undefined> {
+    const [row] = await ex
+      .select()
+      .from(photos)
+      .where(and(eq(photos.id, id), eq(photos.organisationId, organisationId)));
+    if (row) return row;
+    const result = await ex.execute<{ taken: boolean }>(sql`SELECT photo_id_taken(${id}::uuid) AS taken`);
+    return result.rows[0]?.taken ? 'taken' : undefined;
   }
 
   /** The owner's photos; with `foremanId`, only if the owner is in that foreman's scope. */
@@ -99,10 +108,13 @@ export class PhotosRepository {
     return deleted;
   }
 
-  /** Rows of every organisation that point at this content: the object is shared by all of them. */
-  async countByContent(contentHash: string, ex: DbExecutor): Promise<number> {
-    const [row] = await ex.select({ n: count() }).from(photos).where(eq(photos.contentHash, contentHash));
-    return row?.n ?? 0;
+  /**
+   * Whether a row of any organisation still points at this content (the object is shared by all
+   * of them), through the narrow function photo_content_in_use: row-level security hides the rest.
+   */
+  async contentInUse(contentHash: string, ex: DbExecutor): Promise<boolean> {
+    const result = await ex.execute<{ used: boolean }>(sql`SELECT photo_content_in_use(${contentHash}) AS used`);
+    return result.rows[0]?.used === true;
   }
 
   async organisationSettings(organisationId: string): Promise<unknown> {

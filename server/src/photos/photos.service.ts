@@ -44,7 +44,7 @@ export class PhotosService {
       ]);
     }
     await this.attachableOwner(user, fields.ownerType, fields.ownerId);
-    const earlier = await this.photos.findByIdInAnyOrganisation(fields.id);
+    const earlier = await this.photos.findByIdForUpload(user.organisationId, fields.id);
     if (earlier) return { photo: this.replay(user, fields, earlier), created: false };
 
     const mime = await detectImageType(file.buffer);
@@ -92,7 +92,7 @@ export class PhotosService {
     }
     if (inserted) return { photo: toPhoto(inserted), created: true };
     // A concurrent upload of the same id committed first: answer as for a retry.
-    const winner = await this.photos.findByIdInAnyOrganisation(fields.id);
+    const winner = await this.photos.findByIdForUpload(user.organisationId, fields.id);
     if (!winner) throw new AppError(ErrorCode.Conflict, 'The photo was removed while it was being uploaded');
     return { photo: this.replay(user, fields, winner), created: false };
   }
@@ -138,7 +138,7 @@ export class PhotosService {
         { organisationId: user.organisationId, actorId: user.userId, entityId: id, action: 'delete', before: toPhoto(deleted), after: null },
         tx,
       );
-      return (await this.photos.countByContent(deleted.contentHash, tx)) > 0 ? null : deleted;
+      return (await this.photos.contentInUse(deleted.contentHash, tx)) ? null : deleted;
     });
     // After the commit, never inside the transaction: the store may be slow. An upload of the same
     // bytes racing with this removal writes the objects again after its own commit.
@@ -169,8 +169,9 @@ export class PhotosService {
   }
 
   /** The same id again: the first upload if it went to the same owner, else a conflict. */
-  private replay(user: AuthUser, fields: PhotoUpload, earlier: PhotoRow): Photo {
+  private replay(user: AuthUser, fields: PhotoUpload, earlier: PhotoRow | 'taken'): Photo {
     const sameOwner =
+      earlier !== 'taken' &&
       earlier.organisationId === user.organisationId && earlier.ownerType === fields.ownerType && earlier.ownerId === fields.ownerId;
     if (!sameOwner) throw new AppError(ErrorCode.Conflict, 'A photo with this id is already attached to another record');
     return toPhoto(earlier);

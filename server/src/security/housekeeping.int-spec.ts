@@ -57,8 +57,8 @@ describe('sessions and links end, and spent rows are purged', () => {
       { userId: user.id, organisationId: membership.org, familyId: family, tokenHash: `live-${family}`, expiresAt: new Date(Date.now() + hour) },
     ]);
     await t.drizzle.insert(emailTokens).values([
-      { kind: 'password-reset', userId: user.id, tokenHash: `old-link-${family}`, expiresAt: new Date(Date.now() - 48 * hour) },
-      { kind: 'password-reset', userId: user.id, tokenHash: `live-link-${family}`, expiresAt: new Date(Date.now() + hour) },
+      { kind: 'password-reset', userId: user.id, organisationId: membership.org, tokenHash: `old-link-${family}`, expiresAt: new Date(Date.now() - 48 * hour) },
+      { kind: 'password-reset', userId: user.id, organisationId: membership.org, tokenHash: `live-link-${family}`, expiresAt: new Date(Date.now() + hour) },
     ]);
     await t.drizzle.insert(rateLimits).values([
       { key: `old-${family}`, count: 3, resetAt: new Date(Date.now() - 2 * hour) },

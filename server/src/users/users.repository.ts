@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import type { MemberListQuery, Role, WindUnits } from '@plummet/shared';
 import { and, asc, eq, sql } from 'drizzle-orm';
@@ -74,7 +75,17 @@ export class UsersRepository {
     return row ?? null;
   }
 
-  /** The account behind an e-mail, in its first organisation; null when unknown or without membership. */
+  /**
+   * The organisation sign-in opens for an e-mail (the account's first membership), looked up
+   * across organisations before any is known, through a narrow function of the database
+   * (auth_sign_in_organisation). Null when the e-mail is unknown or has no membership.
+   */
+  async signInOrganisation(email: string, ex: DbExecutor = this.db): Promise<string | null> {
+    const result = await ex.execute<{ organisation: string | null }>(sql`SELECT auth_sign_in_organisation(${email})::text AS organisation`);
+    return result.rows[0]?.organisation ?? null;
+  }
+
+  /** The account behind an e-mail, in its first organisation visible here; null when unknown or without membership. */
   async findSignInCandidate(email: string, ex: DbExecutor = this.db): Promise<SignInCandidate | null> {
     const [row] = await ex
       .select({ ...profileColumns, passwordHash: users.passwordHash })
@@ -97,10 +108,16 @@ export class UsersRepository {
     return row ?? null;
   }
 
-  /** Inserts a user; null when the e-mail is already taken (by a concurrent request, too). */
+  /**
+   * Inserts a user; null when the e-mail is already taken (by a concurrent request, too). No
+   * RETURNING: the new account is not visible to the organisation until its membership exists.
+   */
   async insertUser(values: { email: string; name: string }, ex: DbExecutor = this.db): Promise<string | null> {
-    const [row] = await ex.insert(users).values(values).onConflictDoNothing({ target: users.email }).returning({ id: users.id });
-    return row?.id ?? null;
+    const id = randomUUID();
+    // No conflict target either: naming one makes PostgreSQL check the new row against the read
+    // policy too. The id is fresh, so only the unique e-mail can conflict.
+    const result = await ex.insert(users).values({ id, ...values }).onConflictDoNothing();
+    return result.rowCount === 1 ? id : null;
   }
 
   async insertMembership(values: { userId: string; organisationId: string; role: Role }, ex: DbExecutor = this.db): Promise<void> {

@@ -20,6 +20,13 @@ const UNFINISHED = sql`f.state IN ('open', 'made-safe')`;
 export class DigestRepository {
   constructor(@Inject(DRIZZLE) private readonly db: Db) {}
 
+  /** Every organisation's id, across organisations (the function digest_organisation_ids), for the tick. */
+  async organisationIds(ex: DbExecutor = this.db): Promise<string[]> {
+    const result = await ex.execute<{ id: string }>(sql`SELECT id::text AS id FROM digest_organisation_ids() AS id`);
+    return result.rows.map((r) => r.id);
+  }
+
+  /** The organisations in scope (row-level security: the current one). */
   async organisations(ex: DbExecutor = this.db): Promise<{ id: string; name: string; settings: unknown }[]> {
     const result = await ex.execute<{ id: string; name: string; settings: unknown }>(sql`SELECT id::text AS id, name, settings FROM organisations ORDER BY id`);
     return result.rows;

@@ -2,6 +2,7 @@ import { Inject, Injectable, Logger, type OnApplicationBootstrap } from '@nestjs
 import { readOrganisationSettings } from '@plummet/shared';
 import { APP_CONFIG, type AppConfig } from '../../config/config.js';
 import { DRIZZLE, type Db } from '../../db/db.tokens.js';
+import { runInOrganisation } from '../../db/organisation-context.js';
 import { appOrigin } from '../app-links.js';
 import { MailService } from '../mail.service.js';
 import { MAIL_QUEUES, retryOptions } from '../queue/job-schema.js';
@@ -48,25 +49,32 @@ export class DigestService implements OnApplicationBootstrap {
   /** Queues the digests of every organisation whose local digest hour has come today; returns the organisations queued. */
   async queueDue(now: Date): Promise<string[]> {
     const queued: string[] = [];
-    for (const org of await this.repo.organisations()) {
-      const settings = readOrganisationSettings(org.settings);
-      const clock = localClock(now, settings.timeZone);
-      if (clock.hour < settings.digestHour) continue;
-      const claimed = await this.db.transaction(async (tx) => {
-        if (!(await this.repo.claim(org.id, clock.date, tx))) return false;
-        for (const person of await this.repo.recipients(org.id, tx)) {
-          const data: DigestJobData = { organisationId: org.id, userId: person.id, localDate: clock.date, at: now.toISOString() };
-          await this.jobs.queue.send(MAIL_QUEUES.digest, data, {
-            id: jobIdFor('digest', org.id, clock.date, person.id),
-            ...retryOptions(this.config),
-            db: transactionDb(tx),
-          });
-        }
-        return true;
-      });
-      if (claimed) queued.push(org.id);
+    // The tick belongs to no organisation: it visits each in its own scope.
+    for (const organisationId of await this.repo.organisationIds()) {
+      if (await runInOrganisation(organisationId, () => this.queueDueIn(organisationId, now))) queued.push(organisationId);
     }
     return queued;
+  }
+
+  /** Queues the organisation's digests if its local digest hour has come and no run claimed the day. */
+  private async queueDueIn(organisationId: string, now: Date): Promise<boolean> {
+    const org = (await this.repo.organisations()).find((o) => o.id === organisationId);
+    if (!org) return false;
+    const settings = readOrganisationSettings(org.settings);
+    const clock = localClock(now, settings.timeZone);
+    if (clock.hour < settings.digestHour) return false;
+    return this.db.transaction(async (tx) => {
+      if (!(await this.repo.claim(org.id, clock.date, tx))) return false;
+      for (const person of await this.repo.recipients(org.id, tx)) {
+        const data: DigestJobData = { organisationId: org.id, userId: person.id, localDate: clock.date, at: now.toISOString() };
+        await this.jobs.queue.send(MAIL_QUEUES.digest, data, {
+          id: jobIdFor('digest', org.id, clock.date, person.id),
+          ...retryOptions(this.config),
+          db: transactionDb(tx),
+        });
+      }
+      return true;
+    });
   }
 
   /** Builds one person's digest; undefined when there is nothing to say. */

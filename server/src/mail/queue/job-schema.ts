@@ -2,6 +2,9 @@ import PgBoss from 'pg-boss';
 import type pg from 'pg';
 import { HOUSEKEEPING_QUEUE } from '../../housekeeping/housekeeping-queue.js';
 
+/** pg-boss's schema (its default): outside row-level security, granted to the application role. */
+export const JOB_SCHEMA = 'pgboss';
+
 /** The queues the mail feature uses; created with the schema so every database copy has them. */
 export const MAIL_QUEUES = {
   report: 'mail-inspection-report',

@@ -1,6 +1,7 @@
 import { Inject, Injectable, Logger, type OnApplicationShutdown, type OnModuleInit } from '@nestjs/common';
 import PgBoss from 'pg-boss';
 import { APP_CONFIG, type AppConfig } from '../../config/config.js';
+import { isOrganisationId, runInOrganisation } from '../../db/organisation-context.js';
 import { type JobQueueName, MAIL_QUEUES } from './job-schema.js';
 
 export type MailJobHandler = (data: Record<string, unknown>) => Promise<void>;
@@ -40,7 +41,11 @@ export class MailJobsService implements OnModuleInit, OnApplicationShutdown {
     for (const [queue, handler] of this.handlers) {
       await boss.work<Record<string, unknown>>(queue, { pollingIntervalSeconds: this.config.MAIL_POLL_S, batchSize: 1 }, async ([job]) => {
         try {
-          await handler(job.data ?? {});
+          // A job of an organisation runs inside it (row-level security); one of none (the tick,
+          // the purge) sees no organisation's rows and crosses them only through its own functions.
+          const data = job.data ?? {};
+          const organisationId = data.organisationId;
+          await (isOrganisationId(organisationId) ? runInOrganisation(organisationId, () => handler(data)) : handler(data));
         } catch (error) {
           this.logger.warn(`${queue} job ${job.id} failed (pg-boss retries it): ${error instanceof Error ? error.message : String(error)}`);
           throw error;
