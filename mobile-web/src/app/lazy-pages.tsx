@@ -29,6 +29,7 @@ export const FindingsTablePage = page(() => import('../features/manager/pages/Fi
 export const ManagerFindingPage = page(() => import('../features/manager/pages/ManagerFindingPage'), 'ManagerFindingPage');
 export const TrendsPage = page(() => import('../features/manager/pages/TrendsPage'), 'TrendsPage');
 export const ReportsPage = page(() => import('../features/manager/pages/ReportsPage'), 'ReportsPage');
+export const FailedMailPage = page(() => import('../features/manager/pages/FailedMailPage'), 'FailedMailPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
 

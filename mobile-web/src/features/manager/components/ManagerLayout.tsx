@@ -1,17 +1,20 @@
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, IonButtons } from '@ionic/react';
-import type { ReactNode } from 'react';
+import type { Role } from '@plummet/shared';
+import { type ReactNode, useEffect, useRef } from 'react';
 import { NavLink } from 'react-router-dom';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { useOnlineStatus } from '../../../lib/use-online-status';
+import { useSession } from '../../auth/session.queries';
 import './ManagerLayout.css';
 
-const SECTIONS = [
+const SECTIONS: { to: string; label: string; only?: Role }[] = [
   { to: '/overview', label: 'Overview' },
   { to: '/findings', label: 'Findings' },
   { to: '/trends', label: 'Trends' },
   { to: '/reports', label: 'Reports' },
   { to: '/calculator', label: 'Quick estimate' },
   { to: '/settings', label: 'Settings' },
+  { to: '/mail/failed', label: 'E-mails not sent', only: 'admin' },
 ];
 
 interface Props {
@@ -27,6 +30,12 @@ interface Props {
 /** The managers' frame: a side menu beside the page on a desk, a row of sections above it on a phone. */
 export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId }: Props) {
   const online = useOnlineStatus();
+  const role = useSession().session?.user.role;
+  const nav = useRef<HTMLElement>(null);
+  // On a phone the sections scroll sideways: keep the current one in view.
+  useEffect(() => {
+    nav.current?.querySelector('a.is-active')?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+  }, [role]);
   const stale = loadedAt !== undefined && loadedAt > 0 && (!online || refreshFailed);
   return (
     <IonPage data-testid={testId}>
@@ -40,10 +49,10 @@ export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId
       </IonHeader>
       <IonContent>
         <div className="manager-layout">
-          <nav className="manager-layout__nav" aria-label="Manager sections">
+          <nav ref={nav} className="manager-layout__nav" aria-label="Manager sections">
             <span className="manager-layout__brand" aria-hidden="true">Plummet</span>
             <ul>
-              {SECTIONS.map((s) => (
+              {SECTIONS.filter((s) => !s.only || s.only === role).map((s) => (
                 <li key={s.to}>
                   <NavLink to={s.to} className={({ isActive }) => (isActive ? 'is-active' : undefined)}>
                     {s.label}
