@@ -17,6 +17,7 @@ import {
   FixListPage,
   FixPage,
   FindingsTablePage,
+  FailedMailPage,
   ManagerFindingPage,
   OverviewPage,
   ReportsPage,
@@ -60,6 +61,7 @@ export function App() {
               <Route path="/review/:findingId" element={<Lazy page={ManagerFindingPage} />} />
               <Route path="/trends" element={<Lazy page={TrendsPage} />} />
               <Route path="/reports" element={<Lazy page={ReportsPage} />} />
+              <Route path="/mail/failed" element={<Lazy page={FailedMailPage} />} />
               <Route path="/calculator" element={<Lazy page={CalculatorPage} />} />
               <Route path="/settings" element={<Lazy page={SettingsPage} />} />
               <Route path="/sync" element={<Lazy page={SyncStatusPage} />} />

@@ -36,6 +36,7 @@ export const ScaffoldFormPage = page(() => import('../features/setup/pages/Scaff
 export const PeoplePage = page(() => import('../features/setup/pages/PeoplePage'), 'PeoplePage');
 export const OrganisationSettingsPage = page(() => import('../features/setup/pages/OrganisationSettingsPage'), 'OrganisationSettingsPage');
 export const CatalogueSetupPage = page(() => import('../features/setup/pages/CatalogueSetupPage'), 'CatalogueSetupPage');
+export const FailedMailPage = page(() => import('../features/manager/pages/FailedMailPage'), 'FailedMailPage');
 /** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
 export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
 

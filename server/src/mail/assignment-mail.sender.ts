@@ -11,6 +11,11 @@ import { MAIL_QUEUES } from './queue/job-schema.js';
 import { MailJobsService } from './queue/mail-jobs.service.js';
 import type { AssignmentJobData } from './report-mail.queue.js';
 
+/** The subject of a foreman's assignment e-mail (also shown for a failed one). */
+export function assignmentSubject(itemName: string, siteName: string, scaffoldReference: string): string {
+  return `High finding assigned to you: ${headerText(itemName, 60)} · ${headerText(siteName, 60)} · scaffold ${headerText(scaffoldReference, 30)}`;
+}
+
 /** The foreman's e-mail for a newly assigned High finding, with a deep link to it. */
 @Injectable()
 export class AssignmentMailSender {
@@ -33,7 +38,7 @@ export class AssignmentMailSender {
     const units = settings.defaultUnits;
     const where = `${finding.elevation} elevation, lift ${finding.lift}, bay ${finding.bay}, ${length(finding.heightM, units)} up`;
     const content = {
-      subject: `High finding assigned to you: ${headerText(finding.itemName, 60)} · ${headerText(site.name, 60)} · scaffold ${headerText(scaffold.reference, 30)}`,
+      subject: assignmentSubject(finding.itemName, site.name, scaffold.reference),
       paragraphs: [
         `${foreman.name}, a High finding was assigned to you.`,
         `${finding.itemName} on scaffold ${scaffold.reference} at ${site.name}: ${where}. Risk score ${finding.riskScore}.`,

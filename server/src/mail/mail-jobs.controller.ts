@@ -6,8 +6,7 @@ import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError } from '../common/app-error.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';
-import { FailedMailJobsRepository } from './queue/failed-mail-jobs.repository.js';
-import { MailJobsService } from './queue/mail-jobs.service.js';
+import { FailedMailJobsService } from './queue/failed-mail-jobs.service.js';
 
 class MailJobListDto extends createZodDto(MailJobListResponseSchema) {}
 
@@ -17,25 +16,19 @@ class MailJobListDto extends createZodDto(MailJobListResponseSchema) {}
 @Roles('admin')
 @Controller('mail-jobs')
 export class MailJobsController {
-  constructor(
-    private readonly failed: FailedMailJobsRepository,
-    private readonly jobs: MailJobsService,
-  ) {}
+  constructor(private readonly failed: FailedMailJobsService) {}
 
   @Get('failed')
   @ApiOkResponse({ type: MailJobListDto })
   async list(@CurrentUser() user: AuthUser): Promise<MailJobListResponse> {
-    const items = await this.failed.list(user.organisationId);
-    return { items: items.map(({ queue: _queue, ...job }) => job) };
+    return { items: await this.failed.list(user.organisationId) };
   }
 
   /** Puts a failed job back in the queue (pg-boss `retry`); 404 for another organisation's or a job that is not failed. */
   @Post(':id/retry')
   @HttpCode(202)
   async retry(@CurrentUser() user: AuthUser, @Param('id', IdParamPipe) id: string): Promise<{ id: string; state: 'retry' }> {
-    const [job] = await this.failed.list(user.organisationId, id);
-    if (!job) throw AppError.notFound('Failed mail job');
-    await this.jobs.queue.retry(job.queue, job.id);
-    return { id: job.id, state: 'retry' };
+    if (!(await this.failed.retry(user.organisationId, id))) throw AppError.notFound('Failed mail job');
+    return { id, state: 'retry' };
   }
 }

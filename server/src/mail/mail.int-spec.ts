@@ -124,4 +124,22 @@ describe('GET /api/mail keeps organisations apart', () => {
       await mail.close();
     }
   });
+
+  it('files a password-reset e-mail under the account’s organisation, so that organisation’s admin sees it', async () => {
+    const mail = await useMailFake();
+    const t = await startTestApp({ env: mail.env });
+    try {
+      const { addOtherOrgRoles } = await import('../../test/fixtures.js');
+      await addOtherOrgRoles(t.drizzle);
+      expect((await api(t.baseUrl, 'POST', '/auth/password-reset', { body: { email: 'foreman@demo.test' } })).status).toBe(202);
+      const { name } = await waitForMail(mail.mailDir, 'foreman@demo.test', '/reset-password');
+      const own = await api(t.baseUrl, 'GET', '/mail?limit=200', { token: await t.tokenFor('admin@demo.test') });
+      expect(own.body.items.map((m: { name: string }) => m.name)).toContain(name);
+      const other = await api(t.baseUrl, 'GET', '/mail?limit=200', { token: await t.tokenFor('admin@other.test') });
+      expect(other.body.items.map((m: { name: string }) => m.name)).not.toContain(name);
+    } finally {
+      await t.close();
+      await mail.close();
+    }
+  });
 });

@@ -8,6 +8,7 @@ import { MailJobsController } from './mail-jobs.controller.js';
 import { MailController } from './mail.controller.js';
 import { MailService } from './mail.service.js';
 import { FailedMailJobsRepository } from './queue/failed-mail-jobs.repository.js';
+import { FailedMailJobsService } from './queue/failed-mail-jobs.service.js';
 import { MailJobsService } from './queue/mail-jobs.service.js';
 import { ReportMailQueue } from './report-mail.queue.js';
 import { ReportMailSender } from './report-mail.sender.js';
@@ -18,7 +19,7 @@ import { ReportSendController } from './report-send.controller.js';
 @Module({
   imports: [ReportsModule],
   controllers: [MailController, MailJobsController, ReportSendController],
-  providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository, DigestRepository, DigestService],
+  providers: [MailService, MailBoxService, MailJobsService, ReportMailQueue, ReportMailSender, AssignmentMailSender, FailedMailJobsRepository, FailedMailJobsService, DigestRepository, DigestService],
   exports: [MailService, ReportMailQueue, MailJobsService],
 })
 export class MailModule {}

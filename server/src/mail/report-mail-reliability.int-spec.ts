@@ -69,6 +69,9 @@ describe('a report e-mail that keeps failing', () => {
     expect(list.body.items).toHaveLength(1);
     expect(list.body.items[0]).toMatchObject({ kind: 'inspection-report', recordId: inspectionId, attempts: 2 });
     expect(list.body.items[0].error).toBeTruthy();
+    // What the e-mail was and to whom, so the admin can tell which one to retry.
+    expect(list.body.items[0].subject).toMatch(/ · scaffold .+ · 0 High findings$/);
+    expect(list.body.items[0].recipients).toContain('manager@demo.test');
 
     expect((await api(t.baseUrl, 'GET', '/mail-jobs/failed', { token: await t.tokenFor('manager@demo.test') })).status).toBe(403);
     const jobId = list.body.items[0].id as string;

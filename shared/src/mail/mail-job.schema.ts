@@ -6,6 +6,10 @@ export const MailJobSchema = z.object({
   kind: z.enum(['inspection-report', 'finding-assignment', 'daily-digest']),
   /** The inspection or finding the e-mail is about. */
   recordId: z.string().nullable(),
+  /** The e-mail's subject as it would be sent now; null when its record is gone. */
+  subject: z.string().nullable(),
+  /** Who it goes to (To and Cc). */
+  recipients: z.array(z.string()),
   attempts: z.number().int(),
   createdAt: z.string(),
   failedAt: z.string().nullable(),

@@ -3,6 +3,8 @@ import {
   FindingListResponseSchema,
   FindingSchema,
   InspectionSchema,
+  MailJobListResponseSchema,
+  type MailJob,
   type Inspection,
   PeopleSchema,
   OverviewSchema,
@@ -151,4 +153,14 @@ export async function downloadInspectionReport(inspectionId: string, fileName: s
 /** Queues the report e-mail again to the site's managers; answers the queued job's id. */
 export async function sendInspectionReportAgain(inspectionId: string): Promise<string> {
   return ReportSendResponseSchema.parse(await authorisedFetch(`/inspections/${inspectionId}/report/send`, { method: 'POST' })).jobId;
+}
+
+/** The organisation's e-mails that failed after every retry (admins only). */
+export async function fetchFailedMailJobs(): Promise<MailJob[]> {
+  return MailJobListResponseSchema.parse(await authorisedFetch('/mail-jobs/failed')).items;
+}
+
+/** Puts a failed e-mail back in the queue; the server's workers send it in a few seconds. */
+export async function retryMailJob(id: string): Promise<void> {
+  await authorisedFetch(`/mail-jobs/${id}/retry`, { method: 'POST' });
 }

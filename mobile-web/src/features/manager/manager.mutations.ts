@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { assignFinding, reopenFinding, settleConflict } from './manager.api';
+import { assignFinding, reopenFinding, retryMailJob, settleConflict } from './manager.api';
 import { managerKeys } from './manager.queries';
 
 /** After any manager action every manager figure may have moved: refetch them all. */
@@ -32,6 +32,14 @@ export function useSettleConflictMutation() {
   const refresh = useRefreshAll();
   return useMutation({
     mutationFn: (input: { id: string; keep: 'current' | 'replaced' }) => settleConflict(input.id, input.keep),
+    onSettled: refresh,
+  });
+}
+
+export function useRetryMailJobMutation() {
+  const refresh = useRefreshAll();
+  return useMutation({
+    mutationFn: (id: string) => retryMailJob(id),
     onSettled: refresh,
   });
 }

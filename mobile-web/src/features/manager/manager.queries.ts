@@ -2,6 +2,7 @@ import { queryOptions, useInfiniteQuery, useQuery, type InfiniteData } from '@ta
 import type { FindingListItem, ListResponse } from '@plummet/shared';
 import { useSession } from '../auth/session.queries';
 import {
+  fetchFailedMailJobs,
   fetchFinding,
   fetchFindingConflicts,
   fetchFindingHistory,
@@ -32,6 +33,7 @@ export const managerKeys = {
   scaffolds: () => [...managerKeys.all, 'scaffolds'] as const,
   members: () => [...managerKeys.all, 'members'] as const,
   reports: (scaffoldId: string) => [...managerKeys.all, 'reports', scaffoldId] as const,
+  failedMail: () => [...managerKeys.all, 'failed-mail'] as const,
 };
 
 /**
@@ -128,3 +130,9 @@ export function useFindingsTable(filters: FindingFilters) {
     enabled: userId !== '',
   });
 }
+
+/** Failed e-mails change as workers retry: always fetched fresh, never shown from an old copy. */
+export const useFailedMailJobs = () => {
+  const userId = useUserId();
+  return useQuery({ queryKey: managerKeys.failedMail(), queryFn: fetchFailedMailJobs, enabled: userId !== '', refetchInterval: 15_000 });
+};

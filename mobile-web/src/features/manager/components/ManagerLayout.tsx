@@ -1,12 +1,12 @@
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, IonButtons } from '@ionic/react';
-import type { ReactNode } from 'react';
+import { type ReactNode, useEffect, useRef } from 'react';
 import { NavLink } from 'react-router-dom';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { useOnlineStatus } from '../../../lib/use-online-status';
 import { useSession } from '../../auth/session.queries';
 import './ManagerLayout.css';
 
-/** Sections of the managers' frame; the setting-up ones only for the roles that may change them. */
+/** Sections of the managers' frame; the setting-up ones and the unsent e-mails only for admins. */
 const SECTIONS: readonly { to: string; label: string; adminOnly?: boolean }[] = [
   { to: '/overview', label: 'Overview' },
   { to: '/findings', label: 'Findings' },
@@ -18,6 +18,7 @@ const SECTIONS: readonly { to: string; label: string; adminOnly?: boolean }[] = 
   { to: '/setup/catalogue', label: 'Item catalogue', adminOnly: true },
   { to: '/calculator', label: 'Quick estimate' },
   { to: '/settings', label: 'Settings' },
+  { to: '/mail/failed', label: 'E-mails not sent', adminOnly: true },
 ];
 
 interface Props {
@@ -33,7 +34,13 @@ interface Props {
 /** The managers' frame: a side menu beside the page on a desk, a row of sections above it on a phone. */
 export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId }: Props) {
   const online = useOnlineStatus();
-  const isAdmin = useSession().session?.user.role === 'admin';
+  const role = useSession().session?.user.role;
+  const nav = useRef<HTMLElement>(null);
+  // On a phone the sections scroll sideways: keep the current one in view.
+  useEffect(() => {
+    nav.current?.querySelector('a.is-active')?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+  }, [role]);
+  const isAdmin = role === 'admin';
   const stale = loadedAt !== undefined && loadedAt > 0 && (!online || refreshFailed);
   return (
     <IonPage data-testid={testId}>
@@ -47,7 +54,7 @@ export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId
       </IonHeader>
       <IonContent>
         <div className="manager-layout">
-          <nav className="manager-layout__nav" aria-label="Manager sections">
+          <nav ref={nav} className="manager-layout__nav" aria-label="Manager sections">
             <span className="manager-layout__brand" aria-hidden="true">Plummet</span>
             <ul>
               {SECTIONS.filter((s) => isAdmin || !s.adminOnly).map((s) => (
