@@ -113,7 +113,7 @@ describe('two phones edit the same finding offline', () => {
     const card = onScreen(b, 'conflict-card');
     await card.waitFor();
     expect(await card.getByTestId('conflict-field').textContent()).toBe('Notes');
-    expect(await card.innerText()).toMatch(/QL-A · North, lift 6, bay 3/);
+    await expect.poll(() => card.innerText()).toMatch(/QL-A · North, lift 6, bay 3/);
     expect(await card.getByTestId('conflict-current').textContent()).toBe(BOTH_NOTES);
     expect(await card.getByTestId('conflict-replaced').textContent()).toBe(NOTES_A);
     expect(await card.innerText()).toMatch(/written by you/);

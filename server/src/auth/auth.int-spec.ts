@@ -34,6 +34,7 @@ describe('sign-in, refresh and sign-out against the real PostgreSQL', () => {
       windUnits: 'mps',
       role: 'admin',
       organisation: { id: expect.any(String), name: 'Harrow & Span Access Ltd' },
+      version: expect.any(Number),
     });
     const me = await api(t.baseUrl, 'GET', '/users/me', { token: res.body.accessToken });
     expect(me.status).toBe(200);

@@ -58,7 +58,7 @@ export class PasswordResetService {
     const link = publicLink(this.config.PUBLIC_URL, this.config.HOST, this.config.PORT, '/reset-password', token);
     // Not awaited: waiting for SMTP only when the account exists would tell the caller that it does.
     this.mail
-      .send(account.email, passwordResetMail({ link, validMinutes: Math.max(1, Math.round(ttlS / 60)) }), account.organisationId)
+      .send(account.email, passwordResetMail({ link, validMinutes: Math.max(1, Math.round(ttlS / 60)) }), organisationId)
       .catch(() => this.logger.warn('a password-reset e-mail could not be sent'));
   }
 

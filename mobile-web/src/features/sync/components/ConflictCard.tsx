@@ -31,7 +31,13 @@ export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
   const [problem, setProblem] = useState<string>();
 
   const record = finding?.record;
-  const where = record ? `${finding?.scaffold?.reference ?? 'Scaffold'} · ${record.elevation}, lift ${record.lift}, bay ${record.bay}` : 'A finding not on this phone';
+  // Until the phone's database answers, name no place rather than say the finding is missing.
+  const where =
+    finding === undefined
+      ? 'Finding'
+      : record
+        ? `${finding.scaffold?.reference ?? 'Scaffold'} · ${record.elevation}, lift ${record.lift}, bay ${record.bay}`
+        : 'A finding not on this phone';
   const winner = conflict.winnerUserId === userId ? 'you' : 'another user';
   const settle = (body: SyncConflictResolve) => {
     setProblem(undefined);
