@@ -55,7 +55,7 @@ describe('the exclusion zone card', () => {
     const view = describeExclusionZone(setZone(3.048), 'imperial', 'mph');
     // 12 m / 0.3048 m per ft = 39.37 ft; 10 m/s / 0.44704 m/s per mph = 22.37 mph (exact factors, NIST SP 811).
     expect(view.facts).toContainEqual(['Top working height', '39.4 ft']);
-    expect(view.facts).toContainEqual(['Work stops above', '22.4 mph']);
+    expect(view.facts).toContainEqual(['Limiting wind (work stops above it)', '22.4 mph']);
     expect(view.facts).toContainEqual(['Heaviest item handled there', 'Scaffold hammer (1.54 lb)']);
     expect(view.barriered).toBe('10 ft');
   });

@@ -45,7 +45,7 @@ export function describeExclusionZone(zone: ExclusionZone, units: Units, windUni
     facts: [
       ['Top working height', height],
       ['Heaviest item handled there', item],
-      ['Work stops above', wind],
+      ['Limiting wind (work stops above it)', wind],
     ],
     suggestion: s
       ? {
