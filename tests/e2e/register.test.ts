@@ -146,5 +146,18 @@ describe('the register: a trigger closes a scaffold and puts it on the due lists
 
     await card.scrollIntoViewIfNeeded();
     await page.screenshot({ path: artifactPath('exclusion-zone.png'), fullPage: false });
+
+    // Managers see and change it at a desk, from the scaffold's setting-up page.
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const manager = await desk.newPage();
+    await signIn(manager, server.url, 'manager@demo.test');
+    await onScreen(manager, 'overview-page').waitFor({ timeout: 20_000 });
+    await manager.goto(`${server.url}/setup/scaffolds/${scaffoldId}`);
+    const deskCard = onScreen(manager, 'exclusion-zone').first();
+    await deskCard.getByTestId('zone-suggestion').waitFor({ timeout: 20_000 });
+    await deskCard.getByTestId('edit-zone').waitFor();
+    await deskCard.scrollIntoViewIfNeeded();
+    await manager.screenshot({ path: artifactPath('exclusion-zone-1366.png') });
+    await desk.close();
   });
 });

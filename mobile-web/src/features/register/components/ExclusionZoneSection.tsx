@@ -1,15 +1,18 @@
 import { IonButton, IonInput, IonNote } from '@ionic/react';
 import type { ExclusionZone } from '@plummet/shared';
+import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { CautionNote } from '../../../components/CautionNote';
 import { NumberField } from '../../../components/NumberField';
 import { formatForInput, formatQuantity, unitLabel, windForInput, windUnitLabel, type Units, type WindUnits } from '../../../lib/units';
 import { useOnlineStatus } from '../../../lib/use-online-status';
-import { searchCatalogue } from '../../catalogue/catalogue-search';
+import { catalogueRecordOf, searchCatalogue } from '../../catalogue/catalogue-search';
+import { fetchCatalogue } from '../../catalogue/catalogue.api';
 import { useCatalogue } from '../../catalogue/catalogue.queries';
 import { describeExclusionZone, readZoneForm } from '../exclusion-zone-view';
 import { useExclusionZones, useSaveExclusionZoneMutation } from '../exclusion-zone.queries';
 import '../../findings/components/ItemPicker.css';
+import '../../scaffolds/pages/ScaffoldPage.css';
 import './ExclusionZoneSection.css';
 
 interface SectionProps {
@@ -109,7 +112,15 @@ function ZoneCard({ zone, units, windUnits, canEdit, online }: { zone: Exclusion
 }
 
 function ZoneForm({ zone, units, windUnits, online, onDone }: { zone: ExclusionZone; units: Units; windUnits: WindUnits; online: boolean; onDone(): void }) {
-  const catalogue = useCatalogue() ?? [];
+  // The catalogue kept on the phone; at a desk where none is kept, the server's.
+  const kept = useCatalogue();
+  const fetched = useQuery({
+    queryKey: ['catalogue', 'for-exclusion-zone'],
+    queryFn: ({ signal }) => fetchCatalogue(signal),
+    enabled: online && kept !== undefined && kept.length === 0,
+    networkMode: 'online',
+  });
+  const catalogue = useMemo(() => (kept && kept.length > 0 ? kept : (fetched.data ?? []).map(catalogueRecordOf)), [kept, fetched.data]);
   const save = useSaveExclusionZoneMutation(zone.scaffoldId);
   const [itemId, setItemId] = useState<string | null>(zone.heaviestItem?.id ?? null);
   const [query, setQuery] = useState('');
