@@ -8,7 +8,7 @@ import { apiFetch, ApiError } from '../../../api/http';
 import { db } from '../../../local-db/db';
 import { sessionFromResponse } from '../session';
 import { startSession } from '../session.store';
-import './SignInPage.css';
+import '../components/SignInForm.css';
 
 /** The invitation e-mail's link: choose a password, and the new member is signed in. */
 export function AcceptInvitePage() {
