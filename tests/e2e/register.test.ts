@@ -110,4 +110,54 @@ describe('the register: a trigger closes a scaffold and puts it on the due lists
     expect(await onScreen(page, 'record-trigger').evaluate((button) => (button as HTMLElement & { disabled: boolean }).disabled)).toBe(true);
     await phone.context.setOffline(false);
   });
+
+  it('sets the exclusion zone below an elevation: the suggestion shows drift, bounce allowance and the rules of thumb with sources', async () => {
+    const page = phone.context.pages()[0];
+    const { id: scaffoldId } = (await db.query<{ id: string }>("SELECT id::text AS id FROM scaffolds WHERE reference = 'QL-A'")).rows[0];
+    await page.goto(`${server.url}/scaffolds/${scaffoldId}`);
+    await onScreen(page, 'scaffold-page').waitFor();
+    const card = onScreen(page, 'exclusion-zone').first();
+    await card.waitFor({ timeout: 20_000 });
+    expect(await card.getByTestId('zone-missing').innerText()).toMatch(/heaviest item and the limiting wind speed/);
+
+    await card.getByTestId('edit-zone').click();
+    await typeInto(card, 'zone-item-search', 'hammer');
+    await card.getByTestId('zone-item-hit').first().click();
+    await card.getByTestId('zone-chosen-item').waitFor();
+    await typeInto(card, 'zone-wind', '10');
+    await typeInto(card, 'zone-width', '3');
+    await card.getByTestId('save-zone').click();
+
+    const suggestion = card.getByTestId('zone-suggestion');
+    await suggestion.waitFor({ timeout: 15_000 });
+    const text = await card.innerText();
+    expect(text).toMatch(/Wind drift of the item/);
+    expect(text).toContain('(common practice, no source)');
+    expect(text).toContain('IBC 2021 Table 3306.1');
+    expect(text).toContain('UK WAHR 2005 reg. 11');
+    expect(text).toMatch(/work above still drops things/);
+    expect(await card.getByTestId('caution').innerText()).not.toBe('');
+
+    const rows = (await db.query('SELECT limiting_wind_mps, barriered_width_m, heaviest_item_id IS NOT NULL AS has_item FROM exclusion_zones WHERE scaffold_id = $1', [scaffoldId])).rows;
+    expect(rows).toHaveLength(1);
+    expect(rows[0].has_item).toBe(true);
+    expect(rows[0].limiting_wind_mps).toBeGreaterThan(0);
+    expect(rows[0].barriered_width_m).toBeGreaterThan(0);
+
+    await card.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: artifactPath('exclusion-zone.png'), fullPage: false });
+
+    // Managers see and change it at a desk, from the scaffold's setting-up page.
+    const desk = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+    const manager = await desk.newPage();
+    await signIn(manager, server.url, 'manager@demo.test');
+    await onScreen(manager, 'overview-page').waitFor({ timeout: 20_000 });
+    await manager.goto(`${server.url}/setup/scaffolds/${scaffoldId}`);
+    const deskCard = onScreen(manager, 'exclusion-zone').first();
+    await deskCard.getByTestId('zone-suggestion').waitFor({ timeout: 20_000 });
+    await deskCard.getByTestId('edit-zone').waitFor();
+    await deskCard.scrollIntoViewIfNeeded();
+    await manager.screenshot({ path: artifactPath('exclusion-zone-1366.png') });
+    await desk.close();
+  });
 });

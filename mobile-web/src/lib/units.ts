@@ -109,3 +109,9 @@ export function parseWind(text: string, windUnits: WindUnits): number | undefine
   const shown = parseDecimal(text);
   return shown === undefined ? undefined : shown / WIND_SCALES[windUnits].perSi;
 }
+
+/** A wind speed in m/s for an input field in the user's wind unit (no unit, up to 1 decimal), e.g. "20". */
+export function windForInput(mps: number | null | undefined, windUnits: WindUnits): string {
+  if (mps === null || mps === undefined || !Number.isFinite(mps)) return '';
+  return String(Number((mps * WIND_SCALES[windUnits].perSi).toFixed(1)));
+}

@@ -7,7 +7,7 @@ import {
   SessionSchema,
   SignInSchema,
 } from '@plummet/shared';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 
 export class SignInDto extends createZodDto(SignInSchema) {}
 export class SessionDto extends createZodDto(SessionSchema) {}

@@ -7,7 +7,7 @@ import {
   CatalogueListQuerySchema,
   CatalogueListResponseSchema,
 } from '@plummet/shared';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';

@@ -3,7 +3,7 @@ import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swag
 import { FindingExportQuerySchema } from '@plummet/shared';
 import type { Response } from 'express';
 import { once } from 'node:events';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { FindingsExportService } from './findings-export.service.js';

@@ -12,7 +12,7 @@ import {
   FindingUpdateSchema,
 } from '@plummet/shared';
 import type { Response } from 'express';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 import { CurrentUser } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';

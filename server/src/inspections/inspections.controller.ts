@@ -14,7 +14,7 @@ import {
   InspectionUpdateSchema,
 } from '@plummet/shared';
 import type { Response } from 'express';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 import { CurrentUser } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError } from '../common/app-error.js';

@@ -1,5 +1,5 @@
 import { MailListQuerySchema, MailListResponseSchema, MailMessageViewSchema } from '@plummet/shared';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 
 export class MailListQueryDto extends createZodDto(MailListQuerySchema) {}
 export class MailListResponseDto extends createZodDto(MailListResponseSchema) {}

@@ -1,4 +1,4 @@
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 import { PhotoIdParamsSchema, PhotoListQuerySchema, PhotoListSchema, PhotoSchema, PhotoUploadSchema } from '@plummet/shared';
 
 export class PhotoUploadDto extends createZodDto(PhotoUploadSchema) {}

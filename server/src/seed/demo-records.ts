@@ -64,12 +64,82 @@ const REPORT = {
   reporterPosition: 'Scaffold inspector (advanced)',
 };
 
-export const DEMO_INSPECTIONS = [
+/** A short signed report for the routine inspections behind each scaffold's tag. */
+const routine = (reportFor: string, location: string, equipment: string, restriction = '', reporter = { name: 'Aileen Marsh', position: 'Scaffold inspector (advanced)' }) => ({
+  reportFor,
+  location,
+  equipment,
+  mattersGivingRisk: restriction ? `Use limited: ${restriction}` : 'None found at this inspection.',
+  actionTaken: 'None needed.',
+  furtherAction: restriction ? 'Keep the limit signed at the access points until the scaffold is altered.' : 'None.',
+  reporterName: reporter.name,
+  reporterPosition: reporter.position,
+});
+
+/**
+ * `finishedH: 'today'` is the pre-shift check done this morning (local time), whatever the hour of
+ * seeding. Every scaffold tagged cleared or limited has a finished, signed inspection behind its
+ * tag; its last/next inspection follow the site's regime. Left due on purpose, for the due list:
+ * QL-B (7-day, last inspected eight days ago: overdue) and FS-1 (pre-shift, last checked
+ * yesterday: overdue until the check under way this morning is signed).
+ */
+export const DEMO_INSPECTIONS: {
+  id: string;
+  scaffold: string;
+  startedH: number;
+  finishedH: number | 'today' | null;
+  reason: 'scheduled' | 'after-bad-weather' | 'pre-shift';
+  windSpeedMps: number;
+  report: ReturnType<typeof routine> | null;
+  restriction?: string;
+}[] = [
   // Finished two days ago: the statutory record of QL-A.
   { id: demoId(3, 1), scaffold: demoId(2, 1), startedH: -50, finishedH: -48.5, reason: 'scheduled', windSpeedMps: 6.5, report: REPORT },
   // Under way this morning on FS-1.
   { id: demoId(3, 2), scaffold: demoId(2, 3), startedH: -1, finishedH: null, reason: 'after-bad-weather', windSpeedMps: 9, report: null },
-] as const;
+  {
+    id: demoId(3, 3),
+    scaffold: demoId(2, 2),
+    startedH: -193,
+    finishedH: -192,
+    reason: 'scheduled',
+    windSpeedMps: 4,
+    restriction: 'Top two lifts closed: no loading above lift 6',
+    report: routine('Eastmouth Libraries Trust', 'Quayside Library: scaffold QL-B, rear stair-core tower', 'Stair-core tower, 8 lifts × 2 m, 3 bays', 'Top two lifts closed: no loading above lift 6'),
+  },
+  {
+    id: demoId(3, 4),
+    scaffold: demoId(2, 3),
+    startedH: -27,
+    finishedH: -26.5,
+    reason: 'pre-shift',
+    windSpeedMps: 3,
+    report: routine('Larchmont Residential Ltd', 'Fennel Street Block A: scaffold FS-1, Street and Courtyard elevations', 'Perimeter scaffold, 5 lifts × 2 m, 18 bays per elevation, fan over the footpath'),
+  },
+  {
+    id: demoId(3, 5),
+    scaffold: demoId(2, 4),
+    // For 'today' the start is a quarter of an hour before the finish; this figure is not used.
+    startedH: -0.75,
+    finishedH: 'today',
+    reason: 'pre-shift',
+    windSpeedMps: 5,
+    restriction: 'Loading bay rated for one pallet at a time',
+    report: routine('Larchmont Residential Ltd', 'Fennel Street: scaffold FS-2, West loading bay', 'Loading bay, 3 lifts × 2 m, 4 bays', 'Loading bay rated for one pallet at a time'),
+  },
+  {
+    id: demoId(3, 6),
+    scaffold: demoId(2, 5),
+    startedH: -74,
+    finishedH: -73,
+    reason: 'scheduled',
+    windSpeedMps: 2.5,
+    report: routine('Marlow Yard Estates', 'Marlow Yard offices: scaffold MY-1, front elevation', 'Access scaffold, 4 lifts × 2 m, 8 bays', '', {
+      name: 'Ruth Lindqvist',
+      position: 'Project manager (competent person for scaffold inspection)',
+    }),
+  },
+];
 
 export const DEMO_CONTROL_CHECKS: { inspection: string; control: Control; result: ControlResult; note: string }[] = [
   { inspection: demoId(3, 1), control: 'toe-boards', result: 'fail', note: 'Missing at North bay 7, lift 5' },

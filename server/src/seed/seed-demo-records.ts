@@ -31,11 +31,27 @@ export async function seedDemoRecords(tx: DbExecutor, people: DemoPeople): Promi
   }
   const siteOf = new Map<string, (typeof DEMO_SITES)[number]>(DEMO_SITES.map((s) => [s.id, s]));
   const scaffoldOf = new Map<string, (typeof DEMO_SCAFFOLDS)[number]>(DEMO_SCAFFOLDS.map((s) => [s.id, s]));
-  const finished = DEMO_INSPECTIONS.find((i) => i.finishedH !== null)!;
+  const siteOfScaffold = (scaffoldId: string) => siteOf.get(scaffoldOf.get(scaffoldId)!.site)!;
+  // The demo sites keep the default time zone.
+  const timeZone = 'Europe/London';
+  // Local midnight today: the latest start of a day among 23, 24 and 25 hours ago (a day is 23–25 h).
+  const startOfToday = new Date(Math.max(...[23, 24, 25].map((h) => nextInspectionDue(at(-h), 'pre-shift', timeZone).getTime()).filter((t) => t <= now)));
+  /** When each inspection started and finished ('today' = this morning, after local midnight, before now). */
+  const timesOf = (i: (typeof DEMO_INSPECTIONS)[number]): { startedAt: Date; finishedAt: Date | null } => {
+    if (i.finishedH !== 'today') return { startedAt: at(i.startedH), finishedAt: i.finishedH === null ? null : at(i.finishedH) };
+    const finishedAt = new Date(Math.min(now, Math.max(now - 0.5 * HOUR_MS, startOfToday.getTime() + 60_000)));
+    return { startedAt: new Date(finishedAt.getTime() - 0.25 * HOUR_MS), finishedAt };
+  };
+  // The last finished inspection of each scaffold sets its last and next inspection.
+  const lastInspected = new Map<string, Date>();
+  for (const i of DEMO_INSPECTIONS) {
+    const { finishedAt } = timesOf(i);
+    if (finishedAt && !(lastInspected.get(i.scaffold)! > finishedAt)) lastInspected.set(i.scaffold, finishedAt);
+  }
 
   for (const s of DEMO_SCAFFOLDS) {
     const site = siteOf.get(s.site)!;
-    const inspected = finished.scaffold === s.id ? at(finished.finishedH!) : null;
+    const inspected = lastInspected.get(s.id) ?? null;
     await tx
       .insert(scaffolds)
       .values({
@@ -51,27 +67,32 @@ export async function seedDemoRecords(tx: DbExecutor, people: DemoPeople): Promi
         status: s.status,
         foremanId: s.foreman ? foreman : null,
         lastInspectedAt: inspected,
-        nextDueAt: inspected ? nextInspectionDue(inspected, site.regime, 'Europe/London') : null,
+        nextDueAt: inspected ? nextInspectionDue(inspected, site.regime, timeZone) : null,
       })
       .onConflictDoNothing();
   }
 
   for (const i of DEMO_INSPECTIONS) {
-    const finishedAt = i.finishedH === null ? null : at(i.finishedH);
+    const { startedAt, finishedAt } = timesOf(i);
+    const site = siteOfScaffold(i.scaffold);
     await tx
       .insert(inspections)
       .values({
         id: i.id,
-        organisationId: org('harrow-span'),
+        organisationId: org(site.org),
         scaffoldId: i.scaffold,
-        inspectorId: inspector,
-        startedAt: at(i.startedH),
+        inspectorId: site.org === 'harrow-span' ? inspector : user('manager@other.test'),
+        startedAt,
         finishedAt,
         reason: i.reason,
         windSpeedMps: i.windSpeedMps,
         ...(i.report ?? {}),
         signature: i.report ? 'M10 40 C 30 10, 50 10, 60 35 S 90 60, 110 30' : null,
         signedAt: i.report ? finishedAt : null,
+        // The tag given when signing is the scaffold's status now.
+        tagStatus: finishedAt ? scaffoldOf.get(i.scaffold)!.status : null,
+        restriction: i.restriction ?? '',
+        accessTagsChanged: finishedAt ? false : null,
       })
       .onConflictDoNothing();
   }

@@ -1,7 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../../test/test-app.js';
-import { estimateFinding } from '@plummet/shared';
+import { dueState, estimateFinding, nextInspectionDue } from '@plummet/shared';
 import { DEMO_FINDINGS } from './demo-records.js';
 import { seedDemo } from './seed-demo.js';
 
@@ -40,7 +40,31 @@ describe('the demo seed', () => {
       SELECT array_agg(DISTINCT state::text ORDER BY state::text) AS states, array_agg(DISTINCT risk_band::text ORDER BY risk_band::text) AS bands,
         (SELECT count(*)::int FROM inspections WHERE finished_at IS NOT NULL) AS finished
       FROM findings`);
-    expect(mix.rows[0]).toEqual({ states: ['fixed', 'made-safe', 'open', 'verified'], bands: ['High', 'Low', 'Medium'], finished: 1 });
+    expect(mix.rows[0]).toEqual({ states: ['fixed', 'made-safe', 'open', 'verified'], bands: ['High', 'Low', 'Medium'], finished: 5 });
+  });
+
+  it('gives every cleared or limited scaffold a signed inspection behind its tag, and leaves QL-B and FS-1 overdue for the due list', async () => {
+    const rows = await t.drizzle.execute<{ reference: string; status: string; regime: string; last: string | null; next: string | null; finished: string | null; signed: boolean; tag: string | null }>(sql`
+      SELECT sc.reference, sc.status::text AS status, si.regime::text AS regime, sc.last_inspected_at AS last, sc.next_due_at AS next,
+        i.finished_at AS finished, (i.signature IS NOT NULL AND i.signed_at IS NOT NULL) AS signed, i.tag_status::text AS tag
+      FROM scaffolds sc JOIN sites si ON si.id = sc.site_id
+      LEFT JOIN LATERAL (SELECT * FROM inspections WHERE scaffold_id = sc.id AND finished_at IS NOT NULL ORDER BY finished_at DESC LIMIT 1) i ON true
+      ORDER BY sc.reference`);
+    const now = new Date();
+    const states: Record<string, string> = {};
+    for (const r of rows.rows) {
+      if (r.status === 'closed') {
+        expect(r.last, r.reference).toBeNull();
+        continue;
+      }
+      expect(r.finished, r.reference).not.toBeNull();
+      expect(r.signed, r.reference).toBe(true);
+      expect(r.tag, r.reference).toBe(r.status);
+      expect(new Date(r.last!).getTime(), r.reference).toBe(new Date(r.finished!).getTime());
+      expect(new Date(r.next!).getTime(), r.reference).toBe(nextInspectionDue(new Date(r.finished!), r.regime as '7-day', 'Europe/London').getTime());
+      states[r.reference] = dueState({ nextDueAt: r.next, lastInspectedAt: r.last }, null, now, 'Europe/London');
+    }
+    expect(states).toEqual({ 'FS-1': 'overdue', 'FS-2': 'later', 'MY-1': 'later', 'QL-A': 'later', 'QL-B': 'overdue' });
   });
 
   it('computes every finding’s risk with the shared physics', async () => {

@@ -1,5 +1,5 @@
 import { ForemanListResponseSchema, MemberListQuerySchema, MemberListResponseSchema, MemberSchema, MemberUpdateSchema, UserProfileSchema, UserProfileUpdateSchema } from '@plummet/shared';
-import { createZodDto } from 'nestjs-zod';
+import { createZodDto } from '../common/zod-dto.js';
 
 export class UserProfileDto extends createZodDto(UserProfileSchema) {}
 export class UserProfileUpdateDto extends createZodDto(UserProfileUpdateSchema) {}

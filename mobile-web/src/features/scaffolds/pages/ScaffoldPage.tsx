@@ -10,6 +10,7 @@ import { useFindingsOfScaffold } from '../../findings/findings.queries';
 import { StartInspectionSheet } from '../../inspections/components/StartInspectionSheet';
 import { useInspectionInProgress } from '../../inspections/inspections.queries';
 import { useStartInspectionMutation } from '../../inspections/inspections.mutations';
+import { ExclusionZoneSection } from '../../register/components/ExclusionZoneSection';
 import { LastReportSection } from '../../register/components/LastReportSection';
 import { TriggerCard } from '../../register/components/TriggerCard';
 import { ScaffoldElevations } from '../components/ScaffoldElevations';
@@ -55,6 +56,7 @@ export function ScaffoldPage() {
                   </div>
                   <TriggerCard scaffold={scaffold} />
                   <LastReportSection scaffold={scaffold} />
+                  <ExclusionZoneSection scaffoldId={scaffold.id} units={units} windUnits={windUnits} canEdit={session.user.role !== 'foreman'} />
                   <ScaffoldElevations scaffold={scaffold} findings={findings ?? []} units={units} />
                   <CautionNote />
                   <StartInspectionSheet

@@ -3,7 +3,8 @@ import { INSPECTION_REGIMES, LOAD_CLASS_WORDS, LOAD_CLASSES, type Scaffold, type
 import { useMutation } from '@tanstack/react-query';
 import { useEffect, useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { useUnits } from '../../auth/session.queries';
+import { useUnits, useWindUnits } from '../../auth/session.queries';
+import { ExclusionZoneSection } from '../../register/components/ExclusionZoneSection';
 import { ManagerLayout } from '../../manager/components/ManagerLayout';
 import { ScaffoldStatusTag } from '../../scaffolds/components/ScaffoldStatusTag';
 import { ScaffoldPreviewPanel } from '../components/ScaffoldPreviewPanel';
@@ -24,13 +25,18 @@ export function ScaffoldFormPage() {
   const site = useSite(siteId);
   const ready = site.data && (!params.scaffoldId || existing.data);
   const failed = site.isError || existing.isError;
+  const units = useUnits();
+  const windUnits = useWindUnits();
   return (
     <ManagerLayout title={params.scaffoldId ? 'Change the scaffold' : 'Add a scaffold'} testId="scaffold-form-page">
       <p>
         <Link to="/setup/sites">← Sites and scaffolds</Link>
       </p>
       {ready ? (
-        <ScaffoldEditor key={existing.data?.id ?? 'new'} site={site.data!} scaffold={existing.data} />
+        <>
+          <ScaffoldEditor key={existing.data?.id ?? 'new'} site={site.data!} scaffold={existing.data} />
+          {existing.data && <ExclusionZoneSection scaffoldId={existing.data.id} units={units} windUnits={windUnits} canEdit />}
+        </>
       ) : (
         <p>{failed ? 'The scaffold could not be loaded. Check the connection and try again.' : 'Loading…'}</p>
       )}
