@@ -42,7 +42,7 @@ const findings = Array.from({ length: FINDINGS }, (_, i) => {
   };
 });
 const data = {
-  inspection: { id: randomUUID(), startedAt: now, finishedAt: now, signedAt: now, reportFor: 'Sample Client Ltd', location: 'North elevation', equipment: 'Independent scaffold', mattersGivingRisk: 'Many loose items', actionTaken: 'Zone closed', furtherAction: 'Clear all lifts', reporterName: 'A. Inspector', reporterPosition: 'Scaffold inspector', signature: 'M 20 150 C 80 20, 140 20, 200 120 L 560 90', inspectorId: randomUUID() },
+  inspection: { id: randomUUID(), startedAt: now, finishedAt: now, signedAt: now, reportFor: 'Sample Client Ltd', location: 'North elevation', equipment: 'Independent scaffold', mattersGivingRisk: 'Many loose items', actionTaken: 'Zone closed', furtherAction: 'Clear all lifts', reporterName: 'A. Inspector', reporterPosition: 'Scaffold inspector', signature: 'M 20 150 C 80 20, 140 20, 200 120 L 560 90', inspectorId: randomUUID(), reason: 'scheduled', tagStatus: 'limited', restriction: 'Lift 3, bays 1–2: no materials stored', accessTagsChanged: true },
   scaffold: { reference: 'B-1', description: 'Benchmark scaffold', status: 'limited' },
   site: { id: randomUUID(), name: 'Benchmark site', address: '1 Sample Row', clientName: 'Sample Client Ltd', clientAddress: '2 Sample Row', clientContactEmail: null, reportRecipients: [] },
   organisation: { id: randomUUID(), name: 'Sample Org', settings: DEFAULT_ORGANISATION_SETTINGS },
