@@ -15,9 +15,10 @@ export interface MailFake {
  * The SMTP fake `npm test` started (SMTP_PORT + MAIL_DIR in the environment), or one of our own
  * on a random loopback port writing .eml files like scripts/lib/fakes.mjs does.
  */
-export async function useMailFake(): Promise<MailFake> {
+export async function useMailFake(options: { own?: boolean } = {}): Promise<MailFake> {
   const { SMTP_PORT, MAIL_DIR } = process.env;
-  if (SMTP_PORT && MAIL_DIR) {
+  // `own`: a fake of the test's own, when other test files' mail to the same demo address would be ambiguous.
+  if (SMTP_PORT && MAIL_DIR && !options.own) {
     return { env: { SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1', SMTP_PORT, MAIL_DIR }, mailDir: MAIL_DIR, close: async () => {} };
   }
   const mailDir = mkdtempSync(join(tmpdir(), 'plummet-mail-'));
