@@ -2,7 +2,7 @@ import sharp from 'sharp';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { choose, onScreen, readTable, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, readTable, rowOverlaps, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** A camera-sized JPEG with some structure in it, as a phone camera would hand over. */
@@ -60,10 +60,12 @@ async function apiGet(url: string, path: string, token: string): Promise<{ statu
   return { status: res.status, body: await res.json().catch(() => undefined) };
 }
 
-async function screenshotBoth(page: Page, name: string): Promise<void> {
+async function screenshotBoth(page: Page, name: string, rows?: string): Promise<void> {
+  if (rows) await expect.poll(() => rowOverlaps(page, rows)).toEqual([]);
   await page.screenshot({ path: artifactPath(`${name}.png`) });
   await page.setViewportSize({ width: 1366, height: 900 });
   await page.waitForTimeout(300); // let Ionic lay the page out again before the wide picture
+  if (rows) await expect.poll(() => rowOverlaps(page, rows)).toEqual([]);
   await page.screenshot({ path: artifactPath(`${name}-1366.png`) });
   await page.setViewportSize({ width: 390, height: 844 });
 }
@@ -176,7 +178,7 @@ describe('the fix loop across two phones with no signal in between', () => {
     // The seeded podger is four hours past due: overdue in words, on the list and on the home.
     expect(await onScreen(foreman, 'fix-list').innerText()).toMatch(/Overdue by \d+ h/);
     expect(Number((await onScreen(foreman, 'fix-list-overdue').innerText()).match(/^(\d+) overdue/)?.[1])).toBeGreaterThan(0);
-    await screenshotBoth(foreman, 'foreman-fix-list');
+    await screenshotBoth(foreman, 'foreman-fix-list', 'fix-row');
   });
 
   it('the foreman, offline, marks it fixed with a camera photo; back online it syncs', async (context) => {
@@ -272,7 +274,7 @@ describe('the fix loop across two phones with no signal in between', () => {
     await podger.waitFor({ timeout: 30_000 });
     expect(await podger.innerText()).toMatch(/High risk \d+[\s\S]*Overdue by [45] h[\s\S]*North · lift 6 · bay 3/);
     expect(await onScreen(foreman, 'fix-list-overdue').innerText()).toMatch(/^[1-9]\d* overdue$/);
-    if (!serverHasFixLoop) await screenshotBoth(foreman, 'foreman-fix-list');
+    if (!serverHasFixLoop) await screenshotBoth(foreman, 'foreman-fix-list', 'fix-row');
 
     await setOffline(foreman, foremanPhone.context, true);
     await podger.click();

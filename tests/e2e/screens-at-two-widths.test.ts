@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { choose, onScreen, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, rowOverlaps, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** Every visible row's risk badge ends before its item name starts (no overlap at this width). */
@@ -58,11 +58,13 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     await onScreen(page, 'finding-list').waitFor();
     await onScreen(page, 'finding-row').first().waitFor();
     expect(await badgesClearOfText(page)).toBeGreaterThan(0);
+    await expect.poll(() => rowOverlaps(page, 'finding-row')).toEqual([]);
     await page.screenshot({ path: artifactPath('findings-phone.png') });
 
     await page.setViewportSize({ width: 1366, height: 900 });
     await onScreen(page, 'finding-row').first().waitFor();
     expect(await badgesClearOfText(page)).toBeGreaterThan(0);
+    await expect.poll(() => rowOverlaps(page, 'finding-row')).toEqual([]);
     await page.screenshot({ path: artifactPath('findings-wide.png') });
     await page.goto(server.url);
     await onScreen(page, 'site-card').first().waitFor();

@@ -67,3 +67,29 @@ export async function saveFinding(page: Page, whenAsked: 'later' | 'fail' = 'lat
     await page.waitForTimeout(50);
   }
 }
+
+/**
+ * The visible rows of a list are laid out cleanly: no row's content spills out of its box (a fixed
+ * height with wrapped text would), and no row's box overlaps the next. Returns the offences, each
+ * naming the row's first words, so a failing test says which rows collide.
+ */
+export async function rowOverlaps(page: Page, testId: string): Promise<string[]> {
+  return onScreen(page, testId).evaluateAll((rows) => {
+    const offences: string[] = [];
+    const boxes = rows.map((row) => row.getBoundingClientRect()).filter((box) => box.height > 0);
+    rows.forEach((row, i) => {
+      const box = row.getBoundingClientRect();
+      const name = (row.textContent ?? '').trim().slice(0, 40);
+      for (const child of Array.from(row.querySelectorAll('*'))) {
+        const inner = child.getBoundingClientRect();
+        if (inner.height > 0 && inner.bottom > box.bottom + 0.5) {
+          offences.push(`${name}: content ends ${Math.round(inner.bottom - box.bottom)} px below its row`);
+          break;
+        }
+      }
+      const next = boxes[i + 1];
+      if (next && box.bottom > next.top + 0.5 && box.top < next.top) offences.push(`${name}: overlaps the next row`);
+    });
+    return offences;
+  });
+}

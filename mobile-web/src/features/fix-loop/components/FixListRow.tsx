@@ -8,7 +8,7 @@ import type { FixListEntry } from '../fix-loop-rules';
 import { DueText } from './DueText';
 import { FindingThumb } from './FindingThumb';
 
-/** Rows keep this height, px (the virtual list relies on it). */
+/** The usual height of a row, px: the virtual list's first guess; rows with more text are taller. */
 export const FIX_ROW_HEIGHT = 132;
 
 /** Site · scaffold · elevation · lift · bay · height, as far as the phone knows them. */
