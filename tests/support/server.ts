@@ -83,7 +83,14 @@ export async function startBuiltServer(options: BuiltServerOptions = {}): Promis
     });
   }
 
-  await start();
+  try {
+    await start();
+  } catch (error) {
+    // A start that fails or times out leaves nothing behind: the process and the fresh database go.
+    await stop().catch(() => undefined);
+    if (!options.database) await db.drop().catch(() => undefined);
+    throw error;
+  }
   return {
     url,
     port,

@@ -2,7 +2,6 @@ import { Controller, Get, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import { FindingExportQuerySchema } from '@plummet/shared';
 import type { Response } from 'express';
-import { once } from 'node:events';
 import { createZodDto } from '../common/zod-dto.js';
 import { CurrentUser, Roles } from '../auth/auth.decorators.js';
 import type { AuthUser } from '../auth/auth.types.js';
@@ -31,11 +30,21 @@ export class FindingsExportController {
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="findings-${day}.csv"`);
     res.setHeader('Cache-Control', 'no-store');
+    // One 'drain' listener for the whole download: the compression middleware hands 'drain'
+    // listeners to its zlib stream and never removes them, so a listener per wait would pile up.
+    let wake: (() => void) | undefined;
+    const resume = () => {
+      const waiting = wake;
+      wake = undefined;
+      waiting?.();
+    };
+    res.on('drain', resume);
+    res.once('close', resume);
     try {
       if (!first.done) res.write(first.value);
       for await (const chunk of chunks) {
         if (res.destroyed) return;
-        if (!res.write(chunk)) await once(res, 'drain');
+        if (!res.write(chunk)) await new Promise<void>((done) => (wake = done));
       }
       res.end();
     } catch (error) {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { liftHeightsOf, liftPlatformHeightM, topPlatformHeightM } from './lift-heights.js';
-import { liftHeightsMismatch, regimeOfScaffold, ScaffoldCreateSchema } from './scaffold.schema.js';
+import { liftHeightsMismatch, ScaffoldCreateSchema } from './scaffold.schema.js';
 
 const uniform = { lifts: 4, liftHeightM: 2 };
 const differing = { lifts: 3, liftHeightM: 2, liftHeightsM: [2.7, 2, 1.5] };
@@ -40,11 +40,5 @@ describe('lift heights', () => {
     });
     expect(parsed.success).toBe(false);
     expect(parsed.error?.issues.map((i) => i.path.join('.'))).toEqual(['liftHeightsM']);
-  });
-
-  it('inspects a scaffold under its own regime, else its site’s', () => {
-    expect(regimeOfScaffold({ regime: 'pre-shift' }, { regime: '7-day' })).toBe('pre-shift');
-    expect(regimeOfScaffold({ regime: null }, { regime: '7-day' })).toBe('7-day');
-    expect(regimeOfScaffold({}, { regime: 'pre-shift' })).toBe('pre-shift');
   });
 });

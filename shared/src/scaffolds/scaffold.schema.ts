@@ -90,10 +90,6 @@ const scaffoldFields = {
   ...scaffoldHandoverFields,
 };
 
-/** The regime a scaffold is inspected under: its own, else its site's. */
-export const regimeOfScaffold = (scaffold: { regime?: InspectionRegime | null }, site: { regime: InspectionRegime }): InspectionRegime =>
-  scaffold.regime ?? site.regime;
-
 /** The message when a list of lift heights does not match the number of lifts, or null when it fits. */
 export function liftHeightsMismatch(lifts: number, liftHeightsM: readonly number[]): string | null {
   if (liftHeightsM.length === 0 || liftHeightsM.length === lifts) return null;

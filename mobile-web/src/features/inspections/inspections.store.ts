@@ -1,7 +1,7 @@
 import {
   CONTROLS,
   nextInspectionDue,
-  regimeOfScaffold,
+  effectiveRegime,
   type Control,
   type ControlResult,
   type InspectionFinish,
@@ -157,7 +157,7 @@ export async function finishInspection(
     const scaffold = await database.scaffolds.get(inspection.scaffoldId);
     const site: SiteRecord | undefined = scaffold ? await database.sites.get(scaffold.siteId) : undefined;
     if (scaffold) {
-      const nextDueAt = site ? nextInspectionDue(new Date(at), regimeOfScaffold(scaffold, site), site.timeZone).toISOString() : scaffold.nextDueAt;
+      const nextDueAt = site ? nextInspectionDue(new Date(at), effectiveRegime(site.regime, scaffold.regime), site.timeZone).toISOString() : scaffold.nextDueAt;
       // The tag status the inspector recorded shows on the phone at once, as on the server.
       await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt, ...(report.tagStatus ? { status: report.tagStatus } : {}) });
     }
