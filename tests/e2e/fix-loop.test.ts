@@ -2,7 +2,7 @@ import sharp from 'sharp';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { choose, onScreen, readTable, rowOverlaps, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, readTable, rowOverlaps, settled, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** A camera-sized JPEG with some structure in it, as a phone camera would hand over. */
@@ -61,10 +61,12 @@ async function apiGet(url: string, path: string, token: string): Promise<{ statu
 }
 
 async function screenshotBoth(page: Page, name: string, rows?: string): Promise<void> {
+  await settled(page);
   if (rows) await expect.poll(() => rowOverlaps(page, rows)).toEqual([]);
   await page.screenshot({ path: artifactPath(`${name}.png`) });
   await page.setViewportSize({ width: 1366, height: 900 });
   await page.waitForTimeout(300); // let Ionic lay the page out again before the wide picture
+  await settled(page);
   if (rows) await expect.poll(() => rowOverlaps(page, rows)).toEqual([]);
   await page.screenshot({ path: artifactPath(`${name}-1366.png`) });
   await page.setViewportSize({ width: 390, height: 844 });
@@ -238,7 +240,7 @@ describe('the fix loop across two phones with no signal in between', () => {
     const row = onScreen(inspector, 'verify-row').and(inspector.locator(`[data-finding-id="${findingId}"]`));
     await row.waitFor();
     expect(await row.innerText()).toMatch(/Removed from the scaffold: “Spanner taken down/);
-    await screenshotBoth(inspector, 'inspector-to-verify');
+    await screenshotBoth(inspector, 'inspector-to-verify', 'verify-row');
 
     await setOffline(inspector, inspectorPhone.context, true);
     await row.click();

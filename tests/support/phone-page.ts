@@ -93,3 +93,15 @@ export async function rowOverlaps(page: Page, testId: string): Promise<string[]>
     return offences;
   });
 }
+
+/**
+ * Waits until no finite animation runs (Ionic's page transitions use the Web Animations API), so a
+ * screenshot shows one page rather than two crossing. Endless ones (a spinner) are left running.
+ */
+export async function settled(page: Page): Promise<void> {
+  await page.waitForFunction(
+    () => document.getAnimations().every((animation) => animation.playState !== 'running' || animation.effect?.getTiming().iterations === Infinity),
+    undefined,
+    { timeout: 10_000 },
+  );
+}
