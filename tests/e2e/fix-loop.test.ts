@@ -201,6 +201,8 @@ describe('the fix loop across two phones with no signal in between', () => {
 
     await attachPhoto(foreman, 'fix-photos-input', await cameraJpeg({ r: 40, g: 140, b: 90 }));
     await onScreen(foreman, 'fix-photos').getByTestId('photo-thumb').waitFor();
+    // The photo answers the refusal: it goes without another tap.
+    await expect.poll(() => onScreen(foreman, 'fix-refusal').count()).toBe(0);
     await onScreen(foreman, 'fix-action-form').scrollIntoViewIfNeeded();
     await screenshotBoth(foreman, 'foreman-fix');
     await onScreen(foreman, 'fix-submit').click();

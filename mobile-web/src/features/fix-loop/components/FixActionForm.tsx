@@ -63,28 +63,31 @@ export function FixActionForm({ kind, units, photoRequired, busy, refusal, onSub
   const [radiusText, setRadiusText] = useState('');
   const [reason, setReason] = useState<HandBackReason | ''>('');
   const [photos, setPhotos] = useState<PendingPhoto[]>([]);
-  const [problem, setProblem] = useState<string>();
+  // After a refused attempt the message follows the form: it changes or goes as the person mends it.
+  const [tried, setTried] = useState(false);
   const takesControl = kind === 'made-safe' || kind === 'fixed';
   const takesPhoto = kind !== 'hand-back' && kind !== 'reopen';
   const controls = kind === 'made-safe' ? FINDING_CONTROLS.filter((c) => !isAlterationControl(c)) : FINDING_CONTROLS;
 
+  const zoneRadiusM = control === 'close-zone' ? parseQuantity('distance', radiusText, units) : undefined;
+  const missing =
+    kind === 'hand-back' && !reason
+      ? 'Choose why you hand it back.'
+      : takesControl && !control
+        ? 'Choose the control that was applied.'
+        : (kind === 'made-safe' || kind === 'fixed' || kind === 'reopen') && !note.trim()
+          ? kind === 'reopen'
+            ? 'Say why it is reopened: the foreman will read it.'
+            : 'Say what was done.'
+          : control === 'close-zone' && !(zoneRadiusM && zoneRadiusM > 0)
+            ? 'Give the radius of the closed zone.'
+            : takesPhoto && photoRequired && photos.length === 0 && kind !== 'verify'
+              ? 'Take a proof photo first: this is a High finding and your organisation asks for one.'
+              : undefined;
+  const problem = tried ? missing : undefined;
+
   function submit() {
-    const zoneRadiusM = control === 'close-zone' ? parseQuantity('distance', radiusText, units) : undefined;
-    const missing =
-      kind === 'hand-back' && !reason
-        ? 'Choose why you hand it back.'
-        : takesControl && !control
-          ? 'Choose the control that was applied.'
-          : (kind === 'made-safe' || kind === 'fixed' || kind === 'reopen') && !note.trim()
-            ? kind === 'reopen'
-              ? 'Say why it is reopened: the foreman will read it.'
-              : 'Say what was done.'
-            : control === 'close-zone' && !(zoneRadiusM && zoneRadiusM > 0)
-              ? 'Give the radius of the closed zone.'
-              : takesPhoto && photoRequired && photos.length === 0 && kind !== 'verify'
-                ? 'Take a proof photo first: this is a High finding and your organisation asks for one.'
-                : undefined;
-    setProblem(missing);
+    setTried(true);
     if (missing) return;
     onSubmit({ kind, note, control: control || null, zoneRadiusM, reason: reason || undefined, photos });
   }
