@@ -1,5 +1,6 @@
 const dateTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
 const dateOnly = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' });
+const dayOnly = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 
 /** "3 Mar 2026, 09:12" in the phone's time zone; "—" for none. */
 export function formatDateTime(iso: string | null | undefined): string {
@@ -9,6 +10,11 @@ export function formatDateTime(iso: string | null | undefined): string {
 /** "Tue, 3 Mar 2026"; "—" for none. */
 export function formatDate(iso: string | null | undefined): string {
   return iso ? dateOnly.format(new Date(iso)) : '—';
+}
+
+/** "3 Mar 2026", for table cells; "—" for none. */
+export function formatDay(iso: string | null | undefined): string {
+  return iso ? dayOnly.format(new Date(iso)) : '—';
 }
 
 /** True when the instant has passed. */

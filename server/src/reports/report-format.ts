@@ -1,4 +1,4 @@
-import { joulesToFootPounds, LIKELIHOOD_LABELS, type LikelihoodLevel, metresToFeet, SEVERITY_LABELS, type SeverityLevel } from '@plummet/shared';
+import { FINDING_STATE_WORDS, type FindingState, joulesToFootPounds, LIKELIHOOD_LABELS, type LikelihoodLevel, metresToFeet, SEVERITY_LABELS, type SeverityLevel } from '@plummet/shared';
 import type { ReportFinding } from './report-data.js';
 
 export type Units = 'si' | 'imperial';
@@ -39,8 +39,7 @@ export function impactEnergyJ(f: ReportFinding): number {
   return (f.row.estimate as { impactEnergyJ?: number }).impactEnergyJ ?? 0;
 }
 
-const STATE_WORDS: Record<string, string> = { open: 'Open', 'made-safe': 'Made safe (temporary)', fixed: 'Fixed, awaiting verification', verified: 'Verified' };
-export const stateWord = (state: string): string => STATE_WORDS[state] ?? state;
+export const stateWord = (state: string): string => FINDING_STATE_WORDS[state as FindingState] ?? state;
 
 /** One line per field, the same words in the PDF, the HTML and the plain text. */
 export function findingFacts(f: ReportFinding, units: Units, timeZone: string): [string, string][] {

@@ -7,6 +7,22 @@ import type { Role } from '../auth/roles.js';
 export const FINDING_STATES = ['open', 'made-safe', 'fixed', 'verified'] as const;
 export type FindingState = (typeof FINDING_STATES)[number];
 
+/** Plummet's words for each state, in full (a finding's page, the report, the e-mail). */
+export const FINDING_STATE_WORDS: Readonly<Record<FindingState, string>> = {
+  open: 'Open',
+  'made-safe': 'Made safe for now',
+  fixed: 'Fixed, waiting to be verified',
+  verified: 'Verified',
+};
+
+/** The same in a word or two, for rows, table cells and filters. */
+export const FINDING_STATE_SHORT: Readonly<Record<FindingState, string>> = {
+  open: 'Open',
+  'made-safe': 'Made safe',
+  fixed: 'Fixed',
+  verified: 'Verified',
+};
+
 /** What a transition records besides the new state: a fix row, a verification row, a note. */
 export type FindingTransitionKind = 'make-safe' | 'fix' | 'verify' | 'reopen';
 

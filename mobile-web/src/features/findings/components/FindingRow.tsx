@@ -1,17 +1,11 @@
 import { IonIcon } from '@ionic/react';
 import { alertCircleOutline, chevronForward, shieldCheckmarkOutline } from 'ionicons/icons';
+import { FINDING_STATE_SHORT } from '@plummet/shared';
 import { Link } from 'react-router-dom';
 import { RiskBadge } from '../../../components/RiskBadge';
 import type { FindingRecord } from '../../../local-db/records';
 import { formatQuantity, type Units } from '../../../lib/units';
 import './FindingRow.css';
-
-const STATE_WORDS: Record<FindingRecord['state'], string> = {
-  open: 'Open',
-  'made-safe': 'Made safe',
-  fixed: 'Fixed',
-  verified: 'Verified',
-};
 
 /** One finding as a row: risk in words, the item, where, its energy and its state in a word. At least 88 px tall; grows when text wraps. */
 export function FindingRow({ finding, units, showScaffold }: { finding: FindingRecord; units: Units; showScaffold?: string }) {
@@ -29,7 +23,7 @@ export function FindingRow({ finding, units, showScaffold }: { finding: FindingR
         <span className="finding-row__figures">
           {formatQuantity('energy', finding.estimate.impactEnergyJ, units)} · {finding.estimate.severity.label}
           <span className={`finding-row__state finding-row__state--${finding.state}`} data-testid="finding-state">
-            <IonIcon icon={finding.state === 'open' ? alertCircleOutline : shieldCheckmarkOutline} aria-hidden="true" /> {STATE_WORDS[finding.state]}
+            <IonIcon icon={finding.state === 'open' ? alertCircleOutline : shieldCheckmarkOutline} aria-hidden="true" /> {FINDING_STATE_SHORT[finding.state]}
           </span>
         </span>
       </span>

@@ -1,6 +1,6 @@
 import { IonIcon } from '@ionic/react';
 import { callOutline } from 'ionicons/icons';
-import type { Foreman } from '@plummet/shared';
+import { FINDING_STATE_WORDS, type Foreman } from '@plummet/shared';
 import { formatDateTime } from '../../../lib/format-date';
 import { CautionNote } from '../../../components/CautionNote';
 import { RiskBadge } from '../../../components/RiskBadge';
@@ -20,7 +20,6 @@ interface FindingFactsProps {
   units: Units;
 }
 
-const STATE_WORDS: Record<FindingRecord['state'], string> = { open: 'Open', 'made-safe': 'Made safe for now', fixed: 'Fixed, waiting to be verified', verified: 'Verified' };
 
 /** What the finding is, where, how bad, when due, the inspector's note and the estimate (with its caution). */
 export function FindingFacts({ entry, site, assignee, selfId, units }: FindingFactsProps) {
@@ -34,7 +33,7 @@ export function FindingFacts({ entry, site, assignee, selfId, units }: FindingFa
       </p>
       <dl className="data-list" data-testid="finding-facts">
         <dt>State</dt>
-        <dd data-testid="finding-state">{STATE_WORDS[finding.state]}</dd>
+        <dd data-testid="finding-state">{FINDING_STATE_WORDS[finding.state]}</dd>
         {finding.state === 'made-safe' && finding.madeSafeUntil && (
           <>
             <dt>Made safe until</dt>

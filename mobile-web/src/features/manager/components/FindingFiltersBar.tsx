@@ -1,4 +1,4 @@
-import { FINDING_STATES } from '@plummet/shared';
+import { FINDING_STATE_SHORT, FINDING_STATES } from '@plummet/shared';
 import type { FindingFilters } from '../finding-filters';
 import { useMembers, useScaffolds, useSites } from '../manager.queries';
 
@@ -55,7 +55,7 @@ export function FindingFiltersBar({ filters, onChange }: { filters: FindingFilte
           <label key={state} style={{ flexDirection: 'row', alignItems: 'center' }}>
             <input type="checkbox" checked={filters.state?.includes(state) ?? false} data-testid={`filter-state-${state}`}
               onChange={(e) => set({ state: toggle(filters.state, state, e.target.checked) })} />
-            {state}
+            {FINDING_STATE_SHORT[state]}
           </label>
         ))}
       </fieldset>

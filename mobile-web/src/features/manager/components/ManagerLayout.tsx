@@ -5,6 +5,7 @@ import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
 import { useOnlineStatus } from '../../../lib/use-online-status';
 import { useSession } from '../../auth/session.queries';
 import './ManagerLayout.css';
+import { formatDateTime } from '../../../lib/format-date';
 
 /** Sections of the managers' frame; the setting-up ones and the unsent e-mails only for admins. */
 const SECTIONS: readonly { to: string; label: string; adminOnly?: boolean }[] = [
@@ -69,7 +70,7 @@ export function ManagerLayout({ title, children, loadedAt, refreshFailed, testId
           <main className="manager-layout__main">
             {stale && (
               <p className="manager-layout__stale" role="status" data-testid="stale-note">
-                Showing what was loaded at {new Date(loadedAt).toLocaleString()}; it may be out of date until the connection returns.
+                Showing what was loaded at {formatDateTime(new Date(loadedAt).toISOString())}; it may be out of date until the connection returns.
               </p>
             )}
             {children}

@@ -1,5 +1,6 @@
 import { type ColumnDef, createColumnHelper, columnVisibilityFeature, rowSelectionFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
-import type { FindingListItem, Person, Scaffold } from '@plummet/shared';
+import { FINDING_STATE_SHORT, type FindingListItem, type Person, type Scaffold } from '@plummet/shared';
+import { formatDay } from '../../../lib/format-date';
 import { Link } from 'react-router-dom';
 import { formatHeight } from '../manager-units';
 import type { Units } from '../../../lib/units';
@@ -13,7 +14,6 @@ export interface ColumnContext {
   members: Map<string, Person>;
 }
 
-const date = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
 
 /** Column ids that the server can sort by are named as the list route's sort keys. */
 export function findingsColumns(ctx: ColumnContext): ColumnDef<typeof findingsTableFeatures, FindingListItem>[] {
@@ -41,13 +41,13 @@ export function findingsColumns(ctx: ColumnContext): ColumnDef<typeof findingsTa
       ),
     }),
     column.accessor('riskScore', { id: 'riskScore', header: 'Risk', cell: (c) => `${c.row.original.riskBand} ${c.getValue()}` }),
-    column.accessor('state', { id: 'state', header: 'State', enableSorting: false }),
+    column.accessor('state', { id: 'state', header: 'State', enableSorting: false, cell: (c) => FINDING_STATE_SHORT[c.getValue()] }),
     column.accessor((f) => ctx.scaffolds.get(f.scaffoldId)?.reference ?? '', { id: 'scaffold', header: 'Scaffold', enableSorting: false }),
     column.accessor((f) => `${f.elevation}, lift ${f.lift}, bay ${f.bay}`, { id: 'position', header: 'Position', enableSorting: false }),
     column.accessor('heightM', { id: 'heightM', header: 'Height', cell: (c) => formatHeight(c.getValue(), ctx.units) }),
     column.accessor((f) => (f.assigneeId ? (ctx.members.get(f.assigneeId)?.name ?? 'Someone') : 'Nobody'), { id: 'assignee', header: 'Assignee', enableSorting: false }),
-    column.accessor('dueAt', { id: 'dueAt', header: 'Due', cell: (c) => `${date(c.getValue())}${c.row.original.overdue ? ' (overdue)' : ''}` }),
-    column.accessor('createdAt', { id: 'createdAt', header: 'Raised', cell: (c) => date(c.getValue()) }),
+    column.accessor('dueAt', { id: 'dueAt', header: 'Due', cell: (c) => `${formatDay(c.getValue())}${c.row.original.overdue ? ' (overdue)' : ''}` }),
+    column.accessor('createdAt', { id: 'createdAt', header: 'Raised', cell: (c) => formatDay(c.getValue()) }),
     column.accessor('notePreview', { id: 'notes', header: 'Note', enableSorting: false }),
   ];
   // The helper types each column by its value; the table takes them as one list.

@@ -7,8 +7,9 @@ import { PhotoThumbnail } from '../components/PhotoThumbnail';
 import { useAssignFindingsMutation, useReopenFindingMutation, useSettleConflictMutation } from '../manager.mutations';
 import { useFinding, useFindingConflicts, useFindingHistory, useFindingPhotos, useMembers, useScaffolds } from '../manager.queries';
 import { formatEnergy, formatHeight } from '../manager-units';
+import { formatDateTime } from '../../../lib/format-date';
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : '—');
+const when = formatDateTime;
 
 /** One finding as a manager reviews it: where, what, the estimate, photos, history and what a manager may do. */
 export function ManagerFindingPage() {

@@ -6,8 +6,9 @@ import { ManagerLayout } from '../components/ManagerLayout';
 import { TableScroll } from '../components/TableScroll';
 import { downloadInspectionReport, openInspectionReport, sendInspectionReportAgain } from '../manager.api';
 import { useScaffoldReports, useScaffolds, useSites } from '../manager.queries';
+import { formatDateTime } from '../../../lib/format-date';
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'Not finished');
+const when = (iso: string | null) => (iso ? formatDateTime(iso) : 'Not finished');
 
 /** The scaffolds (filtered as the overview's numbers ask), and for the chosen one its inspections with their reports. */
 export function ReportsPage() {
@@ -105,7 +106,7 @@ export function ReportsPage() {
                   </th>
                   <td>{sites.data?.find((x) => x.id === s.siteId)?.name ?? ''}</td>
                   <td>{s.status}</td>
-                  <td>{s.nextDueAt ? new Date(s.nextDueAt).toLocaleString() : 'Not set'}</td>
+                  <td>{s.nextDueAt ? formatDateTime(s.nextDueAt) : 'Not set'}</td>
                 </tr>
               ))}
             </tbody>

@@ -3,12 +3,13 @@ import { Link } from 'react-router-dom';
 import { ManagerLayout } from '../components/ManagerLayout';
 import { TableScroll } from '../components/TableScroll';
 import { useSites, useTrends } from '../manager.queries';
+import { formatDay } from '../../../lib/format-date';
 
 const WeeklyChart = lazy(() => import('../components/WeeklyChart'));
 const BANDS = ['High', 'Medium', 'Low'] as const;
 // Colour and dash pattern both tell the bands apart.
 const LOOK = { High: { stroke: '#9b1c1c', dash: undefined }, Medium: { stroke: '#8a5a00', dash: [8, 4] }, Low: { stroke: '#2b5d8a', dash: [2, 3] } };
-const day = (iso: string) => new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
+const day = formatDay;
 
 /** Findings raised and closed per week by band, time to fix, and places findings keep coming back. */
 export function TrendsPage() {

@@ -16,6 +16,7 @@ import { useForemen, useRefreshSetup, useScaffoldToEdit, useSite } from '../setu
 import { REGIME_WORDS } from '../site-form';
 import { unitLabel } from '../../../lib/units';
 import '../setup.css';
+import { formatDateTime, formatDay } from '../../../lib/format-date';
 
 /** Add a scaffold to a site, or change one; the drawing follows the form as it is typed. */
 export function ScaffoldFormPage() {
@@ -105,11 +106,11 @@ function ScaffoldEditor({ site, scaffold }: { site: Site; scaffold?: Scaffold })
           {scaffold && (
             <>
               {' '}
-              · <ScaffoldStatusTag status={scaffold.status} recorded={scaffold.lastInspectedAt ? `last inspected ${new Date(scaffold.lastInspectedAt).toLocaleString()}` : null} />
+              · <ScaffoldStatusTag status={scaffold.status} recorded={scaffold.lastInspectedAt ? `last inspected ${formatDateTime(scaffold.lastInspectedAt)}` : null} />
             </>
           )}
         </p>
-        {scaffold?.archivedAt && <p className="setup-form__error">Archived on {new Date(scaffold.archivedAt).toLocaleDateString()}: it is no longer on the phones.</p>}
+        {scaffold?.archivedAt && <p className="setup-form__error">Archived on {formatDay(scaffold.archivedAt)}: it is no longer on the phones.</p>}
         <fieldset>
           <legend>The scaffold</legend>
           <Field id="scaffold-reference" label="Reference" hint="As on its tag, e.g. QL-A" error={err('reference')}>
