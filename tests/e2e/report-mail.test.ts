@@ -154,6 +154,9 @@ describe('the signed report reaches the manager once the phone is back online', 
     expect(text).toMatch(/hammer/i);
     expect(text).toContain('Aileen Marsh');
     expect(text).not.toContain('not signed');
+    // A heading stays with what follows it: the page that has the findings heading starts the list.
+    const pageWithList = pdfText(pdf!.content).split('\f').map(flat).find((page) => page.includes('Findings, highest risk first'));
+    expect(pageWithList).toMatch(/Findings, highest risk first \(1\) 1\. High – /);
     // Exactly one report for this inspection, however often the phone retried.
     await new Promise((r) => setTimeout(r, 1_500));
     const reports = await Promise.all(mail.messages().map((n) => parseEml(mail.mailDir, n)));

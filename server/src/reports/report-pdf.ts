@@ -31,8 +31,9 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
     doc.on('error', reject);
   });
   const width = doc.page.width - 2 * MARGIN;
-  const heading = (text: string) => {
-    if (doc.y > doc.page.height - 140) doc.addPage();
+  /** A heading stays on the page of what follows it: `following` is the height, pt, that must fit below it. */
+  const heading = (text: string, following = 80) => {
+    if (doc.y + 40 + following > doc.page.height - MARGIN - 30) doc.addPage();
     doc.moveDown(0.6).font('bold').fontSize(13).fillColor('#111').text(text, MARGIN, doc.y, { width });
     doc.moveDown(0.3);
   };
@@ -61,7 +62,8 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
   }
 
   const list = [...data.findings].sort(byRisk);
-  heading(`Findings, highest risk first (${list.length})`);
+  const first = list[0];
+  heading(`Findings, highest risk first (${list.length})`, first && photos.get(first.row.id) ? 125 : 70);
   if (list.length === 0) doc.font('regular').fontSize(10).text('No falling-object findings were recorded in this inspection.', { width });
   list.forEach((f, index) => {
     const photo = photos.get(f.row.id);
