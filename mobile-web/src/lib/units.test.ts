@@ -10,10 +10,10 @@ describe('display units', () => {
   });
 
   it('converts to imperial with exact factors (NIST SP 811 App. B: 1 ft = 0.3048 m, 1 lb = 0.45359237 kg)', () => {
-    expect(toDisplay('height', 3.048, 'imperial')).toBeCloseTo(10, 12);
-    expect(toDisplay('mass', 0.45359237, 'imperial')).toBeCloseTo(1, 12);
-    expect(toDisplay('size', 0.0254, 'imperial')).toBeCloseTo(1, 12);
-    expect(formatQuantity('force', 4.4482216152605 * 100, 'imperial')).toBe('100 lbf');
+    expect(toDisplay('height', 3.048, 'imperial')).toBeCloseTo(10, 12); // NIST SP 811 (2008) App. B.9: 1 ft = 0.3048 m
+    expect(toDisplay('mass', 0.45359237, 'imperial')).toBeCloseTo(1, 12); // NIST SP 811 (2008) App. B.9: 1 lb = 0.45359237 kg
+    expect(toDisplay('size', 0.0254, 'imperial')).toBeCloseTo(1, 12); // NIST SP 811 (2008) App. B.9: 1 in = 0.0254 m
+    expect(formatQuantity('force', 4.4482216152605 * 100, 'imperial')).toBe('100 lbf'); // NIST SP 811 (2008) App. B.9: 1 lbf = 4.448222 N
   });
 
   it('round-trips a typed value to SI and back', () => {
@@ -29,8 +29,8 @@ describe('display units', () => {
     expect(formatWind(0.44704 * 20, 'mph')).toBe('20 mph');
     expect(formatWind(10, 'kmh')).toBe('36 km/h');
     expect(formatWind(7.5, 'mps')).toBe('7.5 m/s');
-    expect(parseWind('20', 'mph')).toBeCloseTo(8.9408, 12);
-    expect(parseWind('36', 'kmh')).toBeCloseTo(10, 12);
+    expect(parseWind('20', 'mph')).toBeCloseTo(8.9408, 12); // NIST SP 811 (2008) App. B.9: 1 mph = 0.44704 m/s
+    expect(parseWind('36', 'kmh')).toBeCloseTo(10, 12); // 1 km/h = 1000 m / 3600 s (SI definition)
     expect(parseWind('2,5', 'mps')).toBe(2.5);
     expect(parseWind('calm', 'mph')).toBeUndefined();
   });

@@ -9,6 +9,7 @@ describe('the finding form', () => {
     const form = { ...newFindingForm({ elevation: 'North', lift: 5, bay: 4 }, null), catalogueItemId: 'c-1' };
     expect(readFindingForm(form, { ...context, catalogueItem: hammer }).input?.heightM).toBe(10);
     const measured = { ...form, heightMode: 'measured' as const, heightText: '20' };
+    // 20 ft = 20 × 0.3048 m = 6.096 m (NIST SP 811 (2008), App. B.9: 1 ft = 0.3048 m exactly).
     expect(readFindingForm(measured, { ...context, units: 'imperial', catalogueItem: hammer }).input?.heightM).toBeCloseTo(6.096, 10);
   });
 
