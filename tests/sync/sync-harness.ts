@@ -26,6 +26,8 @@ interface Table<T, K> {
 export type PhoneRecord = Record<string, unknown> & { id: string; version: number };
 export interface MobileDb {
   findings: Table<PhoneFinding, string>;
+  sites: Table<PhoneRecord, string>;
+  scaffolds: Table<PhoneRecord, string>;
   inspections: Table<PhoneRecord, string>;
   controlChecks: Table<PhoneRecord, string>;
   outbox: Table<unknown, number>;
@@ -91,6 +93,8 @@ export interface PhoneOptions {
   token: string;
   network: Network;
   random: () => number;
+  /** Changes per pull page (10 by default: many pages in a short test). */
+  pullLimit?: number;
   /** Device clock offset, ms (±24 h in the tests: the server must not care). */
   clockSkewMs?: number;
   /** Every push answer, with the outbox entry (what enqueueChange returned) it answers. */
@@ -114,7 +118,7 @@ export class Phone {
       now,
       random: options.random,
       batchSize: 3,
-      pullLimit: 10,
+      pullLimit: options.pullLimit ?? 10,
       onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => {
         this.clientId = clientId;
         options.onResult(clientId, result, entryId);
