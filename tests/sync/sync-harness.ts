@@ -88,6 +88,16 @@ export interface Network {
   requests: number;
 }
 
+/** One mutation as a phone sent it. */
+export interface SentMutation {
+  id: number;
+  entity: string;
+  entityId: string;
+  action: string;
+  baseVersion: number;
+  payload: Record<string, unknown>;
+}
+
 export interface PhoneOptions {
   name: string;
   token: string;
@@ -97,6 +107,8 @@ export interface PhoneOptions {
   pullLimit?: number;
   /** Device clock offset, ms (±24 h in the tests: the server must not care). */
   clockSkewMs?: number;
+  /** Every push the phone sends (before the network decides its fate), as sent. */
+  onPush?: (body: { clientId: string; mutations: SentMutation[] }) => void;
   /** Every push answer, with the outbox entry (what enqueueChange returned) it answers. */
   onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => void;
 }
@@ -134,6 +146,7 @@ export class Phone {
 
   private async fetch(path: string, init?: RequestInit): Promise<Response> {
     if (!this.online) throw new TypeError('fetch failed: offline');
+    if (path.includes('/sync/push') && typeof init?.body === 'string') this.options.onPush?.(JSON.parse(init.body));
     const { network } = this.options;
     const server = network.servers[network.requests++ % network.servers.length]!;
     const send = () =>
