@@ -50,11 +50,11 @@ export function syncedTables(database: PlummetDb) {
 }
 
 /**
- * One page of the feed, with its cursor, in one transaction. A record with changes still waiting
+ * One page of the feed, with its cursor (unless `feedCursor` is false: a site's first pull), in one transaction. A record with changes still waiting
  * keeps the phone's copy (its base version stays the one the user edited from); a conflict is kept
  * while open and dropped once settled; a tombstone deletes the record and what hangs off it.
  */
-export async function applyPulledPage(database: PlummetDb, page: SyncPullResponse, organisationId = ''): Promise<void> {
+export async function applyPulledPage(database: PlummetDb, page: SyncPullResponse, organisationId = '', options: { feedCursor?: boolean } = {}): Promise<void> {
   await database.transaction('rw', syncedTables(database), async () => {
     const waiting = await waitingChanges(database);
     const conflicts: Record<string, SyncConflict> = await readConflicts(database);
@@ -62,7 +62,8 @@ export async function applyPulledPage(database: PlummetDb, page: SyncPullRespons
     const me = await userOf(database, page.changes);
     for (const change of page.changes) await applyChange(database, change, waiting, conflicts, org, me);
     await writeMeta(database, SYNC_META.conflicts, conflicts);
-    await writeMeta(database, SYNC_META.cursor, page.cursor);
+    // A site's first pull has a cursor of its own: the phone's feed cursor stays where it was.
+    if (options.feedCursor !== false) await writeMeta(database, SYNC_META.cursor, page.cursor);
   });
 }
 
