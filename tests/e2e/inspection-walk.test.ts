@@ -94,7 +94,7 @@ async function expectWalkOnServer(server: RunningServer, inspectionId: string, s
     const checks = (await pool.query('select control, result, note from control_checks where inspection_id = $1', [inspectionId])).rows;
     expect(checks).toHaveLength(10);
     expect(checks.find((c) => c.control === 'toe-boards')).toMatchObject({ result: 'fail', note: 'Missing at North bay 7, lift 5' });
-    const findings = (await pool.query(`select id, item->>'name' as name, state from findings where inspection_id = $1`, [inspectionId])).rows;
+    const findings = (await pool.query(`select id, item_name as name, state from findings where inspection_id = $1`, [inspectionId])).rows;
     expect(findings.map((f) => f.name).sort()).toEqual(expect.arrayContaining(['Brick offcut']));
     expect(findings).toHaveLength(3);
     expect(findings.find((f) => f.name === 'Brick offcut')?.state).toBe('made-safe');
@@ -259,14 +259,15 @@ describe('the inspector’s walk with no signal', () => {
     await onScreen(page, 'go-finish').click();
     await onScreen(page, 'finish-page').waitFor();
     await expect.poll(() => onScreen(page, 'report-mattersGivingRisk').inputValue()).toContain('Brick offcut');
+    await onScreen(page, 'signature-pad').scrollIntoViewIfNeeded();
     const pad = await onScreen(page, 'signature-pad').boundingBox();
-    if (pad) {
-      await page.mouse.move(pad.x + 30, pad.y + pad.height * 0.6);
-      await page.mouse.down();
-      await page.mouse.move(pad.x + pad.width * 0.4, pad.y + pad.height * 0.3, { steps: 8 });
-      await page.mouse.move(pad.x + pad.width * 0.8, pad.y + pad.height * 0.7, { steps: 8 });
-      await page.mouse.up();
-    }
+    expect(pad).not.toBeNull();
+    await page.mouse.move(pad!.x + 30, pad!.y + pad!.height * 0.6);
+    await page.mouse.down();
+    await page.mouse.move(pad!.x + pad!.width * 0.4, pad!.y + pad!.height * 0.3, { steps: 8 });
+    await page.mouse.move(pad!.x + pad!.width * 0.8, pad!.y + pad!.height * 0.7, { steps: 8 });
+    await page.mouse.up();
+    await expect.poll(() => onScreen(page, 'signature-pad').getAttribute('aria-label')).toBe('Your drawn signature');
     // The outcome written on the tag.
     await choose(page, 'outcome-status', 'closed');
     await choose(page, 'outcome-tags', 'yes');

@@ -17,6 +17,8 @@ interface Running {
   userId: string;
   engine: SyncEngine;
   stopTriggers: () => void;
+  /** Runs under way, with the downloads that follow a sync (sign-out waits for them before clearing the phone). */
+  runs: Set<Promise<SyncRunOutcome>>;
 }
 
 let running: Running | null = null;
@@ -38,7 +40,14 @@ export function startAppSync(userId: string): SyncEngine {
   const networkDown = () => typeof navigator !== 'undefined' && navigator.onLine === false;
   // The `online` event often comes before the connection carries traffic: a run that found no
   // server while the network is up tries again soon (1 s doubling, with jitter) instead of waiting for the timer.
-  const run = async (): Promise<SyncRunOutcome> => {
+  const runs = new Set<Promise<SyncRunOutcome>>();
+  const run = (): Promise<SyncRunOutcome> => {
+    const runOnce = runAndDownload();
+    runs.add(runOnce);
+    void runOnce.finally(() => runs.delete(runOnce)).catch(() => undefined);
+    return runOnce;
+  };
+  const runAndDownload = async (): Promise<SyncRunOutcome> => {
     clearTimeout(retry);
     if (networkDown()) return 'offline';
     const outcome = await engine.sync();
@@ -55,6 +64,7 @@ export function startAppSync(userId: string): SyncEngine {
   running = {
     userId,
     engine,
+    runs,
     stopTriggers: () => {
       clearTimeout(retry);
       stopTriggers();
@@ -72,6 +82,8 @@ export async function stopAppSync(): Promise<void> {
   current.stopTriggers();
   notify();
   await current.engine.whenIdle();
+  // The foremen and settings downloads after a sync write to the phone too: wait for them.
+  await Promise.allSettled([...current.runs]);
 }
 
 export function currentSyncEngine(): SyncEngine | undefined {
