@@ -1,9 +1,10 @@
 /**
- * When the finding editor is read-only, and where the work goes instead. The editor changes a
- * finding's details, which only inspectors do (the server refuses anyone else's edit); a signed
- * inspection is read-only, so its findings' details are kept as signed. Making safe and fixing go
- * through the fix loop whatever the inspection's state: the lock names that page, so a foreman (or
- * an inspector) is never left without a way to act on a finding of a signed inspection.
+ * When the finding editor is read-only, and where the work goes instead, by the server's rules
+ * for finding commands (server/src/findings/finding-commands.ts): only inspectors change a
+ * finding's details, whichever inspection it came from (a signed inspection is itself read-only,
+ * but its findings are still corrected and followed up); no new finding goes into a signed
+ * inspection. Making safe and fixing go through the fix loop whatever the inspection's state: a
+ * lock names that page, so a foreman is never left without a way to act on a finding.
  */
 import type { Role } from '@plummet/shared';
 
@@ -25,10 +26,8 @@ export function findingLock({ role, findingId, inspectionSigned }: FindingLockIn
   if (!findingId) {
     return inspectionSigned ? { reason: 'This inspection is signed: record new findings in a new inspection.', fixHref: '/fix-list' } : null;
   }
-  const fixHref = `/fix-list/${findingId}`;
-  if (role !== 'inspector') return { reason: 'Only inspectors change a finding’s details. Make it safe or record its fix from the fix list.', fixHref };
-  if (inspectionSigned) {
-    return { reason: 'This finding belongs to a signed inspection, so its details stay as signed. Make it safe or record its fix from the fix list.', fixHref };
+  if (role !== 'inspector') {
+    return { reason: 'Only inspectors change a finding’s details. Make it safe or record its fix from the fix list.', fixHref: `/fix-list/${findingId}` };
   }
   return null;
 }
