@@ -1,8 +1,7 @@
 /**
  * The app's one sync engine: made when someone is signed in, stopped before sign-out clears the
- * phone. Screens read it through useAppSyncEngine(); nothing else creates an engine.
+ * phone. Screens read it through features/sync/sync-hooks.ts; nothing else creates an engine. No React here.
  */
-import { useSyncExternalStore } from 'react';
 import { fetchWithAccessToken } from '../api/authorised-fetch';
 import { db } from '../local-db/db';
 import { backoffMs } from '@plummet/shared';
@@ -90,12 +89,8 @@ export function currentSyncEngine(): SyncEngine | undefined {
   return running?.engine;
 }
 
-function subscribe(listener: () => void): () => void {
+/** Told whenever the running engine changes (sign-in, sign-out). */
+export function subscribeAppSync(listener: () => void): () => void {
   listeners.add(listener);
   return () => listeners.delete(listener);
-}
-
-/** The running engine, or undefined while nobody is signed in. */
-export function useAppSyncEngine(): SyncEngine | undefined {
-  return useSyncExternalStore(subscribe, currentSyncEngine, () => undefined);
 }
