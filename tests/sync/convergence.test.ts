@@ -51,8 +51,10 @@ let m: Awaited<ReturnType<typeof loadMobile>>;
 
 beforeAll(async () => {
   m = await loadMobile();
-  t = await startTestApp();
-  second = await createApp(loadConfig({ ...process.env, ...t.db.serverEnv, PORT: '0', LOG_LEVEL: 'warn' }));
+  // The phones carry one access token each for the whole run, which outlasts the default 15 minutes on a loaded machine.
+  const env = { ACCESS_TOKEN_TTL_S: String(24 * 60 * 60) };
+  t = await startTestApp({ env });
+  second = await createApp(loadConfig({ ...process.env, ...t.db.serverEnv, ...env, PORT: '0', LOG_LEVEL: 'warn' }));
   await second.listen(0, '127.0.0.1');
   servers = [t.baseUrl, `http://127.0.0.1:${(second.getHttpServer().address() as { port: number }).port}`];
   inspectorToken = await t.tokenFor('inspector@demo.test');
