@@ -117,6 +117,8 @@ describe('two phones edit the same finding offline', () => {
     expect(await card.getByTestId('conflict-current').textContent()).toBe(BOTH_NOTES);
     expect(await card.getByTestId('conflict-replaced').textContent()).toBe(NOTES_A);
     expect(await card.innerText()).toMatch(/written by you/);
+    // Who wrote the replaced value, and when: phone A's edit, made by the same inspector.
+    expect(await card.getByTestId('conflict-replaced-by').textContent()).toMatch(/^Replaced — written by you, \d{1,2} \w{3} \d{4}, \d\d:\d\d$/);
     await expect.poll(() => onScreen(b, 'online-status').first().getAttribute('data-online')).toBe('true');
     await card.getByTestId('keep-current').scrollIntoViewIfNeeded();
     await b.screenshot({ path: artifactPath('sync-conflict.png') });

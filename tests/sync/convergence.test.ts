@@ -7,20 +7,24 @@
  * findings, all under the flaky network. After a full sync, every phone's findings, inspection
  * and checks equal the server's; every edit a phone made (the outbox entry it went into) was
  * answered and is applied, conflicted or rejected on the server exactly once; a replayed answer
- * equals the first; and the counts reconcile. SYNC_SCHEDULES=n runs n schedules (default 200).
+ * equals the first; phones that never heard the first answer to a push (it was lost) are reconciled
+ * like the others; the counts reconcile; and the end values equal a model worked out in the test
+ * from the mutations as sent and the rules as the product states them (convergence-model.ts).
+ * SYNC_SCHEDULES=n runs n schedules (default 200).
  */
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import type { SyncMutationResult } from '@plummet/shared';
-import { eq, inArray, sql } from 'drizzle-orm';
+import { asc, eq, inArray, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO } from '../../server/test/data-api.js';
 import { startTestApp, type TestApp } from '../../server/test/test-app.js';
 import { createApp } from '../../server/src/bootstrap.js';
 import { loadConfig } from '../../server/src/config/config.js';
 import { controlChecks, findings, inspections, syncConflicts, syncMutations } from '../../server/src/db/schema/index.js';
-import { deliverLate, loadMobile, type Network, Phone, type PhoneFinding, prng } from './sync-harness.js';
+import { expectedEndState, type Sender } from './convergence-model.js';
+import { deliverLate, loadMobile, type Network, Phone, type PhoneFinding, prng, type SentMutation } from './sync-harness.js';
 
 /** How many random schedules to run: a positive whole number; 0 or anything else is an error, not a pass. */
 function schedulesFrom(value: string | undefined): number {
@@ -38,14 +42,19 @@ let second: Awaited<ReturnType<typeof createApp>>;
 let servers: string[];
 let inspectorToken: string;
 let foremanToken: string;
+const userIdOf = (token: string) => JSON.parse(Buffer.from(token.split('.')[1]!, 'base64url').toString()).sub as string;
+/** Pushes whose first answer the phone never heard (lost on the way back), over every schedule. */
+let answersLost = 0;
 let orgId: string;
 let siteId: string;
 let m: Awaited<ReturnType<typeof loadMobile>>;
 
 beforeAll(async () => {
   m = await loadMobile();
-  t = await startTestApp();
-  second = await createApp(loadConfig({ ...process.env, ...t.db.serverEnv, PORT: '0', LOG_LEVEL: 'warn' }));
+  // The phones carry one access token each for the whole run, which outlasts the default 15 minutes on a loaded machine.
+  const env = { ACCESS_TOKEN_TTL_S: String(24 * 60 * 60) };
+  t = await startTestApp({ env });
+  second = await createApp(loadConfig({ ...process.env, ...t.db.serverEnv, ...env, PORT: '0', LOG_LEVEL: 'warn' }));
   await second.listen(0, '127.0.0.1');
   servers = [t.baseUrl, `http://127.0.0.1:${(second.getHttpServer().address() as { port: number }).port}`];
   inspectorToken = await t.tokenFor('inspector@demo.test');
@@ -114,9 +123,22 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
         random,
         clockSkewMs: schedule.skews[i],
         onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => told.push({ phone: i, clientId, result, entryId }),
+        onPush: (body) => {
+          const token = i === FOREMAN ? foremanToken : inspectorToken;
+          senders.set(body.clientId, { role: i === FOREMAN ? 'foreman' : 'inspector', userId: userIdOf(token) });
+          for (const mutation of body.mutations) {
+            const key = `${body.clientId}:${mutation.id}`;
+            const before = sent.get(key);
+            if (before) expect(mutation, `${key} sent again with other contents`).toEqual(before);
+            sent.set(key, mutation);
+          }
+        },
       }),
   );
   const made = (phone: number, what: string) => (entryId: number) => ledger.push({ phone, entryId, what });
+  // Every mutation as a phone sent it (a retry sends the same again), and whose phone each client is.
+  const sent = new Map<string, SentMutation>();
+  const senders = new Map<string, Sender>();
   try {
     // The phones have synced before: they start at the end of the feed (earlier schedules' records are not theirs to hold).
     const cursor = await feedEnd();
@@ -208,6 +230,13 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
       expect(heard, `${edit.what} on phone ${edit.phone} (outbox entry ${edit.entryId}) was never answered`).toBeDefined();
       expect(['applied', 'conflict', 'rejected']).toContain(loggedOutcome.get(`${heard!.clientId}:${heard!.result.id}`));
     }
+    // A phone that never heard the first answer (it was lost) heard the replay, and holds what the server holds (checked above).
+    for (const [key, heard] of answers) {
+      if (!heard[0]!.replayed) continue;
+      answersLost++;
+      expect(loggedOutcome.get(key), `${key}: the replay answers the outcome logged`).toBe(heard[0]!.outcome);
+    }
+    await expectModelEndState(clientIds, sent, senders, ids, inspectionId);
     const conflictIds = new Set([...answers.values()].flatMap((heard) => heard[0]!.conflictIds));
     const conflicts = await t.drizzle.select({ id: syncConflicts.id }).from(syncConflicts).where(inArray(syncConflicts.winnerClientId, clientIds.length ? clientIds : [randomUUID()]));
     expect(conflicts.map((c) => c.id).sort()).toEqual([...conflictIds].sort());
@@ -215,6 +244,36 @@ async function runSchedule(schedule: { seed: number; skews: number[]; steps: Ste
   } finally {
     for (const phone of phones) phone.close();
   }
+}
+
+/**
+ * The end state equals the model worked out from the mutations as sent, in the order the server
+ * logged them (each push is one transaction; the phones push one at a time, so the log's time and
+ * then mutation id is the order they were applied in).
+ */
+async function expectModelEndState(clientIds: string[], sent: Map<string, SentMutation>, senders: Map<string, Sender>, ids: string[], inspectionId: string) {
+  const none = [randomUUID()];
+  const log = await t.drizzle
+    .select()
+    .from(syncMutations)
+    .where(inArray(syncMutations.clientId, clientIds.length ? clientIds : none))
+    .orderBy(asc(syncMutations.appliedAt), asc(syncMutations.mutationId));
+  const conflicts = await t.drizzle.select().from(syncConflicts).where(inArray(syncConflicts.winnerClientId, clientIds.length ? clientIds : none));
+  const model = expectedEndState({ log, sent, senders, conflicts });
+  expect(model.problems).toEqual([]);
+  // Every mutation a phone sent reached the server (none was lost for good).
+  expect(new Set(log.map((row) => `${row.clientId}:${row.mutationId}`))).toEqual(new Set(sent.keys()));
+
+  const rows = await t.drizzle.select().from(findings).where(inArray(findings.id, ids));
+  const server = Object.fromEntries(rows.map((f) => [f.id, { notes: f.notes, heightM: f.heightM, lift: f.lift, state: f.state }]));
+  expect(server).toEqual(Object.fromEntries(model.findings));
+  const [walk] = await t.drizzle.select().from(inspections).where(eq(inspections.id, inspectionId));
+  const checks = await t.drizzle.select().from(controlChecks).where(eq(controlChecks.inspectionId, inspectionId));
+  expect({
+    location: walk?.location,
+    windSpeedMps: walk?.windSpeedMps,
+    checks: Object.fromEntries(checks.map((c) => [c.control, { result: c.result, note: c.note }])),
+  }).toEqual(model.walk);
 }
 
 const newFinding = (id: string, bay: number) =>
@@ -326,5 +385,8 @@ describe('the schedule count', () => {
 describe('sync convergence', () => {
   it(`brings ${PHONES} phones and the server to the same findings over ${SCHEDULES} random schedules`, async () => {
     await fc.assert(fc.asyncProperty(scheduleArb, runSchedule), { numRuns: SCHEDULES, endOnFailure: true });
-  }, 600_000);
+    // Enough schedules lose some answers on the way back (about one delivery in eight): those phones were reconciled above.
+    if (SCHEDULES >= 50) expect(answersLost).toBeGreaterThan(0);
+    // A generous guard, not a speed check: 200 schedules take a few minutes, far longer on a shared, loaded machine.
+  }, 1_800_000);
 });

@@ -26,6 +26,8 @@ interface Table<T, K> {
 export type PhoneRecord = Record<string, unknown> & { id: string; version: number };
 export interface MobileDb {
   findings: Table<PhoneFinding, string>;
+  sites: Table<PhoneRecord, string>;
+  scaffolds: Table<PhoneRecord, string>;
   inspections: Table<PhoneRecord, string>;
   controlChecks: Table<PhoneRecord, string>;
   outbox: Table<unknown, number>;
@@ -86,13 +88,27 @@ export interface Network {
   requests: number;
 }
 
+/** One mutation as a phone sent it. */
+export interface SentMutation {
+  id: number;
+  entity: string;
+  entityId: string;
+  action: string;
+  baseVersion: number;
+  payload: Record<string, unknown>;
+}
+
 export interface PhoneOptions {
   name: string;
   token: string;
   network: Network;
   random: () => number;
+  /** Changes per pull page (10 by default: many pages in a short test). */
+  pullLimit?: number;
   /** Device clock offset, ms (±24 h in the tests: the server must not care). */
   clockSkewMs?: number;
+  /** Every push the phone sends (before the network decides its fate), as sent. */
+  onPush?: (body: { clientId: string; mutations: SentMutation[] }) => void;
   /** Every push answer, with the outbox entry (what enqueueChange returned) it answers. */
   onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => void;
 }
@@ -114,7 +130,7 @@ export class Phone {
       now,
       random: options.random,
       batchSize: 3,
-      pullLimit: 10,
+      pullLimit: options.pullLimit ?? 10,
       onResult: (clientId: string, result: SyncMutationResult, entryId?: number) => {
         this.clientId = clientId;
         options.onResult(clientId, result, entryId);
@@ -130,6 +146,7 @@ export class Phone {
 
   private async fetch(path: string, init?: RequestInit): Promise<Response> {
     if (!this.online) throw new TypeError('fetch failed: offline');
+    if (path.includes('/sync/push') && typeof init?.body === 'string') this.options.onPush?.(JSON.parse(init.body));
     const { network } = this.options;
     const server = network.servers[network.requests++ % network.servers.length]!;
     const send = () =>

@@ -1,8 +1,7 @@
 /**
  * The app's one sync engine: made when someone is signed in, stopped before sign-out clears the
- * phone. Screens read it through useAppSyncEngine(); nothing else creates an engine.
+ * phone. Screens read it through features/sync/sync-hooks.ts; nothing else creates an engine. No React here.
  */
-import { useSyncExternalStore } from 'react';
 import { fetchWithAccessToken } from '../api/authorised-fetch';
 import { db } from '../local-db/db';
 import { backoffMs } from '@plummet/shared';
@@ -17,6 +16,8 @@ interface Running {
   userId: string;
   engine: SyncEngine;
   stopTriggers: () => void;
+  /** Runs under way, with the downloads that follow a sync (sign-out waits for them before clearing the phone). */
+  runs: Set<Promise<SyncRunOutcome>>;
 }
 
 let running: Running | null = null;
@@ -38,7 +39,14 @@ export function startAppSync(userId: string): SyncEngine {
   const networkDown = () => typeof navigator !== 'undefined' && navigator.onLine === false;
   // The `online` event often comes before the connection carries traffic: a run that found no
   // server while the network is up tries again soon (1 s doubling, with jitter) instead of waiting for the timer.
-  const run = async (): Promise<SyncRunOutcome> => {
+  const runs = new Set<Promise<SyncRunOutcome>>();
+  const run = (): Promise<SyncRunOutcome> => {
+    const runOnce = runAndDownload();
+    runs.add(runOnce);
+    void runOnce.finally(() => runs.delete(runOnce)).catch(() => undefined);
+    return runOnce;
+  };
+  const runAndDownload = async (): Promise<SyncRunOutcome> => {
     clearTimeout(retry);
     if (networkDown()) return 'offline';
     const outcome = await engine.sync();
@@ -55,6 +63,7 @@ export function startAppSync(userId: string): SyncEngine {
   running = {
     userId,
     engine,
+    runs,
     stopTriggers: () => {
       clearTimeout(retry);
       stopTriggers();
@@ -72,18 +81,16 @@ export async function stopAppSync(): Promise<void> {
   current.stopTriggers();
   notify();
   await current.engine.whenIdle();
+  // The foremen and settings downloads after a sync write to the phone too: wait for them.
+  await Promise.allSettled([...current.runs]);
 }
 
 export function currentSyncEngine(): SyncEngine | undefined {
   return running?.engine;
 }
 
-function subscribe(listener: () => void): () => void {
+/** Told whenever the running engine changes (sign-in, sign-out). */
+export function subscribeAppSync(listener: () => void): () => void {
   listeners.add(listener);
   return () => listeners.delete(listener);
-}
-
-/** The running engine, or undefined while nobody is signed in. */
-export function useAppSyncEngine(): SyncEngine | undefined {
-  return useSyncExternalStore(subscribe, currentSyncEngine, () => undefined);
 }

@@ -1,19 +1,19 @@
 /**
- * "Make a site available offline": downloads the site's scaffolds, the findings that still need a
- * fix and the item catalogue into the phone's database, so the walk works with no signal.
- * Records with changes still waiting in the outbox are kept as they are on the phone.
+ * "Make a site available offline": the site's first pull. The change feed scoped to that one site,
+ * from its start (its scaffolds, inspections and control checks, findings with their fixes,
+ * verifications and photo metadata, the organisation's catalogue items), applied exactly as every
+ * pull is (sync-apply.ts), plus the built-in catalogue the app carries. Records with changes still
+ * waiting in the outbox keep the phone's copy, as in every pull; records of the site the server no
+ * longer has for this user leave the phone as a tombstone would take them. The scoped pull has a
+ * cursor of its own: the phone's feed cursor does not move, so the next sync misses nothing.
  */
-import type { CatalogueItem, Finding, Scaffold, Site } from '@plummet/shared';
+import { BUILTIN_ITEMS, type Site, type SyncChange, type SyncPullResponse, type SyncTombstone } from '@plummet/shared';
+import { catalogueRecordOf } from '../features/catalogue/catalogue-search';
 import type { PlummetDb } from '../local-db/db';
 import { idsWithWaitingChanges } from '../local-db/outbox';
-import type { FindingRecord, ScaffoldRecord, SiteRecord } from '../local-db/records';
-import { catalogueRecordOf } from '../features/catalogue/catalogue-search';
-
-export interface SiteDownloadSources {
-  scaffolds(siteId: string, signal?: AbortSignal): Promise<Scaffold[]>;
-  openFindings(siteId: string, signal?: AbortSignal): Promise<Finding[]>;
-  catalogue(signal?: AbortSignal): Promise<CatalogueItem[]>;
-}
+import { applyPulledPage, syncedTables } from './sync-apply';
+import { clientIdOf } from './sync-state';
+import type { SyncTransport } from './sync-transport';
 
 export interface SiteDownloadResult {
   scaffolds: number;
@@ -23,60 +23,51 @@ export interface SiteDownloadResult {
   keptLocal: number;
 }
 
-const later = (a: string | null, b: string | null): string | null => (a && b ? (a > b ? a : b) : (a ?? b));
+/** Built-in items have fixed ids and no dates of their own on the phone. */
+const BUILT_IN_AT = '2026-01-01T00:00:00.000Z';
+const PAGE = 500;
 
 export async function downloadSite(
   database: PlummetDb,
   site: Site,
   organisationId: string,
-  sources: SiteDownloadSources,
+  transport: Pick<SyncTransport, 'pull'>,
   now = new Date(),
   signal?: AbortSignal,
 ): Promise<SiteDownloadResult> {
-  // Network first, all of it, so a failure half way leaves the phone as it was.
-  const [scaffolds, findings, catalogue] = await Promise.all([
-    sources.scaffolds(site.id, signal),
-    sources.openFindings(site.id, signal),
-    sources.catalogue(signal),
-  ]);
-  const scaffoldIds = new Set(scaffolds.map((scaffold) => scaffold.id));
+  // Network first, every page, so a failure half way leaves the phone as it was.
+  const clientId = await clientIdOf(database);
+  const pages: SyncPullResponse[] = [];
+  let cursor: string | undefined;
+  for (;;) {
+    signal?.throwIfAborted();
+    const page = await transport.pull(cursor, PAGE, clientId, site.id);
+    pages.push(page);
+    cursor = page.cursor;
+    if (!page.hasMore) break;
+  }
+  const changes = pages.flatMap((page) => page.changes);
+  const pulled = (type: SyncChange['type']) => new Set(changes.filter((c) => c.type === type).map((c) => (c.record as { id: string }).id));
+  const [scaffoldIds, findingIds] = [pulled('scaffold'), pulled('finding')];
 
-  return database.transaction('rw', [database.sites, database.scaffolds, database.findings, database.catalogue, database.outbox], async () => {
+  return database.transaction('rw', syncedTables(database), async () => {
     const waiting = await idsWithWaitingChanges(database, 'finding');
-    const siteRecord: SiteRecord = { ...site, organisationId, offline: true, downloadedAt: now.toISOString() };
-    await database.sites.put(siteRecord);
+    for (const page of pages) await applyPulledPage(database, page, organisationId, { feedCursor: false });
+    // What the phone holds of this site that the server no longer has for this user goes, as a tombstone would take it.
+    const staleScaffolds = await database.scaffolds.where('siteId').equals(site.id).filter((s) => !scaffoldIds.has(s.id)).primaryKeys();
+    const staleFindings = await database.findings.where('siteId').equals(site.id).filter((f) => !findingIds.has(f.id)).primaryKeys();
+    const tombstones: SyncTombstone[] = [
+      ...staleScaffolds.map((id) => ({ recordType: 'scaffold' as const, id, reason: 'out-of-scope' as const })),
+      ...staleFindings.map((id) => ({ recordType: 'finding' as const, id, reason: 'out-of-scope' as const })),
+    ];
+    if (tombstones.length) {
+      await applyPulledPage(database, { changes: tombstones.map((record) => ({ type: 'tombstone', record })), cursor: cursor ?? '0.0', hasMore: false }, organisationId, { feedCursor: false });
+    }
+    const local = await database.sites.get(site.id);
+    await database.sites.put({ ...site, ...local, organisationId, offline: true, downloadedAt: now.toISOString() });
+    await database.catalogue.bulkPut(BUILTIN_ITEMS.map((item) => catalogueRecordOf({ ...item, builtIn: true, createdAt: BUILT_IN_AT, updatedAt: BUILT_IN_AT, version: 1 })));
 
-    // A walk finished on the phone but not yet sent has moved the dates on; keep the later ones.
-    const localScaffolds = new Map((await database.scaffolds.where('siteId').equals(site.id).toArray()).map((s) => [s.id, s]));
-    const scaffoldRecords: ScaffoldRecord[] = scaffolds.map((scaffold) => {
-      const local = localScaffolds.get(scaffold.id);
-      return {
-        ...scaffold,
-        organisationId,
-        lastInspectedAt: later(scaffold.lastInspectedAt, local?.lastInspectedAt ?? null),
-        nextDueAt: local?.lastInspectedAt && local.lastInspectedAt > (scaffold.lastInspectedAt ?? '') ? local.nextDueAt : scaffold.nextDueAt,
-      };
-    });
-    await database.scaffolds.bulkPut(scaffoldRecords);
-
-    const fresh = findings.filter((finding) => scaffoldIds.has(finding.scaffoldId) && !waiting.has(finding.id));
-    const findingRecords: FindingRecord[] = fresh.map((finding) => ({ ...finding, organisationId, siteId: site.id }));
-    // A copy on the phone at least as new stays (it may carry local fields the server's copy lacks).
-    const local = await database.findings.bulkGet(findingRecords.map((finding) => finding.id));
-    await database.findings.bulkPut(findingRecords.filter((finding, i) => !local[i] || local[i]!.version < finding.version));
-    // Findings of this site that are no longer open on the server (fixed meanwhile) and have no
-    // waiting change leave the phone; a walk's own new findings wait in the outbox and stay.
-    const open = new Set(findings.map((finding) => finding.id));
-    const stale = await database.findings
-      .where('siteId')
-      .equals(site.id)
-      .filter((finding) => !open.has(finding.id) && !waiting.has(finding.id))
-      .primaryKeys();
-    await database.findings.bulkDelete(stale);
-
-    await database.catalogue.clear();
-    await database.catalogue.bulkPut(catalogue.map(catalogueRecordOf));
-
-    return { scaffolds: scaffolds.length, findings: findingRecords.length, catalogueItems: catalogue.length, keptLocal: findings.length - fresh.length };
+    const kept = [...findingIds].filter((id) => waiting.has(id)).length;
+    return { scaffolds: scaffoldIds.size, findings: findingIds.size - kept, catalogueItems: BUILTIN_ITEMS.length + pulled('catalogue-item').size, keptLocal: kept };
   });
 }

@@ -105,6 +105,20 @@ describe('applying a pulled page', () => {
     expect(await readMeta(database, SYNC_META.cursor)).toBe('5.1');
   });
 
+  it('stores a pulled signed inspection and the user’s own walk, but not another inspector’s walk still under way', async () => {
+    const database = freshDb();
+    const walk = everything[3]!.record as { id: string; inspectorId: string };
+    const signed = { ...walk, id: '0e000000-0000-4000-8000-000000000002', inspectorId: '0a000000-0000-4000-8000-0000000000ff', finishedAt: T, signedAt: T, signature: 'data:image/png;base64,AA==' };
+    const othersWalk = { ...walk, id: '0e000000-0000-4000-8000-000000000003', inspectorId: '0a000000-0000-4000-8000-0000000000ff' };
+    await applyPulledPage(database, page([...everything.slice(0, 3), { type: 'inspection', record: walk }, { type: 'inspection', record: signed }, { type: 'inspection', record: othersWalk }] as SyncChange[]));
+    expect(await database.inspections.get(walk.id)).toMatchObject({ status: 'in-progress', siteId: SITE_ID });
+    expect(await database.inspections.get(signed.id)).toMatchObject({ status: 'finished', siteId: SITE_ID });
+    expect(await database.inspections.get(othersWalk.id)).toBeUndefined();
+    // Once signed, that walk comes too.
+    await applyPulledPage(database, page([{ type: 'inspection', record: { ...othersWalk, finishedAt: T, signedAt: T, version: 2 } }] as SyncChange[], '6.1'));
+    expect(await database.inspections.get(othersWalk.id)).toMatchObject({ status: 'finished' });
+  });
+
   it('keeps a site made available offline marked so when the feed brings it again', async () => {
     const database = freshDb();
     await database.sites.put({ ...site, organisationId: ORG_ID, offline: true, downloadedAt: T });

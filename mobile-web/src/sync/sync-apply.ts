@@ -1,7 +1,7 @@
 /** Writing what the server sent into Dexie: pulled pages and the records a push answer carries. */
 import type { SyncChange, SyncConflict, SyncPullResponse, SyncTombstone } from '@plummet/shared';
 import { catalogueRecordOf } from '../features/catalogue/catalogue-search';
-import { writeMeta, type PlummetDb } from '../local-db/db';
+import { readMeta, writeMeta, type PlummetDb } from '../local-db/db';
 import { keepSignedReport } from '../local-db/signed-reports';
 import { idsWithWaitingChanges } from '../local-db/outbox';
 import type { FindingRecord, InspectionRecord, ScaffoldRecord, SiteRecord } from '../local-db/records';
@@ -50,18 +50,20 @@ export function syncedTables(database: PlummetDb) {
 }
 
 /**
- * One page of the feed, with its cursor, in one transaction. A record with changes still waiting
+ * One page of the feed, with its cursor (unless `feedCursor` is false: a site's first pull), in one transaction. A record with changes still waiting
  * keeps the phone's copy (its base version stays the one the user edited from); a conflict is kept
  * while open and dropped once settled; a tombstone deletes the record and what hangs off it.
  */
-export async function applyPulledPage(database: PlummetDb, page: SyncPullResponse, organisationId = ''): Promise<void> {
+export async function applyPulledPage(database: PlummetDb, page: SyncPullResponse, organisationId = '', options: { feedCursor?: boolean } = {}): Promise<void> {
   await database.transaction('rw', syncedTables(database), async () => {
     const waiting = await waitingChanges(database);
     const conflicts: Record<string, SyncConflict> = await readConflicts(database);
     const org = organisationId || (await orgOf(database, page.changes));
-    for (const change of page.changes) await applyChange(database, change, waiting, conflicts, org);
+    const me = await userOf(database, page.changes);
+    for (const change of page.changes) await applyChange(database, change, waiting, conflicts, org, me);
     await writeMeta(database, SYNC_META.conflicts, conflicts);
-    await writeMeta(database, SYNC_META.cursor, page.cursor);
+    // A site's first pull has a cursor of its own: the phone's feed cursor stays where it was.
+    if (options.feedCursor !== false) await writeMeta(database, SYNC_META.cursor, page.cursor);
   });
 }
 
@@ -72,7 +74,24 @@ async function orgOf(database: PlummetDb, changes: SyncChange[]): Promise<string
   return site?.organisationId ?? '';
 }
 
-async function applyChange(database: PlummetDb, change: SyncChange, waiting: Waiting, conflicts: Record<string, SyncConflict>, organisationId: string) {
+/** Whose phone this is: the page's profile, else the one stored, else the signed-in session's user. */
+async function userOf(database: PlummetDb, changes: SyncChange[]): Promise<string> {
+  for (const change of changes) if (change.type === 'user') return change.record.id;
+  const profile = await readMeta<{ id?: string }>(database, SYNC_META.profile);
+  const session = await readMeta<{ user?: { id?: string } }>(database, 'session');
+  return profile?.id ?? session?.user?.id ?? '';
+}
+
+/**
+ * A pulled inspection the phone keeps: one it holds already, a signed one (read-only, its report and
+ * findings readable on the phone), or one its own user carries out. Another inspector's walk still
+ * under way stays off the phone: only that inspector edits it, and the phone would offer to carry on with it.
+ */
+export function keepsInspection(inspection: { inspectorId: string; finishedAt: string | null }, me: string, held: boolean): boolean {
+  return held || inspection.finishedAt !== null || (me !== '' && inspection.inspectorId === me);
+}
+
+async function applyChange(database: PlummetDb, change: SyncChange, waiting: Waiting, conflicts: Record<string, SyncConflict>, organisationId: string, me: string) {
   switch (change.type) {
     case 'finding':
       if (!waiting.finding.has(change.record.id)) await putIfNewer(database, change.record as FindingRecord);
@@ -100,9 +119,7 @@ async function applyChange(database: PlummetDb, change: SyncChange, waiting: Wai
       // Any phone's signed report becomes its scaffold's last one here, readable offline.
       if (change.record.finishedAt) await keepSignedReport(database, { ...change.record, controlChecks: [], organisationId });
       const local = await database.inspections.get(change.record.id);
-      // Only walks already on this phone are updated for now: the finding editor treats findings of
-      // a finished inspection on the phone as read-only, which would lock the fix loop's edits.
-      if (!local) return;
+      if (!keepsInspection(change.record, me, local !== undefined)) return;
       const scaffold = await database.scaffolds.get(change.record.scaffoldId);
       const record: InspectionRecord = {
         ...change.record,

@@ -1,7 +1,5 @@
-/** What the app shows about sync: one small status store and its React hook (the only UI-facing part). */
+/** What the app shows about sync (the screens read it through features/sync/sync-hooks.ts). */
 import type { SyncConflict } from '@plummet/shared';
-import { useEffect, useState } from 'react';
-import type { SyncEngine } from './sync-engine';
 import type { RejectedMutation } from './sync-state';
 
 export interface SyncStatus {
@@ -15,23 +13,4 @@ export interface SyncStatus {
   rejected: RejectedMutation[];
   openConflicts: SyncConflict[];
   lastError: string | null;
-}
-
-/** The engine's status, refreshed whenever it changes state (and every `refreshMs` for the pending count). */
-export function useSyncStatus(engine: SyncEngine | undefined, refreshMs = 5000): SyncStatus | undefined {
-  const [status, setStatus] = useState<SyncStatus>();
-  useEffect(() => {
-    if (!engine) return undefined;
-    let live = true;
-    const refresh = () => void engine.status().then((s) => live && setStatus(s));
-    refresh();
-    const unsubscribe = engine.subscribe(refresh);
-    const timer = setInterval(refresh, refreshMs);
-    return () => {
-      live = false;
-      unsubscribe();
-      clearInterval(timer);
-    };
-  }, [engine, refreshMs]);
-  return status;
 }

@@ -28,7 +28,8 @@ export class SyncHttpError extends Error {
 
 export interface SyncTransport {
   push(body: SyncPush): Promise<SyncPushResponse>;
-  pull(cursor: string | undefined, limit: number, clientId?: string): Promise<SyncPullResponse>;
+  /** `siteId`: a first pull of that site alone (making it available offline), under its own cursor. */
+  pull(cursor: string | undefined, limit: number, clientId?: string, siteId?: string): Promise<SyncPullResponse>;
   /** An outbox change the push protocol does not carry, sent to its REST route (none today: kept for changes of older app versions). */
   send(entry: OutboxEntry): Promise<void>;
   uploadPhoto(photo: PhotoRecord, takenAt?: string): Promise<void>;
@@ -75,8 +76,8 @@ export function httpSyncTransport(fetchImpl: FetchLike): SyncTransport {
     async push(body) {
       return SyncPushResponseSchema.parse(await call(fetchImpl, '/sync/push', json('POST', body)));
     },
-    async pull(cursor, limit, clientId) {
-      const query = new URLSearchParams({ limit: String(limit), ...(cursor ? { cursor } : {}), ...(clientId ? { clientId } : {}) });
+    async pull(cursor, limit, clientId, siteId) {
+      const query = new URLSearchParams({ limit: String(limit), ...(cursor ? { cursor } : {}), ...(clientId ? { clientId } : {}), ...(siteId ? { siteId } : {}) });
       return SyncPullResponseSchema.parse(await call(fetchImpl, `/sync/pull?${query}`, json('GET')));
     },
     async send(entry) {

@@ -28,6 +28,7 @@ import { toControlCheck, toInspection } from '../inspections/inspection.mapper.j
 import { toPhoto } from '../photos/photo.mapper.js';
 import { toScaffold } from '../scaffolds/scaffold.mapper.js';
 import { toSite } from '../sites/site.mapper.js';
+import { findingsInScope, type PullScope, scaffoldsInScope, sitesInScope } from './sync-site-scope.js';
 
 /** One change of the feed with its stamp. */
 export interface StampedChange {
@@ -36,11 +37,9 @@ export interface StampedChange {
   change: SyncChange;
 }
 
-export interface FeedScope {
+export interface FeedScope extends PullScope {
   organisationId: string;
   userId: string;
-  /** Set for a foreman: only their scope travels. */
-  foremanId: string | undefined;
 }
 
 type Window = (xid: PgColumn, seq: PgColumn) => SQL;
@@ -77,23 +76,24 @@ const order = (table: { syncXid: PgColumn; syncSeq: PgColumn }) => [asc(table.sy
 
 /** Every reader of the feed besides findings and conflicts, each limited to `limit` rows. */
 export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window, limit: number): Reader[] {
-  const { organisationId: org, foremanId } = scope;
+  const { organisationId: org } = scope;
   const inOrg = (table: PgTable & { organisationId: PgColumn; syncXid: PgColumn; syncSeq: PgColumn }, extra?: SQL) =>
     and(eq(table.organisationId, org), window(table.syncXid, table.syncSeq), extra);
-  const f = foremanId;
-  const scopedScaffolds = f ? foremanScaffolds(f) : undefined;
-  const scopedFindings = f ? foremanFindings(f) : undefined;
+  // A foreman's scope, a site's first pull, or both (sync-site-scope.ts); undefined: the whole organisation.
+  const scopedScaffolds = scaffoldsInScope(scope);
+  const scopedFindings = findingsInScope(scope);
+  const scopedSites = sitesInScope(scope);
 
   return [
     read(
-      tx.select().from(sites).where(inOrg(sites, f ? sql`${sites.id} in (select site_id from scaffolds where id in ${scopedScaffolds})` : undefined)).orderBy(...order(sites)).limit(limit),
+      tx.select().from(sites).where(inOrg(sites, scopedSites ? sql`${sites.id} in ${scopedSites}` : undefined)).orderBy(...order(sites)).limit(limit),
       (row) => ({ type: 'site', record: toSite(row) }),
     ),
     read(
       tx
         .select()
         .from(scaffolds)
-        .where(inOrg(scaffolds, f ? sql`${scaffolds.id} in ${scopedScaffolds}` : isNull(scaffolds.archivedAt)))
+        .where(inOrg(scaffolds, scopedScaffolds ? sql`${scaffolds.id} in ${scopedScaffolds}` : isNull(scaffolds.archivedAt)))
         .orderBy(...order(scaffolds))
         .limit(limit),
       (row) => ({ type: 'scaffold', record: toScaffold(row) }),
@@ -102,7 +102,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       tx
         .select()
         .from(inspections)
-        .where(inOrg(inspections, f ? sql`${inspections.scaffoldId} in ${scopedScaffolds}` : undefined))
+        .where(inOrg(inspections, scopedScaffolds ? sql`${inspections.scaffoldId} in ${scopedScaffolds}` : undefined))
         .orderBy(...order(inspections))
         .limit(limit),
       (row) => ({ type: 'inspection', record: toInspection(row) }),
@@ -112,7 +112,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
         .select()
         .from(controlChecks)
         .where(
-          inOrg(controlChecks, f ? sql`${controlChecks.inspectionId} in (select id from inspections where scaffold_id in ${scopedScaffolds})` : undefined),
+          inOrg(controlChecks, scopedScaffolds ? sql`${controlChecks.inspectionId} in (select id from inspections where scaffold_id in ${scopedScaffolds})` : undefined),
         )
         .orderBy(...order(controlChecks))
         .limit(limit),
@@ -122,7 +122,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       tx
         .select({ row: fixes, photoIds: photoIdsOf('fix', fixes.id), syncXid: fixes.syncXid, syncSeq: fixes.syncSeq })
         .from(fixes)
-        .where(inOrg(fixes, f ? sql`${fixes.findingId} in ${scopedFindings}` : undefined))
+        .where(inOrg(fixes, scopedFindings ? sql`${fixes.findingId} in ${scopedFindings}` : undefined))
         .orderBy(...order(fixes))
         .limit(limit),
       ({ row, photoIds }) => ({
@@ -142,7 +142,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       tx
         .select({ row: verifications, photoIds: photoIdsOf('verification', verifications.id), syncXid: verifications.syncXid, syncSeq: verifications.syncSeq })
         .from(verifications)
-        .where(inOrg(verifications, f ? sql`${verifications.findingId} in ${scopedFindings}` : undefined))
+        .where(inOrg(verifications, scopedFindings ? sql`${verifications.findingId} in ${scopedFindings}` : undefined))
         .orderBy(...order(verifications))
         .limit(limit),
       ({ row, photoIds }) => ({
@@ -165,7 +165,7 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
         .where(
           inOrg(
             photos,
-            f
+            scopedFindings && scopedScaffolds
               ? sql`((${photos.ownerType} = 'finding' and ${photos.ownerId} in ${scopedFindings})
                   or (${photos.ownerType} = 'fix' and ${photos.ownerId} in (select id from fixes where finding_id in ${scopedFindings}))
                   or (${photos.ownerType} = 'verification' and ${photos.ownerId} in (select id from verifications where finding_id in ${scopedFindings}))

@@ -18,11 +18,11 @@ interface Change {
  * Every change after `cursor`, page by page, until `until` holds (the feed holds back rows while an
  * older transaction anywhere on the shared test cluster is still open).
  */
-async function pullAll(who: Who, cursor?: string, until: (changes: Change[]) => boolean = () => true) {
+async function pullAll(who: Who, cursor?: string, until: (changes: Change[]) => boolean = () => true, query = '') {
   const changes: Change[] = [];
   const deadline = Date.now() + 10_000;
   for (;;) {
-    const res = await api.call(who, 'GET', `/sync/pull?limit=200${cursor ? `&cursor=${cursor}` : ''}`);
+    const res = await api.call(who, 'GET', `/sync/pull?limit=200${cursor ? `&cursor=${cursor}` : ''}${query}`);
     expect(res.status).toBe(200);
     changes.push(...(res.body.changes as Change[]));
     cursor = res.body.cursor as string;
@@ -111,5 +111,42 @@ describe('tombstones', () => {
     expect(idsOf(fresh.changes, 'scaffold').has(scaffold.id)).toBe(false);
     const other = await pullAll('other:inspector');
     expect(hasTombstone(other.changes, 'scaffold', scaffold.id)).toBe(false);
+  });
+});
+
+describe('a first pull scoped to one site (making it available offline)', () => {
+  it('gives that site with its scaffolds, inspections, checks and findings, the catalogue and the profile, and nothing of another site', async () => {
+    const { changes } = await pullAll('demo:inspector', undefined, undefined, `&siteId=${DEMO.quaysideSite}`);
+    expect([...idsOf(changes, 'site')]).toEqual([DEMO.quaysideSite]);
+    const scaffolds = changes.filter((c) => c.type === 'scaffold');
+    expect(scaffolds.every((c) => c.record.siteId === DEMO.quaysideSite)).toBe(true);
+    for (const id of [DEMO.foremansScaffold, DEMO.unmannedScaffold]) expect(idsOf(changes, 'scaffold').has(id)).toBe(true);
+    for (const id of [DEMO.preShiftScaffold, DEMO.loadingBayScaffold]) expect(idsOf(changes, 'scaffold').has(id)).toBe(false);
+    const findings = changes.filter((c) => c.type === 'finding');
+    expect(findings.length).toBeGreaterThan(0);
+    expect(findings.every((c) => c.record.siteId === DEMO.quaysideSite)).toBe(true);
+    const onSite = idsOf(changes, 'scaffold');
+    expect(changes.filter((c) => c.type === 'inspection').every((c) => onSite.has(c.record.scaffoldId as string))).toBe(true);
+    const inspections = idsOf(changes, 'inspection');
+    expect(changes.filter((c) => c.type === 'control-check').every((c) => inspections.has(c.record.inspectionId as string))).toBe(true);
+    const findingIds = idsOf(changes, 'finding');
+    expect(changes.filter((c) => c.type === 'fix' || c.type === 'verification').every((c) => findingIds.has(c.record.findingId as string))).toBe(true);
+    expect([...idsOf(changes, 'user')]).toEqual([api.userIds['demo:inspector']]);
+  });
+
+  it('gives a foreman only their part of the site, and another organisation nothing of it', async () => {
+    const foreman = await pullAll('demo:foreman', undefined, undefined, `&siteId=${DEMO.fennelSite}`);
+    expect(idsOf(foreman.changes, 'scaffold').has(DEMO.preShiftScaffold)).toBe(true);
+    expect(idsOf(foreman.changes, 'scaffold').has(DEMO.loadingBayScaffold)).toBe(false);
+    expect(idsOf(foreman.changes, 'scaffold').has(DEMO.foremansScaffold)).toBe(false);
+    expect([...idsOf(foreman.changes, 'site')]).toEqual([DEMO.fennelSite]);
+
+    const other = await pullAll('other:manager', undefined, undefined, `&siteId=${DEMO.quaysideSite}`);
+    expect(other.changes.filter((c) => !['user', 'catalogue-item', 'tombstone', 'conflict'].includes(c.type))).toEqual([]);
+  });
+
+  it('refuses a site that is not an id', async () => {
+    const res = await api.call('demo:inspector', 'GET', '/sync/pull?siteId=quayside');
+    expect(res.status).toBe(400);
   });
 });

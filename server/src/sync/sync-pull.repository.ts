@@ -63,10 +63,11 @@ export class SyncPullRepository {
     // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
     // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
     const scoped = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
+    const onSite = scope.siteId ? sql`and s.site_id = ${scope.siteId}` : sql``;
     const findingRows = await tx.execute<Record<string, unknown>>(sql`
       select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
       from findings join scaffolds s on s.id = findings.scaffold_id
-      where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped}
+      where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped} ${onSite}
       order by findings.sync_xid, findings.sync_seq
       limit ${limit}`);
     // A foreman sees no conflicts: settling them is for inspectors and managers.

@@ -8,7 +8,8 @@ import { SyncRepository } from './sync.repository.js';
 /**
  * GET /api/sync/pull: the caller's changes after a cursor, oldest first, a page at a time. Scoped
  * to the organisation; a foreman gets only their scope (see sync-feed-tables.ts). Every record type
- * a phone holds travels here, and tombstones name the records to drop.
+ * a phone holds travels here, and tombstones name the records to drop. With `siteId`, a first pull
+ * of that site alone (a phone making the site available offline), under its own cursor.
  */
 @Injectable()
 export class SyncPullService {
@@ -24,7 +25,7 @@ export class SyncPullService {
     // One REPEATABLE READ snapshot: one horizon for every table of the feed (see SyncPullRepository).
     const page = await this.db.transaction(
       async (tx) => {
-        const scope = { organisationId: user.organisationId, userId: user.userId, foremanId };
+        const scope = { organisationId: user.organisationId, userId: user.userId, foremanId, siteId: query.siteId };
         const feed = await this.pull.changes(scope, { xid, seq: Number(seq) }, query.limit + 1, tx);
         const page = feed.slice(0, query.limit);
         const changes = page.map((c) => c.change);

@@ -147,6 +147,12 @@ export const SyncPullQuerySchema = z.object({
   cursor: SyncCursorSchema.optional(),
   /** The phone's id: the server notes the versions it hands it (a later push's base version is checked against them). */
   clientId: IdSchema.optional(),
+  /**
+   * Only this site's records (its scaffolds, inspections and checks, findings with their fixes,
+   * verifications and photos), with the organisation's catalogue and the caller's profile: the first
+   * pull of a site a phone makes available offline. Its cursor is its own, not the phone's feed cursor.
+   */
+  siteId: IdSchema.optional(),
   limit: z.coerce.number().int().min(1).max(SYNC_PULL_MAX).default(500),
 });
 export type SyncPullQuery = z.infer<typeof SyncPullQuerySchema>;

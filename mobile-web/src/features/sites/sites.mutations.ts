@@ -4,9 +4,8 @@ import { db, writeMeta } from '../../local-db/db';
 import { currentSyncEngine } from '../../sync/app-sync';
 import { downloadSite, type SiteDownloadResult } from '../../sync/download-site';
 import { requestPersistentStorage, type StorageReport } from '../../sync/storage';
-import { fetchCatalogue } from '../catalogue/catalogue.api';
-import { fetchOpenFindingsOfSite } from '../findings/findings.api';
-import { fetchScaffoldsOfSite } from '../scaffolds/scaffolds.api';
+import { httpSyncTransport } from '../../sync/sync-transport';
+import { fetchWithAccessToken } from '../../api/authorised-fetch';
 
 export const STORAGE_REPORT_KEY = 'storage-report';
 
@@ -20,13 +19,9 @@ export function useMakeSiteOfflineMutation() {
   return useMutation({
     mutationFn: async ({ site, organisationId }: { site: Site; organisationId: string }): Promise<OfflineCopyResult> => {
       // Syncing first sends what waits in the outbox and brings the change feed up to date; the
-      // download then adds the site's open findings, whole, that the feed has not brought.
+      // download is then the site's first pull: its records from the start of the feed.
       await currentSyncEngine()?.sync();
-      const download = await downloadSite(db, site, organisationId, {
-        scaffolds: fetchScaffoldsOfSite,
-        openFindings: fetchOpenFindingsOfSite,
-        catalogue: fetchCatalogue,
-      });
+      const download = await downloadSite(db, site, organisationId, httpSyncTransport(fetchWithAccessToken(db)));
       const storage = await requestPersistentStorage();
       await writeMeta(db, STORAGE_REPORT_KEY, { ...storage, at: new Date().toISOString() });
       return { download, storage };

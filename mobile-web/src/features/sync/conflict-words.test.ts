@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { canTypeValue, fieldWords, parseTypedValue, valueWords } from './conflict-words';
+import { formatDateTime } from '../../lib/format-date';
+import { canTypeValue, fieldWords, parseTypedValue, replacedWords, valueWords } from './conflict-words';
 
 describe('conflict words', () => {
   it('names fields and shows values in the user’s units', () => {
@@ -17,5 +18,13 @@ describe('conflict words', () => {
     expect(parseTypedValue('heightM', '10', 'imperial')).toEqual({ value: expect.closeTo(3.048, 6) });
     expect(canTypeValue('item')).toBe(false);
     expect(parseTypedValue('item', 'x', 'si')).toHaveProperty('problem');
+  });
+
+  it('names who wrote the replaced value and when', () => {
+    const me = '0a000000-0000-4000-8000-000000000001';
+    const at = '2026-03-02T08:15:00.000Z';
+    expect(replacedWords({ replacedUserId: me, replacedAt: at }, me)).toBe(`written by you, ${formatDateTime(at)}`);
+    expect(replacedWords({ replacedUserId: '0a000000-0000-4000-8000-000000000002', replacedAt: at }, me)).toBe(`written by another user, ${formatDateTime(at)}`);
+    expect(replacedWords({ replacedUserId: null, replacedAt: null }, me)).toBe('written on another phone');
   });
 });

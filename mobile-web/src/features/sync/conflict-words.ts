@@ -2,7 +2,8 @@
  * How a conflict's field and values read on screen, and how a typed value becomes one the server
  * accepts. Values stay SI; units are applied only here, at the screen's edge.
  */
-import type { FindingExposure } from '@plummet/shared';
+import type { FindingExposure, SyncConflict } from '@plummet/shared';
+import { formatDateTime } from '../../lib/format-date';
 import { EXPOSURE_WORDS } from '../findings/finding-words';
 import { formatQuantity, parseQuantity, type Units } from '../../lib/units';
 
@@ -56,4 +57,10 @@ export function parseTypedValue(field: string, text: string, units: Units): { va
     return metres !== undefined && metres > 0 ? { value: metres } : { problem: 'Type a height above zero.' };
   }
   return { problem: 'Choose this value in the finding editor.' };
+}
+
+/** Who wrote the value that did not stand, and when, as far as the server knows (older conflicts may not say). */
+export function replacedWords(conflict: Pick<SyncConflict, 'replacedUserId' | 'replacedAt'>, userId: string | undefined): string {
+  const who = conflict.replacedUserId === null ? 'written on another phone' : `written by ${conflict.replacedUserId === userId ? 'you' : 'another user'}`;
+  return conflict.replacedAt ? `${who}, ${formatDateTime(conflict.replacedAt)}` : who;
 }

@@ -1,6 +1,7 @@
 import { mustBeMadeSafeNow, type Foreman } from '@plummet/shared';
 import { IonButton, IonContent, IonFooter, useIonRouter } from '@ionic/react';
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import { AppHeader } from '../../../components/AppHeader';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { FormSection } from '../../../components/FormSection';
@@ -16,6 +17,7 @@ import { heightOfLift, readFindingForm, type FindingForm, type HeightMode } from
 import { buildFindingRecord, tryEstimate, type FindingOwner } from '../finding-record';
 import { useWindUnits } from '../../auth/session.queries';
 import { useSaveFindingMutation } from '../findings.mutations';
+import type { FindingLock } from '../finding-lock';
 import { EstimatePanel, EstimateStrip } from './EstimatePanel';
 import { ExposureChoice } from './ExposureChoice';
 import { HowComputedSheet } from './HowComputedSheet';
@@ -32,7 +34,8 @@ interface FindingEditorProps {
   windSpeedMps: number | null;
   units: Units;
   backHref: string;
-  readOnly: boolean;
+  /** Set when the editor is read-only: why, and the fix loop's page where the finding is made safe or fixed. */
+  lock: FindingLock | null;
   /** The organisation's foremen, to give the finding to one (empty: the choice is hidden). */
   foremen?: readonly Foreman[];
 }
@@ -42,7 +45,7 @@ interface FindingEditorProps {
  * The finding form. The estimate is computed in render from the form (shared estimateFinding →
  * assessDrop, synchronous, no debounce), so it follows every keystroke within the same frame.
  */
-export function FindingEditor({ initialForm, existing, owner, scaffold, catalogue, storedPhotos, windSpeedMps, units, backHref, readOnly, foremen = [] }: FindingEditorProps) {
+export function FindingEditor({ initialForm, existing, owner, scaffold, catalogue, storedPhotos, windSpeedMps, units, backHref, lock, foremen = [] }: FindingEditorProps) {
   const router = useIonRouter();
   const save = useSaveFindingMutation();
   const windUnits = useWindUnits();
@@ -88,9 +91,12 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
       </AppHeader>
       <IonContent className="ion-padding" data-testid="finding-editor">
         <div className="page-body">
-          {readOnly && (
+          {lock && (
             <p className="empty-note" data-testid="finding-read-only">
-              This finding belongs to a signed inspection, so it cannot be changed here; its fix goes through the fix list.
+              {lock.reason}{' '}
+              <Link to={lock.fixHref} data-testid="finding-fix-link">
+                Open the fix list
+              </Link>
             </p>
           )}
           <FormSection title="Photos">
@@ -214,7 +220,7 @@ export function FindingEditor({ initialForm, existing, owner, scaffold, catalogu
           <IonButton fill="outline" onClick={leave}>
             Cancel
           </IonButton>
-          <IonButton disabled={save.isPending || readOnly} onClick={submit} data-testid="save-finding">
+          <IonButton disabled={save.isPending || lock !== null} onClick={submit} data-testid="save-finding">
             {existing ? 'Save changes' : 'Save finding'}
           </IonButton>
         </div>

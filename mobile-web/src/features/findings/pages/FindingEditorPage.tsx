@@ -11,6 +11,7 @@ import { useInspection } from '../../inspections/inspections.queries';
 import { usePhotos } from '../../photos/photos.queries';
 import { useScaffold } from '../../scaffolds/scaffolds.queries';
 import { FindingEditor } from '../components/FindingEditor';
+import { findingLock } from '../finding-lock';
 import { formOfFinding, newFindingForm } from '../finding-form';
 import { useFinding } from '../findings.queries';
 import { useForemen } from '../foremen.queries';
@@ -93,7 +94,7 @@ export function FindingEditorPage() {
         windSpeedMps={windSpeedMps}
         units={units}
         backHref={backHref}
-        readOnly={inspection?.status === 'finished' && !!existing}
+        lock={findingLock({ role: session.user.role, findingId: existing?.id, inspectionSigned: inspection?.status === 'finished' || !!inspection?.signedAt })}
         foremen={session.user.role === 'foreman' ? [] : (foremen ?? [])}
       />
     </IonPage>

@@ -6,7 +6,7 @@ import { Link } from 'react-router-dom';
 import { formatDateTime } from '../../../lib/format-date';
 import { db } from '../../../local-db/db';
 import type { Units } from '../../../lib/units';
-import { canTypeValue, fieldWords, parseTypedValue, valueWords } from '../conflict-words';
+import { canTypeValue, fieldWords, parseTypedValue, replacedWords, valueWords } from '../conflict-words';
 import { describeResolveError, useResolveConflictMutation } from '../conflicts.mutations';
 
 interface ConflictCardProps {
@@ -67,7 +67,7 @@ export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
       <dl className="conflict-card__values">
         <dt>Now in place — written by {winner}, {formatDateTime(conflict.createdAt)}</dt>
         <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
-        <dt>Replaced — the earlier value, written on another phone</dt>
+        <dt data-testid="conflict-replaced-by">Replaced — {replacedWords(conflict, userId)}</dt>
         <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
       </dl>
       <div className="conflict-card__actions">
@@ -107,3 +107,4 @@ export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
     </article>
   );
 }
+
