@@ -71,9 +71,15 @@ export class SyncPullRepository {
     const others = readOtherTables(tx, scope, window, limit);
     const findingsInWindow = and(eq(findings.organisationId, organisationId), window(findings.syncXid, findings.syncSeq));
     const conflictsInWindow = and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq));
-    // Which tables have rows in the window, in one statement; only those are read.
+    // Which tables have rows in the window, in one statement; only those are read. The same statement
+    // turns sorting off for the rest of this read-only transaction: every read below wants its rows
+    // in feed order from the table's feed index, stopping at the limit. PostgreSQL cannot estimate
+    // how many rows lie past an xid8 cursor, and with a low guess it would rather sort every row of
+    // the organisation after the cursor (turning each one's jsonb into text first) than walk the index.
     const probes = [sql`exists (select 1 from ${findings} where ${findingsInWindow})`, sql`exists (select 1 from ${syncConflicts} where ${conflictsInWindow})`, ...others.map((r) => r.changed)];
-    const [probe] = (await tx.execute<{ changed: boolean[] }>(sql`select array[${sql.join(probes, sql`, `)}] as changed`)).rows;
+    const [probe] = (
+      await tx.execute<{ changed: boolean[] }>(sql`select set_config('enable_sort', 'off', true), array[${sql.join(probes, sql`, `)}] as changed`)
+    ).rows;
     const [findingsChanged, conflictsChanged, ...othersChanged] = probe!.changed;
     // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
     // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
