@@ -46,16 +46,35 @@ function asStored(row: FindingRow): FindingRow {
   return { ...row, heightM: realAsRead(row.heightM), massKg: realAsRead(row.massKg), zoneRadiusM: row.zoneRadiusM === null ? null : realAsRead(row.zoneRadiusM) };
 }
 
+/** What the mutations applied since the last take() wrote, to go to the database in a few multi-row statements. */
+export interface BatchPart {
+  insert: FindingRow[];
+  update: FindingRow[];
+  conflicts: ConflictInsert[];
+  fixes: FixInsert[];
+  verifications: VerificationInsert[];
+  audits: AuditChange[];
+  altered: { scaffoldId: string; at: Date }[];
+  assignedMails: { findingId: string; assigneeId: string }[];
+}
+
 /**
  * A push applied in memory: the findings of the batch are loaded (and locked) up front, each
  * mutation reads and changes these rows with the same rules as the statement-by-statement path,
- * and flush() writes the outcome with a few multi-row statements. begin()/rollback() undo what a
- * rejected mutation did, as the per-mutation savepoint does in the database.
+ * and the outcome is written with a few multi-row statements: take() hands over what the mutations
+ * since the last take() computed, write() writes it (so a long batch can write its first part while
+ * the next one is computed), flush() does both. begin()/rollback() undo what a rejected mutation
+ * did, as the per-mutation savepoint does in the database.
  */
 export class BatchSyncStore implements FindingStore {
   private readonly rows = new Map<string, BatchFinding>();
   private readonly created = new Set<string>();
   private readonly changed = new Set<string>();
+  /** Findings changed or made since the last take(); of the made ones, those already inserted. */
+  private readonly dirty = new Set<string>();
+  private readonly inserted = new Set<string>();
+  /** How much of each list earlier take()s handed over. */
+  private taken = { conflicts: 0, fixes: 0, verifications: 0, audits: 0, altered: 0, assignedMails: 0 };
   private readonly inspections = new Map<string, InspectionRow | undefined>();
   private readonly catalogue = new Map<string, CatalogueItemRow | undefined>();
   private conflicts: ConflictInsert[] = [];
@@ -175,9 +194,11 @@ export class BatchSyncStore implements FindingStore {
     });
     this.rows.set(finding.id, { finding, scaffoldForemanId: scaffold.foremanId, siteId: scaffold.siteId });
     this.created.add(finding.id);
+    this.dirty.add(finding.id);
     this.undo.push(() => {
       this.rows.delete(finding.id);
       this.created.delete(finding.id);
+      this.dirty.delete(finding.id);
     });
     return finding;
   }
@@ -186,11 +207,14 @@ export class BatchSyncStore implements FindingStore {
     const before = this.rows.get(id)!;
     const finding = asStored({ ...before.finding, ...(defined(changes) as Partial<FindingRow>), version: before.finding.version + 1, updatedAt: this.now_ });
     const wasChanged = this.changed.has(id);
+    const wasDirty = this.dirty.has(id);
     this.rows.set(id, { ...before, finding });
     if (!this.created.has(id)) this.changed.add(id);
+    this.dirty.add(id);
     this.undo.push(() => {
       this.rows.set(id, before);
       if (!wasChanged) this.changed.delete(id);
+      if (!wasDirty) this.dirty.delete(id);
     });
     return finding;
   }
@@ -217,19 +241,59 @@ export class BatchSyncStore implements FindingStore {
     this.assignedMails.push({ findingId, assigneeId });
   }
 
-  /** Writes everything; call inside a savepoint. Throws BatchFallback when the database would not take it as computed. */
-  async flush(tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
-    const created = [...this.created].map((id) => this.rows.get(id)!.finding);
-    const changed = [...this.changed].map((id) => this.rows.get(id)!.finding);
-    if ((await repo.insertFindings(created, tx)) !== created.length) throw new BatchFallback('a finding id was taken meanwhile');
-    if ((await repo.updateFindings(changed, tx)) !== changed.length) throw new BatchFallback('a finding changed meanwhile');
-    if ((await repo.insertFixes(this.fixes, tx)) !== this.fixes.length) throw new BatchFallback('a fix record id is taken');
-    if ((await repo.insertVerifications(this.verifications, tx)) !== this.verifications.length) throw new BatchFallback('a verification record id is taken');
-    await repo.insertConflicts(this.conflicts, tx);
-    for (const { scaffoldId, at } of this.altered) await repo.markScaffoldAltered(scaffoldId, at, tx);
-    await audit.recordMany(tx, this.user, this.audits);
+  /**
+   * What the mutations since the last take() wrote (call between mutations, never inside one): the
+   * findings they made (inserted) or changed (updated, also one made in an earlier part) as they
+   * now stand, and the rows they added to every other list.
+   */
+  take(): BatchPart {
+    const insert: FindingRow[] = [];
+    const update: FindingRow[] = [];
+    for (const id of this.dirty) {
+      const finding = this.rows.get(id)!.finding;
+      if (this.created.has(id) && !this.inserted.has(id)) {
+        insert.push(finding);
+        this.inserted.add(id);
+      } else update.push(finding);
+    }
+    this.dirty.clear();
+    const from = this.taken;
+    this.taken = {
+      conflicts: this.conflicts.length,
+      fixes: this.fixes.length,
+      verifications: this.verifications.length,
+      audits: this.audits.length,
+      altered: this.altered.length,
+      assignedMails: this.assignedMails.length,
+    };
+    return {
+      insert,
+      update,
+      conflicts: this.conflicts.slice(from.conflicts),
+      fixes: this.fixes.slice(from.fixes),
+      verifications: this.verifications.slice(from.verifications),
+      audits: this.audits.slice(from.audits),
+      altered: this.altered.slice(from.altered),
+      assignedMails: this.assignedMails.slice(from.assignedMails),
+    };
+  }
+
+  /** Writes a part; call inside a savepoint, parts in the order taken. Throws BatchFallback when the database would not take it as computed. */
+  async write(part: BatchPart, tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
+    if ((await repo.insertFindings(part.insert, tx)) !== part.insert.length) throw new BatchFallback('a finding id was taken meanwhile');
+    if ((await repo.updateFindings(part.update, tx)) !== part.update.length) throw new BatchFallback('a finding changed meanwhile');
+    if ((await repo.insertFixes(part.fixes, tx)) !== part.fixes.length) throw new BatchFallback('a fix record id is taken');
+    if ((await repo.insertVerifications(part.verifications, tx)) !== part.verifications.length) throw new BatchFallback('a verification record id is taken');
+    await repo.insertConflicts(part.conflicts, tx);
+    for (const { scaffoldId, at } of part.altered) await repo.markScaffoldAltered(scaffoldId, at, tx);
+    await audit.recordMany(tx, this.user, part.audits);
     // Queued through the statement-by-statement store, which runs on the same transaction.
-    for (const { findingId, assigneeId } of this.assignedMails) await this.reads.assignedHigh(findingId, assigneeId);
+    for (const { findingId, assigneeId } of part.assignedMails) await this.reads.assignedHigh(findingId, assigneeId);
+  }
+
+  /** Writes everything not written yet; call inside a savepoint. */
+  async flush(tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
+    await this.write(this.take(), tx, repo, audit);
   }
 
   /** The ids of the findings flush() wrote. */

@@ -30,7 +30,15 @@ type FindingColumn = (typeof INSERTED)[number];
 /** Rows as a JSON array keyed by column name (timestamps as ISO text, jsonb columns as JSON). */
 function asJson(rows: FindingRow[], columns: readonly FindingColumn[]): string {
   const names = columns.map((c) => [c, findings[c].name] as const);
-  return JSON.stringify(rows.map((row) => Object.fromEntries(names.map(([key, name]) => [name, row[key] ?? null]))));
+  const out: Record<string, unknown>[] = new Array(rows.length);
+  // A plain loop: a thousand rows of thirty columns, without a pair array per cell.
+  for (let i = 0; i < rows.length; i += 1) {
+    const row = rows[i]!;
+    const record: Record<string, unknown> = {};
+    for (const [key, name] of names) record[name] = row[key] ?? null;
+    out[i] = record;
+  }
+  return JSON.stringify(out);
 }
 
 /** A finding of the batch with what its answer and scope need from its scaffold. */

@@ -65,11 +65,28 @@ function optional<T>(row: object, key: string): T | null {
   return ((row as Record<string, unknown>)[key] as T | undefined) ?? null;
 }
 
-/** A reader: the query runs when called (one statement at a time on the pull's connection). */
-type Reader = () => Promise<StampedChange[]>;
+/**
+ * A reader: `read` runs its query when called (one statement at a time on the pull's connection);
+ * `changed` is an EXISTS over the table's rows in the window (the organisation's, whatever the
+ * scope: it may say yes for nothing, never no for something). The pull asks every table's
+ * `changed` in one statement and reads only those that answer yes, so a page of findings, or a feed
+ * with nothing new, costs one round trip instead of one per table.
+ */
+export interface Reader {
+  changed: SQL;
+  read: () => Promise<StampedChange[]>;
+}
 
-function read<T extends { syncXid: string; syncSeq: number }>(rows: PromiseLike<T[]>, toChange: (row: T) => SyncChange): Reader {
-  return async () => (await rows).map((row) => ({ xid: row.syncXid, seq: row.syncSeq, change: toChange(row) }));
+function read<T extends { syncXid: string; syncSeq: number }>(
+  table: PgTable,
+  inWindow: SQL | undefined,
+  rows: PromiseLike<T[]>,
+  toChange: (row: T) => SyncChange,
+): Reader {
+  return {
+    changed: sql`exists (select 1 from ${table} where ${inWindow})`,
+    read: async () => (await rows).map((row) => ({ xid: row.syncXid, seq: row.syncSeq, change: toChange(row) })),
+  };
 }
 
 const order = (table: { syncXid: PgColumn; syncSeq: PgColumn }) => [asc(table.syncXid), asc(table.syncSeq)];
@@ -86,10 +103,14 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
 
   return [
     read(
+      sites,
+      inOrg(sites),
       tx.select().from(sites).where(inOrg(sites, scopedSites ? sql`${sites.id} in ${scopedSites}` : undefined)).orderBy(...order(sites)).limit(limit),
       (row) => ({ type: 'site', record: toSite(row) }),
     ),
     read(
+      scaffolds,
+      inOrg(scaffolds),
       tx
         .select()
         .from(scaffolds)
@@ -99,6 +120,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       (row) => ({ type: 'scaffold', record: toScaffold(row) }),
     ),
     read(
+      inspections,
+      inOrg(inspections),
       tx
         .select()
         .from(inspections)
@@ -108,6 +131,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       (row) => ({ type: 'inspection', record: toInspection(row) }),
     ),
     read(
+      controlChecks,
+      inOrg(controlChecks),
       tx
         .select()
         .from(controlChecks)
@@ -119,6 +144,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       (row) => ({ type: 'control-check', record: toControlCheck(row) }),
     ),
     read(
+      fixes,
+      inOrg(fixes),
       tx
         .select({ row: fixes, photoIds: photoIdsOf('fix', fixes.id), syncXid: fixes.syncXid, syncSeq: fixes.syncSeq })
         .from(fixes)
@@ -139,6 +166,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       }),
     ),
     read(
+      verifications,
+      inOrg(verifications),
       tx
         .select({ row: verifications, photoIds: photoIdsOf('verification', verifications.id), syncXid: verifications.syncXid, syncSeq: verifications.syncSeq })
         .from(verifications)
@@ -159,6 +188,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       }),
     ),
     read(
+      photos,
+      inOrg(photos),
       tx
         .select()
         .from(photos)
@@ -178,10 +209,14 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       (row) => ({ type: 'photo', record: toPhoto(row) }),
     ),
     read(
+      catalogueItems,
+      inOrg(catalogueItems),
       tx.select().from(catalogueItems).where(inOrg(catalogueItems)).orderBy(...order(catalogueItems)).limit(limit),
       (row) => ({ type: 'catalogue-item', record: toCatalogueItem(row) }),
     ),
     read(
+      users,
+      and(eq(users.id, scope.userId), window(users.syncXid, users.syncSeq)),
       tx
         .select({
           id: users.id,
@@ -206,6 +241,8 @@ export function readOtherTables(tx: DbExecutor, scope: FeedScope, window: Window
       }),
     ),
     read(
+      syncTombstones,
+      inOrg(syncTombstones),
       tx
         .select()
         .from(syncTombstones)

@@ -4,17 +4,25 @@ import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
 import { FINDING_API_COLUMNS, type FindingApiRow } from '../findings/finding.mapper.js';
 import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
+import { rawJson } from './raw-json.js';
 import { toSyncConflict, toSyncFinding } from './sync.mapper.js';
 
 const findingApiColumns = FINDING_API_COLUMNS.map((key) => [key, findings[key]] as const);
-const findingSelectList = sql.raw(findingApiColumns.map(([, column]) => `findings.${column.name}`).join(', '));
+/** jsonb columns travel as text and into the answer unparsed (raw-json.ts): the estimate is most of a page. */
+const isJsonb = (column: AnyColumn) => column.getSQLType() === 'jsonb';
+const findingSelectList = sql.raw(
+  findingApiColumns.map(([, column]) => (isJsonb(column) ? `findings.${column.name}::text as ${column.name}` : `findings.${column.name}`)).join(', '),
+);
+const findingDecoders = findingApiColumns.map(
+  ([key, column]) => [key, column.name, isJsonb(column) ? rawJson : (value: unknown) => column.mapFromDriverValue(value as never)] as const,
+);
 
-/** A raw findings row (column names as in the table) as a typed select would give it. */
+/** A raw findings row (column names as in the table) as a typed select would give it, its jsonb still text (RawJson). */
 function decodeFinding(raw: Record<string, unknown>): FindingApiRow {
   const row: Record<string, unknown> = {};
-  for (const [key, column] of findingApiColumns) {
-    const value = raw[column.name];
-    row[key] = value === null || value === undefined ? null : column.mapFromDriverValue(value as never);
+  for (const [key, name, decode] of findingDecoders) {
+    const value = raw[name];
+    row[key] = value === null || value === undefined ? null : decode(value);
   }
   return row as FindingApiRow;
 }
@@ -60,37 +68,46 @@ export class SyncPullRepository {
     const window = (xid: AnyColumn, seq: AnyColumn) =>
       sql`(${xid}, ${seq}) > (${after.xid}::xid8, ${after.seq}::bigint) and ${xid} < ${horizon}`;
     const { organisationId, foremanId } = scope;
+    const others = readOtherTables(tx, scope, window, limit);
+    const findingsInWindow = and(eq(findings.organisationId, organisationId), window(findings.syncXid, findings.syncSeq));
+    const conflictsInWindow = and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq));
+    // Which tables have rows in the window, in one statement; only those are read. The same statement
+    // turns sorting off for the rest of this read-only transaction: every read below wants its rows
+    // in feed order from the table's feed index, stopping at the limit. PostgreSQL cannot estimate
+    // how many rows lie past an xid8 cursor, and with a low guess it would rather sort every row of
+    // the organisation after the cursor (turning each one's jsonb into text first) than walk the index.
+    const probes = [sql`exists (select 1 from ${findings} where ${findingsInWindow})`, sql`exists (select 1 from ${syncConflicts} where ${conflictsInWindow})`, ...others.map((r) => r.changed)];
+    const [probe] = (
+      await tx.execute<{ changed: boolean[] }>(sql`select set_config('enable_sort', 'off', true), array[${sql.join(probes, sql`, `)}] as changed`)
+    ).rows;
+    const [findingsChanged, conflictsChanged, ...othersChanged] = probe!.changed;
     // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
     // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
     const scoped = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
     const onSite = scope.siteId ? sql`and s.site_id = ${scope.siteId}` : sql``;
-    const findingRows = await tx.execute<Record<string, unknown>>(sql`
+    const found = findingsChanged
+      ? await tx.execute<Record<string, unknown>>(sql`
       select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
       from findings join scaffolds s on s.id = findings.scaffold_id
       where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped} ${onSite}
       order by findings.sync_xid, findings.sync_seq
-      limit ${limit}`);
+      limit ${limit}`)
+      : { rows: [] };
     // A foreman sees no conflicts: settling them is for inspectors and managers.
-    const conflictRows = foremanId
-      ? []
-      : await tx
-          .select()
-          .from(syncConflicts)
-          .where(and(eq(syncConflicts.organisationId, organisationId), window(syncConflicts.syncXid, syncConflicts.syncSeq)))
-          .orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq))
-          .limit(limit);
+    const conflicts =
+      foremanId || !conflictsChanged
+        ? []
+        : await tx.select().from(syncConflicts).where(conflictsInWindow).orderBy(asc(syncConflicts.syncXid), asc(syncConflicts.syncSeq)).limit(limit);
     // One connection runs one statement at a time (pg refuses overlapping queries): one after another.
-    const found = await findingRows;
-    const conflicts = await conflictRows;
-    const others: StampedChange[][] = [];
-    for (const reader of readOtherTables(tx, scope, window, limit)) others.push(await reader());
+    const otherRows: StampedChange[][] = [];
+    for (const [i, reader] of others.entries()) if (othersChanged[i]) otherRows.push(await reader.read());
     const out: StampedChange[] = found.rows.map((r) => ({
       xid: r.feed_xid as string,
       seq: Number(r.feed_seq),
       change: { type: 'finding', record: toSyncFinding(decodeFinding(r), r.feed_site_id as string, now) },
     }));
     for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c) } });
-    for (const part of others) out.push(...part);
+    for (const part of otherRows) out.push(...part);
     return out.sort(feedOrder).slice(0, limit);
   }
 

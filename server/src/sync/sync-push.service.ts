@@ -16,6 +16,11 @@ import { SyncPullRepository } from './sync-pull.repository.js';
 import { toSyncFinding } from './sync.mapper.js';
 import { SyncRepository, type SyncMutationLogRow } from './sync.repository.js';
 
+/** Mutations per part written while the next part is computed (applyInMemory). */
+const WRITE_PART = 250;
+/** Mutations between two turns of the event loop while a batch is computed in memory. */
+const YIELD_EVERY = 25;
+
 /**
  * POST /api/sync/push: a phone's batch of mutations applied in ONE transaction, together with the
  * phone's counter (its row locked FOR UPDATE, so replicas cannot interleave two batches of one
@@ -150,19 +155,40 @@ export class SyncPushService {
     return { results, stored: undefined };
   }
 
-  /** Inside the batch's savepoint: every mutation in memory, then a few multi-row writes, then the written rows checked. */
+  /**
+   * Inside the batch's savepoint: every mutation in memory, then a few multi-row writes, then the
+   * written rows checked. A long batch is written in parts as it goes: while PostgreSQL stores one
+   * part, the next is computed (the parts are written in order, on the one connection).
+   */
   private async applyInMemory(sp: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
     const loaded = await this.batch.lockFindings(fresh.map((m) => m.entityId), sp);
     const store = new BatchSyncStore(this.findingSync.dbStore(sp, user, new Map()), user, loaded, await this.batch.now(sp));
     const results: SyncMutationResult[] = [];
-    for (const m of fresh) {
+    let writing: Promise<void> = Promise.resolve();
+    const writeBehind = () => {
+      const part = store.take();
+      writing = writing.then(() => store.write(part, sp, this.batch, this.audit));
+      // Awaited before anything else can fail on its account; meanwhile not an unhandled rejection.
+      writing.catch(() => undefined);
+    };
+    for (const [i, m] of fresh.entries()) {
       store.begin();
-      // A database error here has aborted the savepoint: it propagates, and the batch goes one by one.
-      const result = await this.applyOne(m, () => this.findingSync.apply(store, { user, clientId, mutationId: m.id }, m), true);
+      let result: SyncMutationResult;
+      try {
+        // A database error here has aborted the savepoint: it propagates, and the batch goes one by one.
+        result = await this.applyOne(m, () => this.findingSync.apply(store, { user, clientId, mutationId: m.id }, m), true);
+      } catch (error) {
+        await writing; // a part that failed to write is the cause to report
+        throw error;
+      }
       if (result.outcome === 'rejected') store.rollback();
       results.push(result);
+      if ((i + 1) % WRITE_PART === 0 && i + 1 < fresh.length) writeBehind();
+      // Mutations in memory never wait for I/O: let the connection send and read meanwhile.
+      if ((i + 1) % YIELD_EVERY === 0) await new Promise((resolve) => setImmediate(resolve));
     }
-    await store.flush(sp, this.batch, this.audit);
+    writeBehind();
+    await writing;
     if (!store.matchesStored(await this.batch.readChecked(store.written(), sp))) throw new BatchFallback('a finding reads back differently');
     // The answer's records come from the rows in memory (loaded and locked here, or written and checked just now).
     const { found, missing } = store.current(touched);

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Query, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   SyncConflictListQuerySchema,
@@ -15,6 +15,7 @@ import { AcceptsEndedSession, CurrentUser, Roles } from '../auth/auth.decorators
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';
 import { EndedSessionPushes } from './ended-session-pushes.js';
+import { jsonAnswer, stringifyWithRawJson } from './raw-json.js';
 import { SyncConflictsService } from './sync-conflicts.service.js';
 import { SyncPullService } from './sync-pull.service.js';
 import { SyncPushService } from './sync-push.service.js';
@@ -47,16 +48,17 @@ export class SyncController {
   @HttpCode(200)
   @AcceptsEndedSession()
   @ApiOkResponse({ type: SyncPushResponseDto })
-  async push(@CurrentUser() user: AuthUser, @Body() body: SyncPushDto) {
+  async push(@CurrentUser() user: AuthUser, @Body() body: SyncPushDto): Promise<StreamableFile> {
     const result = await this.pushes.push(user, body);
     if (user.sessionEnded) await this.endedSessions.flag(user, body);
-    return result;
+    return jsonAnswer(JSON.stringify(result));
   }
 
+  /** The findings' estimates go out as PostgreSQL wrote them, never parsed here (raw-json.ts). */
   @Get('pull')
   @ApiOkResponse({ type: SyncPullResponseDto })
-  pull(@CurrentUser() user: AuthUser, @Query() query: SyncPullQueryDto) {
-    return this.pulls.changes(user, query);
+  async pull(@CurrentUser() user: AuthUser, @Query() query: SyncPullQueryDto): Promise<StreamableFile> {
+    return jsonAnswer(stringifyWithRawJson(await this.pulls.changes(user, query)));
   }
 
   @Get('conflicts')

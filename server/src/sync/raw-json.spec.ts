@@ -1,0 +1,25 @@
+import { describe, expect, it } from 'vitest';
+import { RawJson, rawJson, stringifyWithRawJson } from './raw-json.js';
+
+// jsonb as PostgreSQL writes it (with its spaces), the way a pull page carries a finding's estimate.
+const estimate = '{"severity": {"label": "Major", "basis": "Peak force 8.75 kN – see \\"basis\\""}, "impactEnergyJ": 9.5}';
+
+describe('JSON text carried into an answer unparsed', () => {
+  it('writes each RawJson as its own text, so the answer parses to what a full parse and stringify would give', () => {
+    const page = { changes: [{ type: 'finding', record: { id: 'a', estimate: rawJson(estimate), shape: rawJson(null), notes: 'x' } }], hasMore: false };
+    const json = stringifyWithRawJson(page);
+    expect(json).toContain(estimate);
+    expect(JSON.parse(json)).toEqual({ changes: [{ type: 'finding', record: { id: 'a', estimate: JSON.parse(estimate), shape: null, notes: 'x' } }], hasMore: false });
+  });
+
+  it('leaves alone strings that only look like its markers, and keeps the order of many texts', () => {
+    const texts = Array.from({ length: 12 }, (_, i) => `{"n": ${i}}`);
+    const value = { note: '\\u0000abc0', list: texts.map((t) => new RawJson(t)) };
+    expect(JSON.parse(stringifyWithRawJson(value))).toEqual({ note: '\\u0000abc0', list: texts.map((t) => JSON.parse(t)) });
+  });
+
+  it('gives the parsed value to any other serialiser', () => {
+    expect(JSON.parse(JSON.stringify({ estimate: new RawJson(estimate) }))).toEqual({ estimate: JSON.parse(estimate) });
+    expect(stringifyWithRawJson({ plain: [1, 'two'] })).toBe(JSON.stringify({ plain: [1, 'two'] }));
+  });
+});
