@@ -1,7 +1,7 @@
 import { IonIcon } from '@ionic/react';
 import { alertCircleOutline, syncOutline, warningOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
-import { useAppSyncEngine } from '../sync/app-sync';
+import { useAppSyncEngine } from '../sync/running-engine';
 import { useSyncStatus } from '../sync/sync-status';
 import { attentionWords, lastSyncWords } from '../sync/sync-words';
 import { OutboxBadge } from './OutboxBadge';

@@ -1,8 +1,7 @@
 /**
  * The app's one sync engine: made when someone is signed in, stopped before sign-out clears the
- * phone. Screens read it through useAppSyncEngine(); nothing else creates an engine.
+ * phone. Screens read it through useAppSyncEngine() (running-engine.ts); nothing else creates an engine.
  */
-import { useSyncExternalStore } from 'react';
 import { fetchWithAccessToken } from '../api/authorised-fetch';
 import { db } from '../local-db/db';
 import { backoffMs } from '@plummet/shared';
@@ -11,7 +10,10 @@ import { downloadForemen } from './download-foremen';
 import { downloadOrganisationSettings } from './download-settings';
 import { SyncEngine, type SyncRunOutcome } from './sync-engine';
 import { httpSyncTransport } from './sync-transport';
+import { setRunningEngine } from './running-engine';
 import { startSyncTriggers } from './sync-triggers';
+
+export { currentSyncEngine, useAppSyncEngine } from './running-engine';
 
 interface Running {
   userId: string;
@@ -20,8 +22,6 @@ interface Running {
 }
 
 let running: Running | null = null;
-const listeners = new Set<() => void>();
-const notify = () => listeners.forEach((listener) => listener());
 
 /**
  * Starts syncing for `userId` (again only when the user changed). The triggers skip a run while
@@ -60,7 +60,7 @@ export function startAppSync(userId: string): SyncEngine {
       stopTriggers();
     },
   };
-  notify();
+  setRunningEngine(engine);
   return engine;
 }
 
@@ -69,21 +69,7 @@ export async function stopAppSync(): Promise<void> {
   const current = running;
   if (!current) return;
   running = null;
+  setRunningEngine(undefined);
   current.stopTriggers();
-  notify();
   await current.engine.whenIdle();
-}
-
-export function currentSyncEngine(): SyncEngine | undefined {
-  return running?.engine;
-}
-
-function subscribe(listener: () => void): () => void {
-  listeners.add(listener);
-  return () => listeners.delete(listener);
-}
-
-/** The running engine, or undefined while nobody is signed in. */
-export function useAppSyncEngine(): SyncEngine | undefined {
-  return useSyncExternalStore(subscribe, currentSyncEngine, () => undefined);
 }

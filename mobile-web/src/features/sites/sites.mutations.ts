@@ -1,12 +1,9 @@
 import type { Site } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
 import { db, writeMeta } from '../../local-db/db';
-import { currentSyncEngine } from '../../sync/app-sync';
-import { downloadSite, type SiteDownloadResult } from '../../sync/download-site';
+import type { SiteDownloadResult } from '../../sync/download-site';
+import { currentSyncEngine } from '../../sync/running-engine';
 import { requestPersistentStorage, type StorageReport } from '../../sync/storage';
-import { fetchCatalogue } from '../catalogue/catalogue.api';
-import { fetchOpenFindingsOfSite } from '../findings/findings.api';
-import { fetchScaffoldsOfSite } from '../scaffolds/scaffolds.api';
 
 export const STORAGE_REPORT_KEY = 'storage-report';
 
@@ -22,6 +19,13 @@ export function useMakeSiteOfflineMutation() {
       // Syncing first sends what waits in the outbox and brings the change feed up to date; the
       // download then adds the site's open findings, whole, that the feed has not brought.
       await currentSyncEngine()?.sync();
+      // The download's code (and the schemas it parses with) loads on the first tap, not with the home.
+      const [{ downloadSite }, { fetchScaffoldsOfSite }, { fetchOpenFindingsOfSite }, { fetchCatalogue }] = await Promise.all([
+        import('../../sync/download-site'),
+        import('../scaffolds/scaffolds.api'),
+        import('../findings/findings.api'),
+        import('../catalogue/catalogue.api'),
+      ]);
       const download = await downloadSite(db, site, organisationId, {
         scaffolds: fetchScaffoldsOfSite,
         openFindings: fetchOpenFindingsOfSite,
