@@ -5,6 +5,8 @@ import { defineConfig, defaultClientConditions, type Plugin } from 'vite';
 import { compression, defineAlgorithm } from 'vite-plugin-compression2';
 import { VitePWA } from 'vite-plugin-pwa';
 import { initialJsSize } from './scripts/initial-js-size.ts';
+import { inlineEntryCss } from './scripts/inline-entry-css.ts';
+import { preloadChunks } from './scripts/preload-chunks.ts';
 import { precompressLateFiles } from './scripts/precompress-late-files.ts';
 
 const apiTarget = process.env.PLUMMET_API_URL ?? 'http://127.0.0.1:3000';
@@ -60,6 +62,12 @@ export default defineConfig({
     // The gzip budget printed by initialJsSize is the size check that matters for phones.
     chunkSizeWarningLimit: 1024,
     rolldownOptions: {
+      // Two pages: the app (index.html, every route) and the pre-rendered sign-in of a first visit
+      // to /sign-in (sign-in.html; the server sends it for that address).
+      input: {
+        index: fileURLToPath(new URL('./index.html', import.meta.url)),
+        'sign-in': fileURLToPath(new URL('./sign-in.html', import.meta.url)),
+      },
       treeshake: {
         moduleSideEffects: [
           { test: ionicComponentsHaveNoSideEffects, sideEffects: false },
@@ -114,6 +122,8 @@ export default defineConfig({
       },
       devOptions: { enabled: false },
     }),
+    inlineEntryCss(),
+    preloadChunks({ page: 'index.html', modules: [new URL('./src/features/auth/session.queries.ts', import.meta.url)] }),
     initialJsSize({ budgetKiB: 200 }),
     // Brotli and gzip files beside each text asset, made once at build time at the highest levels;
     // the server picks one by Accept-Encoding (server/src/web/static-web.ts). Maps stay uncompressed.

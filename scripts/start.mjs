@@ -89,7 +89,7 @@ async function main() {
   };
   if (production) say('NODE_ENV=production: migrating only; the demo data is never seeded in production');
   await migrateAndSeed(env, { migrateOnly: production }).catch((e) => fail(e.message));
-  server = await startServer(env);
+  await startServer(env, { onSpawn: (child) => (server = child) });
   server.on('exit', (code) => {
     if (!stopping) {
       say(`the server stopped (exit ${code})`);

@@ -1,8 +1,7 @@
 /*
- * The first download: our palette, Open Sans and a decision. A first visit to /sign-in gets a
- * plain React form that looks like the app (start-sign-in) and needs none of Ionic; every other
- * address starts the full Ionic app (start-app), which brings its own styles. Both are loaded on
- * demand, so neither pays for the other, and the service worker precaches both for offline use.
+ * The app's first download (index.html): our palette, Open Sans, then the full Ionic app at the
+ * current address. A first visit to /sign-in gets sign-in.html instead (src/sign-in-page.ts), a
+ * form drawn in the HTML that needs neither React nor Ionic until someone has signed in.
  */
 
 /* Open Sans, bundled (no CDN): latin subset, the three weights the theme uses, woff2 only. */
@@ -13,8 +12,10 @@ import '@fontsource/open-sans/latin-700.css';
 import './theme/variables.css';
 import './theme/first-paint.css';
 
-if (window.location.pathname === '/sign-in') {
-  void import('./app/start-sign-in').then(({ startSignIn }) => startSignIn());
-} else {
-  void import('./app/start-app').then(({ startApp }) => startApp());
-}
+import { startApp } from './app/start-app';
+
+// The home is where most visits start: fetch its page alongside the app's own code rather than
+// after it has started (lazy-pages.tsx imports the same module, so it runs once).
+if (window.location.pathname === '/') void import('./features/home/pages/HomePage');
+
+startApp();

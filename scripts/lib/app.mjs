@@ -38,9 +38,13 @@ export function migrateAndSeed(env, { migrateOnly = false } = {}) {
   return run('node', args, { cwd: ROOT, env, label: migrateOnly ? 'database migration' : 'migration and demo seeding' });
 }
 
-/** Starts `node server/dist/main.js` and resolves once /api/health answers ok. */
-export async function startServer(env, { timeoutMs = 30_000, stdio = 'inherit' } = {}) {
+/**
+ * Starts `node server/dist/main.js` and resolves once /api/health answers ok. `onSpawn` receives
+ * the child at once, so a caller stopped while waiting (Ctrl-C during start) can still stop it.
+ */
+export async function startServer(env, { timeoutMs = 30_000, stdio = 'inherit', onSpawn } = {}) {
   const child = spawn('node', [join(ROOT, 'server/dist/main.js')], { cwd: ROOT, env, stdio });
+  onSpawn?.(child);
   let exited = null;
   child.on('exit', (code, signal) => (exited = { code, signal }));
   const url = `http://${env.HOST ?? '127.0.0.1'}:${env.PORT}/api/health`;
@@ -53,7 +57,7 @@ export async function startServer(env, { timeoutMs = 30_000, stdio = 'inherit' }
     } catch {
       /* not listening yet */
     }
-    await new Promise((r) => setTimeout(r, 150));
+    await new Promise((r) => setTimeout(r, 50));
   }
   child.kill('SIGTERM');
   throw new Error(`the server did not answer ${url} within ${timeoutMs / 1000} s`);

@@ -4,7 +4,7 @@
 // the demo. Audits /sign-in as a first visit, then signs in as the inspector in the same Chromium
 // and audits the signed-in home. Prints the four category scores and FCP, LCP, TBT, CLS. A
 // benchmark, not a test: nothing is asserted. Leaves nothing behind.
-import { chmodSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { chmodSync, cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import lighthouse from 'lighthouse';
@@ -21,7 +21,7 @@ const JWT_SECRET = 'lighthouse-secret-lighthouse-secret-0123456789';
 
 let pg;
 let server;
-let browser;
+let browser; // the default (persistent) browser context: the one Lighthouse opens its tab in
 let tmp;
 
 async function cleanup() {
@@ -35,7 +35,7 @@ async function cleanup() {
 }
 for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => void cleanup().finally(() => process.exit(130)));
 
-/** Set LIGHTHOUSE_REPORT_DIR to keep each full report (JSON) for a closer look at one run. */
+/** Set LIGHTHOUSE_REPORT_DIR to keep each full report (JSON) and its trace for a closer look at one run. */
 const REPORT_DIR = process.env.LIGHTHOUSE_REPORT_DIR;
 
 const SETTINGS = { formFactor: 'mobile', onlyCategories: ['performance', 'accessibility', 'best-practices', 'seo'] };
@@ -54,10 +54,19 @@ function calibratedSlowdown(benchmarkIndex) {
 function summarise(lhr) {
   const { categories, audits } = lhr;
   const score = (id) => Math.round((categories[id]?.score ?? 0) * 100);
-  const ms = (id) => `${((audits[id]?.numericValue ?? NaN) / 1000).toFixed(2)} s`;
+  const value = (id) => audits[id]?.numericValue;
+  const ms = (id) => (value(id) === undefined ? 'n/a' : `${(value(id) / 1000).toFixed(2)} s`);
+  const tbt = value('total-blocking-time') === undefined ? 'n/a' : `${Math.round(value('total-blocking-time'))} ms`;
+  const cls = value('cumulative-layout-shift') === undefined ? 'n/a' : value('cumulative-layout-shift').toFixed(3);
+  // A load Lighthouse could not measure says why instead of printing nothing.
+  const failed = lhr.runtimeError ? `   (${lhr.runtimeError.code}: ${lhr.runtimeError.message})` : '';
+  const missing = ['first-contentful-paint', 'largest-contentful-paint', 'total-blocking-time', 'cumulative-layout-shift']
+    .filter((id) => value(id) === undefined)
+    .map((id) => `   (${id}: ${audits[id]?.errorMessage ?? 'no value'})`)
+    .join('');
   return (
     `performance ${score('performance')}  accessibility ${score('accessibility')}  best practices ${score('best-practices')}  SEO ${score('seo')}` +
-    `   FCP ${ms('first-contentful-paint')}  LCP ${ms('largest-contentful-paint')}  TBT ${Math.round(audits['total-blocking-time'].numericValue)} ms  CLS ${audits['cumulative-layout-shift'].numericValue.toFixed(3)}`
+    `   FCP ${ms('first-contentful-paint')}  LCP ${ms('largest-contentful-paint')}  TBT ${tbt}  CLS ${cls}${failed}${missing}`
   );
 }
 
@@ -84,6 +93,8 @@ async function audit(url, port, { keepStorage, name }) {
     mkdirSync(REPORT_DIR, { recursive: true });
     writeFileSync(join(REPORT_DIR, `${name}.json`), JSON.stringify(lhr, null, 1));
     writeFileSync(join(REPORT_DIR, `${name}-calibrated.json`), JSON.stringify(calibrated.lhr, null, 1));
+    // The page load's trace, for a look at what each long task did (DevTools' Performance panel opens it).
+    cpSync(join(artifacts, 'defaultPass.trace.json'), join(REPORT_DIR, `${name}.trace.json`));
   }
   const worst = Object.values(lhr.audits)
     .filter((a) => a.details?.type === 'opportunity' && (a.details.overallSavingsMs ?? 0) > 0)
@@ -97,6 +108,7 @@ async function audit(url, port, { keepStorage, name }) {
     worst,
     finalUrl: lhr.finalDisplayedUrl,
     benchmarkIndex,
+    browser: (lhr.environment?.hostUserAgent ?? '').match(/(?:Headless)?Chrome\/[\d.]+/)?.[0] ?? 'Chromium',
   };
 }
 
@@ -131,9 +143,13 @@ async function main() {
   server = await startServer({ ...env, ...productionEnv }, { stdio: ['ignore', 'ignore', 'inherit'] });
 
   const debugPort = await freePort();
-  browser = await chromium.launch({
+  // A persistent context is the browser's default one, where Lighthouse opens its tab: the session
+  // signed in below must be in the same storage as the page Lighthouse audits. (A context from
+  // browser.newContext() has storage of its own, so that audit would see a signed-out home.)
+  browser = await chromium.launchPersistentContext(join(tmp, 'profile'), {
     executablePath: CHROME_PATH,
     headless: true,
+    viewport: null,
     args: [`--remote-debugging-port=${debugPort}`, '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
   });
 
@@ -141,22 +157,31 @@ async function main() {
   const signIn = await audit(`${base}/sign-in`, debugPort, { keepStorage: false, name: 'sign-in' });
 
   // Sign in through the page so the session sits in the browser's storage, as on a phone.
-  const context = browser.contexts()[0] ?? (await browser.newContext());
-  const page = await context.newPage();
+  const page = await browser.newPage();
   await page.goto(`${base}/sign-in`);
   await page.getByTestId('sign-in-email').locator('input').fill(DEMO_EMAIL);
   await page.getByTestId('sign-in-password').locator('input').fill(DEMO_PASSWORD);
   await page.getByTestId('sign-in-submit').click();
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+  await page.getByTestId('site-list').waitFor({ timeout: 30_000 });
   await page.close();
 
   say('auditing / signed in…');
   const home = await audit(`${base}/`, debugPort, { keepStorage: true, name: 'home' });
+  // The audited page should have been the signed-in home (the inspector's sites), not the welcome.
+  const check = await browser.newPage();
+  await check.goto(`${base}/`);
+  const signedIn = await check
+    .getByTestId('site-list')
+    .waitFor({ timeout: 30_000 })
+    .then(() => true)
+    .catch(() => false);
+  await check.close();
 
   console.log('');
-  console.log(`Lighthouse 12 mobile preset, production build, Chromium ${browser.version()} (node ${process.version})`);
+  console.log(`Lighthouse 12 mobile preset, production build, ${home.browser} (node ${process.version})`);
   console.log(`/sign-in           ${signIn.line}`);
-  console.log(`/ (signed in)      ${home.line}${home.finalUrl.includes('/sign-in') ? '   (ended on the sign-in page!)' : ''}`);
+  console.log(`/ (signed in)      ${home.line}${home.finalUrl.includes('/sign-in') ? '   (ended on the sign-in page!)' : ''}${signedIn ? '' : '   (not signed in!)'}`);
   console.log(
     `  machine speed (Lighthouse benchmark index; the preset assumes 1500-2000): ${signIn.benchmarkIndex} and ${home.benchmarkIndex}; ` +
       `the same loads with the CPU slowdown calibrated to it (${signIn.slowdown.toFixed(1)}× and ${home.slowdown.toFixed(1)}× instead of 4×):`,

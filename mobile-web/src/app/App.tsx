@@ -35,11 +35,14 @@ import {
   SyncStatusPage,
   ToVerifyPage,
 } from './lazy-pages';
+import { useAfterFirstScreen } from './after-first-screen';
 import { MutationErrorToasts } from './MutationErrorToasts';
 import { queryClient } from './query-client';
 import { ReloadPrompt } from './ReloadPrompt';
 
 export function App() {
+  // The sync engine (and its code) waits until the first screen is up and the phone is idle.
+  const syncAllowed = useAfterFirstScreen();
   return (
     <QueryClientProvider client={queryClient}>
       <IonApp>
@@ -81,9 +84,11 @@ export function App() {
             </Routes>
           </IonRouterOutlet>
         </IonReactRouter>
-        <Suspense fallback={null}>
-          <SyncRunner />
-        </Suspense>
+        {syncAllowed && (
+          <Suspense fallback={null}>
+            <SyncRunner />
+          </Suspense>
+        )}
         <MutationErrorToasts />
         <ReloadPrompt />
       </IonApp>

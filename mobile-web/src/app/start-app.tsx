@@ -1,5 +1,5 @@
 import { setupIonicReact } from '@ionic/react';
-import { StrictMode } from 'react';
+import { StrictMode, startTransition } from 'react';
 import { App } from './App';
 import { appRoot } from './root';
 
@@ -17,9 +17,13 @@ import '../theme/screens.css';
 export function startApp(): void {
   // One look on every phone: Material Design mode (48 px targets fit it best).
   setupIonicReact({ mode: 'md' });
-  appRoot().render(
-    <StrictMode>
-      <App />
-    </StrictMode>,
-  );
+  // As a transition, React renders the first screen in slices and lets the phone answer a tap
+  // between them, instead of one long task while the whole tree is built.
+  startTransition(() => {
+    appRoot().render(
+      <StrictMode>
+        <App />
+      </StrictMode>,
+    );
+  });
 }

@@ -13,6 +13,7 @@ import {
   type Units,
   type WindUnits,
 } from '@plummet/shared';
+import { lazyFormat } from './lazy-format';
 
 export type { Units, WindUnits };
 
@@ -53,18 +54,18 @@ export function fromDisplay(kind: QuantityKind, shown: number, units: Units): nu
   return shown / SCALES[kind][units].perSi;
 }
 
-const threeFigures = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 3 });
-const wholeNumber = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 });
+const threeFigures = lazyFormat(() => new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 3 }));
+const wholeNumber = lazyFormat(() => new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 }));
 
 /** A number with three significant figures (whole numbers past 1,000), e.g. 12.3, 0.456, 1,234. */
 export function formatNumber(value: number): string {
   if (!Number.isFinite(value)) return '—';
-  return Math.abs(value) >= 1000 ? wholeNumber.format(value) : threeFigures.format(value);
+  return Math.abs(value) >= 1000 ? wholeNumber(value) : threeFigures(value);
 }
 
 /** An SI value shown in the user's units with its unit, e.g. "14.2 m/s", "46.6 mph", "4.81 kN". */
 export function formatQuantity(kind: QuantityKind, si: number, units: Units): string {
-  if (kind === 'force' && units === 'si' && Math.abs(si) >= 1000) return `${threeFigures.format(si / 1000)} kN`;
+  if (kind === 'force' && units === 'si' && Math.abs(si) >= 1000) return `${threeFigures(si / 1000)} kN`;
   return `${formatNumber(toDisplay(kind, si, units))} ${unitLabel(kind, units)}`;
 }
 

@@ -1,6 +1,7 @@
 /**
  * The app's one sync engine: made when someone is signed in, stopped before sign-out clears the
- * phone. Screens read it through features/sync/sync-hooks.ts; nothing else creates an engine. No React here.
+ * phone. Which engine runs lives in running-engine.ts (screens read it through
+ * features/sync/sync-hooks.ts without loading this file); nothing else creates an engine. No React here.
  */
 import { fetchWithAccessToken } from '../api/authorised-fetch';
 import { db } from '../local-db/db';
@@ -10,7 +11,10 @@ import { downloadForemen } from './download-foremen';
 import { downloadOrganisationSettings } from './download-settings';
 import { SyncEngine, type SyncRunOutcome } from './sync-engine';
 import { httpSyncTransport } from './sync-transport';
+import { setRunningEngine } from './running-engine';
 import { startSyncTriggers } from './sync-triggers';
+
+export { currentSyncEngine } from './running-engine';
 
 interface Running {
   userId: string;
@@ -21,8 +25,6 @@ interface Running {
 }
 
 let running: Running | null = null;
-const listeners = new Set<() => void>();
-const notify = () => listeners.forEach((listener) => listener());
 
 /**
  * Starts syncing for `userId` (again only when the user changed). The triggers skip a run while
@@ -69,7 +71,7 @@ export function startAppSync(userId: string): SyncEngine {
       stopTriggers();
     },
   };
-  notify();
+  setRunningEngine(engine);
   return engine;
 }
 
@@ -78,19 +80,9 @@ export async function stopAppSync(): Promise<void> {
   const current = running;
   if (!current) return;
   running = null;
+  setRunningEngine(undefined);
   current.stopTriggers();
-  notify();
   await current.engine.whenIdle();
   // The foremen and settings downloads after a sync write to the phone too: wait for them.
   await Promise.allSettled([...current.runs]);
-}
-
-export function currentSyncEngine(): SyncEngine | undefined {
-  return running?.engine;
-}
-
-/** Told whenever the running engine changes (sign-in, sign-out). */
-export function subscribeAppSync(listener: () => void): () => void {
-  listeners.add(listener);
-  return () => listeners.delete(listener);
 }

@@ -1,8 +1,9 @@
 /** The words the app uses about sync (pure, so they are tested without a browser). */
+import { lazyFormat } from '../lib/lazy-format';
 import type { SyncStatus } from './sync-status';
 
-const timeOnly = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit' });
-const dayAndTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+const timeOnly = lazyFormat(() => new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit' }));
+const dayAndTime = lazyFormat(() => new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' }));
 
 /** "Synced 09:12" today, "Synced 3 Mar, 09:12" before; what is happening when there is no finished sync to name. */
 export function lastSyncWords(status: Pick<SyncStatus, 'state' | 'lastSyncAt'> | undefined, now: Date = new Date()): string {
@@ -11,7 +12,7 @@ export function lastSyncWords(status: Pick<SyncStatus, 'state' | 'lastSyncAt'> |
   if (!status.lastSyncAt) return status.state === 'offline' ? 'Not synced yet (no connection)' : 'Not synced yet';
   const at = new Date(status.lastSyncAt);
   const sameDay = at.toDateString() === now.toDateString();
-  return `Synced ${sameDay ? timeOnly.format(at) : dayAndTime.format(at)}`;
+  return `Synced ${sameDay ? timeOnly(at) : dayAndTime(at)}`;
 }
 
 export function pendingWords(count: number): string {

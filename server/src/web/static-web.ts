@@ -55,12 +55,14 @@ export function mountWebApp(app: Express, dist = defaultWebDist()): boolean {
     },
   });
   app.use(precompressed, files);
-  // Any other page the browser asks for gets the app shell (compressed too); the router takes over.
+  // A first visit to /sign-in gets the page drawn at build time (no script needed to paint it);
+  // any other page the browser asks for gets the app shell (compressed too); the router takes over.
+  const signInPage = existsSync(join(dist, 'sign-in.html'));
   app.use((req: Request, res: Response, next: NextFunction) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next();
     if (req.path === '/api' || req.path.startsWith('/api/')) return next();
     if (!req.accepts('html')) return next();
-    req.url = '/index.html';
+    req.url = signInPage && (req.path === '/sign-in' || req.path === '/sign-in/') ? '/sign-in.html' : '/index.html';
     precompressed(req, res, (error?: unknown) => (error ? next(error) : files(req, res, next)));
   });
   return true;

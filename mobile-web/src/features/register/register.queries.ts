@@ -19,5 +19,7 @@ export function useDueList(siteId?: string) {
   const server = useQuery({ queryKey: registerKeys.due(siteId), queryFn: () => fetchDueList(siteId), enabled: online, networkMode: 'online', refetchInterval: 60_000 });
   const local = useLiveQuery(async () => localDueItems(await db.scaffolds.toArray(), await db.sites.toArray(), new Date()), []);
   const fromServer = online && server.data !== undefined;
-  return { items: fromServer ? server.data!.items : local, fromServer, failed: online && server.isError };
+  // The first answer is in: the server's (or its failure) when online, the phone's otherwise.
+  const settled = online ? server.isFetched || server.isError : local !== undefined;
+  return { items: fromServer ? server.data!.items : local, fromServer, failed: online && server.isError, settled };
 }

@@ -1,10 +1,9 @@
 import type { Site } from '@plummet/shared';
 import { useMutation } from '@tanstack/react-query';
 import { db, writeMeta } from '../../local-db/db';
-import { currentSyncEngine } from '../../sync/app-sync';
-import { downloadSite, type SiteDownloadResult } from '../../sync/download-site';
+import type { SiteDownloadResult } from '../../sync/download-site';
+import { currentSyncEngine } from '../../sync/running-engine';
 import { requestPersistentStorage, type StorageReport } from '../../sync/storage';
-import { httpSyncTransport } from '../../sync/sync-transport';
 import { fetchWithAccessToken } from '../../api/authorised-fetch';
 
 export const STORAGE_REPORT_KEY = 'storage-report';
@@ -21,6 +20,8 @@ export function useMakeSiteOfflineMutation() {
       // Syncing first sends what waits in the outbox and brings the change feed up to date; the
       // download is then the site's first pull: its records from the start of the feed.
       await currentSyncEngine()?.sync();
+      // The download's code (and the schemas it parses with) loads on the first tap, not with the home.
+      const [{ downloadSite }, { httpSyncTransport }] = await Promise.all([import('../../sync/download-site'), import('../../sync/sync-transport')]);
       const download = await downloadSite(db, site, organisationId, httpSyncTransport(fetchWithAccessToken(db)));
       const storage = await requestPersistentStorage();
       await writeMeta(db, STORAGE_REPORT_KEY, { ...storage, at: new Date().toISOString() });

@@ -1,12 +1,12 @@
 /** The React side of sync: the running engine and its status, for the screens (src/sync stays free of React). */
 import { useEffect, useState, useSyncExternalStore } from 'react';
-import { currentSyncEngine, subscribeAppSync } from '../../sync/app-sync';
+import { currentSyncEngine, subscribeRunningEngine } from '../../sync/running-engine';
 import type { SyncEngine } from '../../sync/sync-engine';
 import type { SyncStatus } from '../../sync/sync-status';
 
 /** The running engine, or undefined while nobody is signed in. */
 export function useAppSyncEngine(): SyncEngine | undefined {
-  return useSyncExternalStore(subscribeAppSync, currentSyncEngine, () => undefined);
+  return useSyncExternalStore(subscribeRunningEngine, currentSyncEngine, () => undefined);
 }
 
 /** The engine's status, refreshed whenever it changes state (and every `refreshMs` for the pending count). */

@@ -1,4 +1,5 @@
 import { useEffect, useState, type FormEvent } from 'react';
+import { attemptSignIn } from '../attempt-sign-in';
 import type { StoredSession } from '../session';
 import './SignInForm.css';
 
@@ -9,8 +10,9 @@ interface SignInFormProps {
 }
 
 /**
- * The sign-in form in plain React with the app's look (outlined fields, a solid block button):
- * it is the first screen of a first visit, which must show before Ionic has even been loaded.
+ * The sign-in form in plain React with the app's look (outlined fields, a solid block button).
+ * sign-in.html draws the same form as plain HTML for a first visit to /sign-in (same classes,
+ * same styles, same attemptSignIn), so keep the two alike.
  */
 export function SignInForm({ initialEmail, onSignedIn }: SignInFormProps) {
   const [email, setEmail] = useState('');
@@ -25,22 +27,12 @@ export function SignInForm({ initialEmail, onSignedIn }: SignInFormProps) {
 
   async function submit(event: FormEvent) {
     event.preventDefault();
-    if (!email.trim() || !password) {
-      setError('Enter your email and password.');
-      return;
-    }
     setError(null);
     setPending(true);
-    // The local database and the session's schema load only now, not with the form.
-    const { signInAndKeep, describeSignInError } = await import('../sign-in');
-    try {
-      const session = await signInAndKeep({ email: email.trim(), password });
-      onSignedIn(session);
-    } catch (failure) {
-      setError(describeSignInError(failure));
-    } finally {
-      setPending(false);
-    }
+    const outcome = await attemptSignIn(email, password);
+    setPending(false);
+    if ('session' in outcome) onSignedIn(outcome.session);
+    else setError(outcome.error);
   }
 
   return (

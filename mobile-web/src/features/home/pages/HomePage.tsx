@@ -1,8 +1,10 @@
 import { IonButton, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { useDeferredValue } from 'react';
 import { Navigate } from 'react-router-dom';
 import { homePathFor } from '../../../app/role-home';
 import { CautionNote } from '../../../components/CautionNote';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
+import { ShowWhenSettled } from '../../../components/ShowWhenSettled';
 import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
 import { FixLoopShortcut } from '../../fix-loop/components/FixLoopShortcut';
@@ -12,11 +14,18 @@ import './HomePage.css';
 
 /** Signed out: what Plummet is, and the way in. Signed in: the sites, for the walk. */
 export function HomePage() {
-  const { status, session } = useSession();
+  const current = useSession();
+  // The signed-in body is the biggest render of a start: React does it at low priority, in slices
+  // between which the phone can answer a tap, rather than as one long task.
+  const status = useDeferredValue(current.status);
+  const session = useDeferredValue(current.session);
   const signedIn = session && status !== 'signed-out';
   // Only inspectors start here; everyone else has a home of their own.
   const home = signedIn ? homePathFor(session.user.role) : '/';
   if (home !== '/') return <Navigate to={home} replace />;
+  // Until the phone has read its session, draw only the frame: neither the signed-out welcome
+  // (a flash of the wrong screen for someone signed in) nor a guess at the sites.
+  const loading = status === 'loading';
 
   return (
     <IonPage>
@@ -31,12 +40,12 @@ export function HomePage() {
         </IonToolbar>
       </IonHeader>
       <IonContent className="ion-padding" data-testid="app-shell">
-        {signedIn ? (
-          <>
+        {loading ? null : signedIn ? (
+          <ShowWhenSettled parts={['due', 'sites']}>
             <FixLoopShortcut userId={session.user.id} role={session.user.role} />
             <DueSection />
             <SitesOverview session={session} expired={status === 'expired'} />
-          </>
+          </ShowWhenSettled>
         ) : (
           <div className="home-page">
             <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />

@@ -1,9 +1,11 @@
+import { useReportSettled } from '../../../components/ShowWhenSettled';
 import { useDueList } from '../register.queries';
 import { DueList } from './DueList';
 
 /** The inspector's due list on the home screen: from the server online, from this phone offline. */
 export function DueSection() {
-  const { items, fromServer, failed } = useDueList();
+  const { items, fromServer, failed, settled } = useDueList();
+  useReportSettled('due', settled && items !== undefined);
   return (
     <section className="due-section page-body" aria-labelledby="due-heading" data-testid="due-section">
       <h2 id="due-heading" className="page-heading">

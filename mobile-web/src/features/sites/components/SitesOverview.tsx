@@ -2,6 +2,7 @@ import type { Site } from '@plummet/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useOnlineStatus } from '../../../lib/use-online-status';
 import { CautionNote } from '../../../components/CautionNote';
+import { useReportSettled } from '../../../components/ShowWhenSettled';
 import type { SiteRecord } from '../../../local-db/records';
 import { SessionNote } from '../../auth/components/SessionNote';
 import type { StoredSession } from '../../auth/session';
@@ -21,6 +22,7 @@ export function SitesOverview({ session, expired }: { session: StoredSession; ex
   const local = useLocalSites();
   const server = useQuery({ ...sitesQueryOptions(), enabled: online && !expired });
   const sites = mergeSites(server.data, local ?? []);
+  useReportSettled('sites', local !== undefined && (!online || expired || server.isFetched || server.isError));
 
   return (
     <div className="page-body">
