@@ -1,7 +1,7 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
-import { choose, onScreen, rowOverlaps, typeInto } from '../support/phone-page.js';
+import { choose, onScreen, rowOverlaps, settled, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
 
 /** Every visible row's risk badge ends before its item name starts (no overlap at this width). */
@@ -36,6 +36,7 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     await page.goto(server.url);
     await onScreen(page, 'home-sign-in').click();
     await onScreen(page, 'sign-in-email').waitFor();
+    await settled(page);
     await page.screenshot({ path: artifactPath('sign-in-phone.png') });
     await typeInto(page, 'sign-in-email', 'inspector@demo.test');
     await typeInto(page, 'sign-in-password', 'plummet-demo');
@@ -49,6 +50,7 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     const header = await page.locator('ion-header').filter({ visible: true }).first().boundingBox();
     expect(header?.height).toBeLessThanOrEqual(72);
     expect(await onScreen(page, 'sync-badge').getAttribute('href')).toBe('/sync');
+    await settled(page);
     await page.screenshot({ path: artifactPath('home-phone.png') });
 
     await quayside.getByTestId('open-site').click();
@@ -59,15 +61,18 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
     await onScreen(page, 'finding-row').first().waitFor();
     expect(await badgesClearOfText(page)).toBeGreaterThan(0);
     await expect.poll(() => rowOverlaps(page, 'finding-row')).toEqual([]);
+    await settled(page);
     await page.screenshot({ path: artifactPath('findings-phone.png') });
 
     await page.setViewportSize({ width: 1366, height: 900 });
     await onScreen(page, 'finding-row').first().waitFor();
     expect(await badgesClearOfText(page)).toBeGreaterThan(0);
     await expect.poll(() => rowOverlaps(page, 'finding-row')).toEqual([]);
+    await settled(page);
     await page.screenshot({ path: artifactPath('findings-wide.png') });
     await page.goto(server.url);
     await onScreen(page, 'site-card').first().waitFor();
+    await settled(page);
     await page.screenshot({ path: artifactPath('home-wide.png') });
 
     // The finding editor at phone width: scrolled to the estimate card, the strip under the
@@ -85,6 +90,7 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
         return strip && heading ? heading.y - (strip.y + strip.height) : -1;
       })
       .toBeGreaterThanOrEqual(0);
+    await settled(page);
     await page.screenshot({ path: artifactPath('finding-estimate-phone.png') });
 
     // A new finding at phone width with no signal: the title shows whole beside the status.
@@ -105,6 +111,7 @@ describe('the home and the findings list on a phone and on a wide screen', () =>
       return { text: element.textContent, cut: text.scrollWidth > text.clientWidth };
     });
     expect(cut).toEqual({ text: 'New finding', cut: false });
+    await settled(page);
     await page.screenshot({ path: artifactPath('new-finding-phone.png') });
     await phone.context.setOffline(false);
   });
