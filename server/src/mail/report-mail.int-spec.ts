@@ -101,7 +101,7 @@ describe('the findings e-mail and signed report sent when an inspection is finis
     for (const value of ['Sample Client Ltd', 'Civic Hall, 2 Tollgate Square', '14 Wharfinger Lane', 'Scaffold QL-A', 'A loose coupler on lift 4', 'Coupler removed', 'Aileen Marsh, Scaffold inspector']) {
       expect(text).toContain(value);
     }
-    expect(text).toContain('toe boards: FAILED – Missing on lift 5');
+    expect(text).toContain('Toe boards: FAILED – Missing on lift 5');
     expect(text).toMatch(/Page 1 of \d+/);
     expect(text).toContain(flat(CAUTION_TEXT).slice(0, 60));
   });

@@ -1,4 +1,4 @@
-import { CAUTION_TEXT, scaffoldStatusWords } from '@plummet/shared';
+import { CAUTION_TEXT, CONTROL_LABELS, type Control, scaffoldStatusWords } from '@plummet/shared';
 import PDFDocument from 'pdfkit';
 import { byRisk, type ReportData } from './report-data.js';
 import { reportFont } from './report-fonts.js';
@@ -58,7 +58,7 @@ export function renderReportPdf(data: ReportData, photos: Map<string, ReportPhot
   if (data.controlChecks.length === 0) doc.font('regular').fontSize(10).text('No control checks were recorded.', { width });
   for (const c of data.controlChecks) {
     const result = c.result === 'pass' ? 'in place' : c.result === 'fail' ? 'FAILED' : 'not applicable';
-    doc.font('semibold').fontSize(10).text(`${c.control.replace(/-/g, ' ')}: `, { continued: true }).font('regular').text(`${result}${c.note ? ` – ${c.note}` : ''}`, { width });
+    doc.font('semibold').fontSize(10).text(`${CONTROL_LABELS[c.control as Control] ?? c.control}: `, { continued: true }).font('regular').text(`${result}${c.note ? ` – ${c.note}` : ''}`, { width });
   }
 
   const list = [...data.findings].sort(byRisk);

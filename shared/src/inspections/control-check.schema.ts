@@ -18,6 +18,20 @@ export const CONTROLS = [
 export const ControlSchema = z.enum(CONTROLS);
 export type Control = z.infer<typeof ControlSchema>;
 
+/** Each control in the trade's words: the phone's check cards, the report and the e-mail. */
+export const CONTROL_LABELS: Readonly<Record<Control, string>> = {
+  'toe-boards': 'Toe boards',
+  'brick-guards': 'Brick guards',
+  'netting-or-sheeting': 'Netting or sheeting',
+  'fans-or-canopies': 'Fans or canopies',
+  'exclusion-zone-barriers': 'Exclusion-zone barriers',
+  'tool-tethering': 'Tool tethering',
+  'material-storage': 'Material storage',
+  'chutes-and-lowering': 'Rubbish chutes and lowering',
+  'loading-bay-gates': 'Loading-bay gates',
+  'guardrail-mesh': 'Guard-rail mesh or screening',
+};
+
 export const CONTROL_RESULTS = ['pass', 'fail', 'not-applicable'] as const;
 export const ControlResultSchema = z.enum(CONTROL_RESULTS);
 export type ControlResult = z.infer<typeof ControlResultSchema>;

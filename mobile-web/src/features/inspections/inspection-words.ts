@@ -1,4 +1,4 @@
-import type { Control, InspectionReason } from '@plummet/shared';
+import { CONTROL_LABELS, type Control, type InspectionReason } from '@plummet/shared';
 
 export const REASON_WORDS: Record<InspectionReason, { label: string; hint: string }> = {
   scheduled: { label: 'Scheduled', hint: 'The regular inspection of the site’s regime' },
@@ -10,14 +10,14 @@ export const REASON_WORDS: Record<InspectionReason, { label: string; hint: strin
 
 /** The falling-object controls, in the trade's words with what to look for. */
 export const CONTROL_WORDS: Record<Control, { label: string; lookFor: string }> = {
-  'toe-boards': { label: 'Toe boards', lookFor: 'Fitted on every working lift, no gaps, secured' },
-  'brick-guards': { label: 'Brick guards', lookFor: 'Where materials are stacked above the toe board' },
-  'netting-or-sheeting': { label: 'Netting or sheeting', lookFor: 'Intact, tied in, no tears or open laps' },
-  'fans-or-canopies': { label: 'Fans or canopies', lookFor: 'Over walkways and entrances, boarded and clear' },
-  'exclusion-zone-barriers': { label: 'Exclusion-zone barriers', lookFor: 'Barriers and signs keep people out below' },
-  'tool-tethering': { label: 'Tool tethering', lookFor: 'Hand tools at height are tethered' },
-  'material-storage': { label: 'Material storage', lookFor: 'Stacked low, away from the edge, within guards' },
-  'chutes-and-lowering': { label: 'Rubbish chutes and lowering', lookFor: 'Waste goes down a chute or is lowered, never thrown or tipped' },
-  'loading-bay-gates': { label: 'Loading-bay gates', lookFor: 'Closed except while loading, no gap at the edge' },
-  'guardrail-mesh': { label: 'Guard-rail mesh or screening', lookFor: 'Fitted toe board to rail, openings small enough for what is handled' },
+  'toe-boards': { label: CONTROL_LABELS['toe-boards'], lookFor: 'Fitted on every working lift, no gaps, secured' },
+  'brick-guards': { label: CONTROL_LABELS['brick-guards'], lookFor: 'Where materials are stacked above the toe board' },
+  'netting-or-sheeting': { label: CONTROL_LABELS['netting-or-sheeting'], lookFor: 'Intact, tied in, no tears or open laps' },
+  'fans-or-canopies': { label: CONTROL_LABELS['fans-or-canopies'], lookFor: 'Over walkways and entrances, boarded and clear' },
+  'exclusion-zone-barriers': { label: CONTROL_LABELS['exclusion-zone-barriers'], lookFor: 'Barriers and signs keep people out below' },
+  'tool-tethering': { label: CONTROL_LABELS['tool-tethering'], lookFor: 'Hand tools at height are tethered' },
+  'material-storage': { label: CONTROL_LABELS['material-storage'], lookFor: 'Stacked low, away from the edge, within guards' },
+  'chutes-and-lowering': { label: CONTROL_LABELS['chutes-and-lowering'], lookFor: 'Waste goes down a chute or is lowered, never thrown or tipped' },
+  'loading-bay-gates': { label: CONTROL_LABELS['loading-bay-gates'], lookFor: 'Closed except while loading, no gap at the edge' },
+  'guardrail-mesh': { label: CONTROL_LABELS['guardrail-mesh'], lookFor: 'Fitted toe board to rail, openings small enough for what is handled' },
 };
