@@ -6,6 +6,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
+import { CONTROLS } from '@plummet/shared';
 import type { ParsedMail } from 'mailparser';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -14,19 +15,6 @@ import { flat, parseEml, pdfText } from '../../server/test/report-fixture.js';
 import { artifactPath, launchBrowser, launchPhone } from '../support/browser.js';
 import { choose, onScreen, saveFinding, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
-
-const CONTROLS = [
-  'toe-boards',
-  'brick-guards',
-  'netting-or-sheeting',
-  'fans-or-canopies',
-  'exclusion-zone-barriers',
-  'tool-tethering',
-  'material-storage',
-  'chutes-and-lowering',
-  'loading-bay-gates',
-  'guardrail-mesh',
-];
 
 const addresses = (m: ParsedMail) => [m.to, m.cc].flat().flatMap((a) => (a ? a.value.map((v) => v.address ?? '') : []));
 
