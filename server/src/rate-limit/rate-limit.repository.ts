@@ -39,17 +39,17 @@ export class RateLimitRepository {
     ex: DbExecutor = this.db,
   ): Promise<number | null> {
     await ex.execute(sql`INSERT INTO rate_limits (key, "count", reset_at) VALUES (${key}, 0, now()) ON CONFLICT (key) DO NOTHING`);
+    // Every value is computed from the row being updated, never from a sub-query: when attempts
+    // race, PostgreSQL re-reads the locked row for the later UPDATE, but a sub-query (or CTE) would
+    // keep its first snapshot, and two attempts would then store the same count.
+    const n = sql`(CASE WHEN reset_at <= now() THEN 1 ELSE "count" + 1 END)`;
     const taken = await ex.execute<{ count: number }>(sql`
-      WITH next AS (
-        SELECT CASE WHEN reset_at <= now() THEN 1 ELSE "count" + 1 END AS n FROM rate_limits WHERE key = ${key}
-      )
       UPDATE rate_limits SET
-        "count" = next.n,
+        "count" = ${n},
         reset_at = now() + (${rule.quietS}::int * interval '1 second'),
-        blocked_until = CASE WHEN next.n >= ${rule.freeAttempts}::int
-          THEN now() + least(${rule.maxDelayS}::float8, ${rule.baseDelayS}::float8 * power(2, next.n - ${rule.freeAttempts}::int)) * interval '1 second'
+        blocked_until = CASE WHEN ${n} >= ${rule.freeAttempts}::int
+          THEN now() + least(${rule.maxDelayS}::float8, ${rule.baseDelayS}::float8 * power(2, ${n} - ${rule.freeAttempts}::int)) * interval '1 second'
           ELSE NULL END
-      FROM next
       WHERE key = ${key} AND (blocked_until IS NULL OR blocked_until <= now() OR reset_at <= now())
       RETURNING "count"`);
     if (taken.rows.length > 0) return null;
