@@ -411,7 +411,9 @@ describe('the inspector’s walk with no signal', () => {
 
     await onScreen(page, 'sign-out').click();
     // The walk reached the server before; the units change waits (with whatever else was made since).
-    expect(await onScreen(page, 'sign-out-warning').innerText()).toContain(waiting + 1 === 1 ? '1 change has not reached the server yet' : `${waiting + 1} changes have not reached the server yet`);
+    await expect
+      .poll(() => onScreen(page, 'sign-out-warning').innerText())
+      .toContain(waiting + 1 === 1 ? '1 change has not reached the server yet' : `${waiting + 1} changes have not reached the server yet`);
     await onScreen(page, 'confirm-sign-out').click();
     await onScreen(page, 'home-sign-in').waitFor();
     expect(await readTable(page, 'outbox')).toEqual([]);

@@ -1,10 +1,9 @@
 import { IonInput } from '@ionic/react';
 import { SHAPE_DIMENSIONS, SHAPE_KINDS, ORIENTATIONS, type Orientation } from '@plummet/shared';
-import { useMemo, useState } from 'react';
 import { ChoiceGroup } from '../../../components/ChoiceGroup';
 import { NumberField } from '../../../components/NumberField';
 import type { CatalogueItemRecord } from '../../../local-db/records';
-import { searchCatalogue } from '../../catalogue/catalogue-search';
+import { CatalogueSearch } from '../../catalogue/components/CatalogueSearch';
 import { formatQuantity, unitLabel, type Units } from '../../../lib/units';
 import type { FindingForm, FormReading, ItemMode, ShapeChoice } from '../finding-form';
 import { describeShape, DIMENSION_WORDS, ORIENTATION_WORDS, SHAPE_WORDS } from '../finding-words';
@@ -23,8 +22,6 @@ const SHAPE_CHOICES: ShapeChoice[] = [...SHAPE_KINDS, 'unknown'];
 
 /** The item: found in the catalogue as the inspector types, or described (mass, shape, size). */
 export function ItemPicker({ form, onChange, catalogue, units, problems, showProblems }: ItemPickerProps) {
-  const [query, setQuery] = useState('');
-  const hits = useMemo(() => searchCatalogue(catalogue, query), [catalogue, query]);
   const chosen = catalogue.find((item) => item.id === form.catalogueItemId);
   const sizeUnit = unitLabel('size', units);
 
@@ -43,7 +40,7 @@ export function ItemPicker({ form, onChange, catalogue, units, problems, showPro
       {form.itemMode === 'catalogue' ? (
         <>
           {chosen && (
-            <div className="item-picker__chosen" data-testid="chosen-item">
+            <div className="catalogue-search__chosen" data-testid="chosen-item">
               <strong>{chosen.name}</strong>
               <span>
                 {formatQuantity('mass', chosen.massKg, units)} · {describeShape(chosen.shape, units)}
@@ -51,37 +48,17 @@ export function ItemPicker({ form, onChange, catalogue, units, problems, showPro
               <span className="item-picker__source">Source: {chosen.source}</span>
             </div>
           )}
-          <IonInput
+          <CatalogueSearch
+            catalogue={catalogue}
+            units={units}
             label={chosen ? 'Search for another item' : 'Search the catalogue'}
-            labelPlacement="stacked"
-            fill="outline"
-            type="search"
             placeholder="e.g. coupler, hammer, brick"
-            value={query}
-            onIonInput={(event) => setQuery(String(event.detail.value ?? ''))}
-            data-testid="item-search"
+            noMatchHint="Try another word, or describe the item."
+            onPick={(item) => onChange({ catalogueItemId: item.id })}
+            searchTestId="item-search"
+            hitsTestId="item-hits"
+            hitTestId="item-hit"
           />
-          {query.trim() !== '' && (
-            <ul className="item-picker__hits" data-testid="item-hits">
-              {hits.length === 0 && <li className="muted item-picker__none">Nothing matches. Try another word, or describe the item.</li>}
-              {hits.map((item) => (
-                <li key={item.id}>
-                  <button
-                    type="button"
-                    className="item-picker__hit"
-                    onClick={() => {
-                      onChange({ catalogueItemId: item.id });
-                      setQuery('');
-                    }}
-                    data-testid="item-hit"
-                  >
-                    <span className="item-picker__hit-name">{item.name}</span>
-                    <span className="item-picker__hit-mass">{formatQuantity('mass', item.massKg, units)}</span>
-                  </button>
-                </li>
-              ))}
-            </ul>
-          )}
           {showProblems && problems.item && <p className="field-error item-picker__problem">{problems.item}</p>}
         </>
       ) : (

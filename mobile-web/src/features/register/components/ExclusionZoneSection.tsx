@@ -1,4 +1,4 @@
-import { IonButton, IonInput, IonNote } from '@ionic/react';
+import { IonButton, IonNote } from '@ionic/react';
 import type { ExclusionZone } from '@plummet/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
@@ -6,12 +6,12 @@ import { CautionNote } from '../../../components/CautionNote';
 import { NumberField } from '../../../components/NumberField';
 import { formatForInput, formatQuantity, unitLabel, windForInput, windUnitLabel, type Units, type WindUnits } from '../../../lib/units';
 import { useOnlineStatus } from '../../../lib/use-online-status';
-import { catalogueRecordOf, searchCatalogue } from '../../catalogue/catalogue-search';
+import { catalogueRecordOf } from '../../catalogue/catalogue-search';
+import { CatalogueSearch } from '../../catalogue/components/CatalogueSearch';
 import { fetchCatalogue } from '../../catalogue/catalogue.api';
 import { useCatalogue } from '../../catalogue/catalogue.queries';
 import { describeExclusionZone, readZoneForm } from '../exclusion-zone-view';
 import { useExclusionZones, useSaveExclusionZoneMutation } from '../exclusion-zone.queries';
-import '../../findings/components/ItemPicker.css';
 import '../../scaffolds/pages/ScaffoldPage.css';
 import './ExclusionZoneSection.css';
 
@@ -123,51 +123,28 @@ function ZoneForm({ zone, units, windUnits, online, onDone }: { zone: ExclusionZ
   const catalogue = useMemo(() => (kept && kept.length > 0 ? kept : (fetched.data ?? []).map(catalogueRecordOf)), [kept, fetched.data]);
   const save = useSaveExclusionZoneMutation(zone.scaffoldId);
   const [itemId, setItemId] = useState<string | null>(zone.heaviestItem?.id ?? null);
-  const [query, setQuery] = useState('');
   const [windText, setWindText] = useState(windForInput(zone.limitingWindMps, windUnits));
   const [widthText, setWidthText] = useState(zone.barrieredWidthM === null ? '' : formatForInput('distance', zone.barrieredWidthM, units));
-  const hits = useMemo(() => searchCatalogue(catalogue, query), [catalogue, query]);
   const chosen = catalogue.find((item) => item.id === itemId) ?? (zone.heaviestItem?.id === itemId ? zone.heaviestItem : undefined);
   const { body, problems } = readZoneForm({ heaviestItemId: itemId, windText, widthText }, units, windUnits);
 
   return (
     <div className="exclusion-zone__form" data-testid="zone-form">
       {chosen && (
-        <p className="item-picker__chosen" data-testid="zone-chosen-item">
+        <p className="catalogue-search__chosen" data-testid="zone-chosen-item">
           <strong>{chosen.name}</strong> <span>{formatQuantity('mass', chosen.massKg, units)}</span>
         </p>
       )}
-      <IonInput
+      <CatalogueSearch
+        catalogue={catalogue}
+        units={units}
         label={chosen ? 'Heaviest item: search for another' : 'Heaviest item handled there: search the catalogue'}
-        labelPlacement="stacked"
-        fill="outline"
-        type="search"
         placeholder="e.g. board, tube, clip"
-        value={query}
-        onIonInput={(event) => setQuery(String(event.detail.value ?? ''))}
-        data-testid="zone-item-search"
+        noMatchHint="Try another word."
+        onPick={(item) => setItemId(item.id)}
+        searchTestId="zone-item-search"
+        hitTestId="zone-item-hit"
       />
-      {query.trim() !== '' && (
-        <ul className="item-picker__hits">
-          {hits.length === 0 && <li className="muted item-picker__none">Nothing matches. Try another word.</li>}
-          {hits.map((item) => (
-            <li key={item.id}>
-              <button
-                type="button"
-                className="item-picker__hit"
-                onClick={() => {
-                  setItemId(item.id);
-                  setQuery('');
-                }}
-                data-testid="zone-item-hit"
-              >
-                <span className="item-picker__hit-name">{item.name}</span>
-                <span className="item-picker__hit-mass">{formatQuantity('mass', item.massKg, units)}</span>
-              </button>
-            </li>
-          ))}
-        </ul>
-      )}
       <NumberField
         label="Limiting wind speed: work at height stops above"
         unit={windUnitLabel(windUnits)}
