@@ -64,6 +64,8 @@ async function setTag(page: Page, url: string, scaffoldId: string, status: strin
   await onScreen(page, 'change-tag').click();
   await choose(page, 'tag-change-status', status);
   await typeInto(page, 'tag-change-note', note);
+  await onScreen(page, 'tag-change-save').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: artifactPath(`scaffold-tag-${status}.png`) });
   await onScreen(page, 'tag-change-save').click();
   await expect.poll(() => onScreen(page, 'scaffold-status').first().getAttribute('data-status')).toBe(status);
 }
@@ -194,6 +196,8 @@ describe('two phones edit the same finding offline', () => {
     expect(await card.getByTestId('conflict-field').textContent()).toBe('Tag status');
     expect(await card.getByTestId('conflict-current').textContent()).toBe('Limited use');
     expect(await card.getByTestId('conflict-replaced').textContent()).toBe('Cleared for use');
+    await card.getByTestId('keep-current').scrollIntoViewIfNeeded();
+    await b.screenshot({ path: artifactPath('sync-conflict-tag.png') });
     await card.getByTestId('keep-current').click();
     await onScreen(b, 'no-conflicts').waitFor({ timeout: 15_000 });
     expect(errors).toEqual([]);
