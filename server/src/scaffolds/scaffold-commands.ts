@@ -5,7 +5,8 @@
  * not seen each other clash, the more restrictive tag stands and the other waits in a conflict that
  * names its writer), one audit event with the transition and its reason, one typed rejection
  * (AppError). The adapters (scaffolds.service.ts for REST, sync/record-sync.service.ts for push)
- * only translate. Finishing an inspection writes the tag it recorded through tagOfInspection().
+ * only translate. Finishing an inspection and recording an alteration or adverse weather write the
+ * tag through seenTagWrite(), so a later push that had not seen it is a conflict too.
  */
 import { Injectable } from '@nestjs/common';
 import { type FieldConflict, type FieldStamps, mergeFieldPatch, SCAFFOLD_MERGE_POLICIES, ScaffoldStatusChangeSchema, type ScaffoldStatus } from '@plummet/shared';
@@ -29,10 +30,10 @@ export interface ScaffoldCommandResult {
 export const TAG_SETTERS = ['inspector', 'manager', 'admin'] as const;
 
 /**
- * The tag an inspection recorded, as a write of the status field by the finishing inspector (it has
- * seen the scaffold as it is): the changed status and its stamp, or nothing when it is the same.
+ * A tag set on the server by a write that has seen the scaffold as it is (an inspection's recorded
+ * tag, a trigger closing it): the changed status with its stamp, or nothing when it is the same.
  */
-export function tagOfInspection(scaffold: ScaffoldRow, status: ScaffoldStatus, actor: CommandActor, at: Date): { status?: ScaffoldStatus; syncFields?: FieldStamps } {
+export function seenTagWrite(scaffold: ScaffoldRow, status: ScaffoldStatus, actor: CommandActor, at: Date): { status?: ScaffoldStatus; syncFields?: FieldStamps } {
   const merge = mergeFieldPatch({
     current: scaffold,
     stamps: (scaffold.syncFields ?? {}) as FieldStamps,

@@ -280,6 +280,16 @@ describe('a scaffold’s tag through push: the more restrictive tag stands', () 
     expect((await scaffoldOutcome(scaffoldId)).status).toBe('closed');
   });
 
+  it('keeps a scaffold closed by a recorded alteration against an offline tag that had not seen it', async () => {
+    const id = await newScaffold();
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/trigger`, { kind: 'altered', note: 'Bay 3 ties moved' })).status).toBe(201);
+    // The phone last saw it cleared (version 2) and limits it offline: the closure stands.
+    const late = await push('demo:inspector', tag(id, 'limited', 2));
+    expect(late.outcome).toBe('conflict');
+    expect((await scaffoldOutcome(id)).status).toBe('closed');
+  });
+
   it('brings the stamped tag and its conflict back through the pull', async () => {
     const id = await newScaffold();
     const clientId = randomUUID();
