@@ -57,6 +57,19 @@ async function editFinding(page: Page, url: string, id: string, edit: (page: Pag
   await expect.poll(() => onScreen(page, 'outbox-count').getAttribute('data-count')).toBe('1');
 }
 
+/** Sets a scaffold's tag on its screen with a reason, as an inspector does on site. */
+async function setTag(page: Page, url: string, scaffoldId: string, status: string, note: string): Promise<void> {
+  await page.goto(`${url}/scaffolds/${scaffoldId}`);
+  await onScreen(page, 'scaffold-page').waitFor();
+  await onScreen(page, 'change-tag').click();
+  await choose(page, 'tag-change-status', status);
+  await typeInto(page, 'tag-change-note', note);
+  await onScreen(page, 'tag-change-save').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: artifactPath(`scaffold-tag-${status}.png`) });
+  await onScreen(page, 'tag-change-save').click();
+  await expect.poll(() => onScreen(page, 'scaffold-status').first().getAttribute('data-status')).toBe(status);
+}
+
 async function storedFinding(page: Page, id: string): Promise<StoredFinding> {
   return (await readTable<StoredFinding>(page, 'findings')).find((finding) => finding.id === id)!;
 }
@@ -65,6 +78,8 @@ describe('two phones edit the same finding offline', () => {
   let server: RunningServer;
   let phoneA: Phone;
   let phoneB: Phone;
+  /** The two signed-in pages, kept for the next test. */
+  const pages: Page[] = [];
   const errors: string[] = [];
 
   beforeAll(async () => {
@@ -80,6 +95,7 @@ describe('two phones edit the same finding offline', () => {
   it('merges different fields, keeps both texts of a notes clash with a conflict, and settles it in the app', async () => {
     const a = await signInAndKeepOffline(phoneA, server.url, errors);
     const b = await signInAndKeepOffline(phoneB, server.url, errors);
+    pages.push(a, b);
     const seeded = (await readTable<StoredFinding>(a, 'findings')).find((finding) => finding.notes === SEEDED_NOTES)!;
     expect(seeded).toBeDefined();
     expect((await storedFinding(b, seeded.id)).version).toBe(seeded.version);
@@ -150,6 +166,40 @@ describe('two phones edit the same finding offline', () => {
       await onScreen(page, 'finding-editor').waitFor();
       await expect.poll(() => onScreen(page, 'finding-notes').inputValue()).toBe(NOTES_A);
     }
+    expect(errors).toEqual([]);
+  });
+
+  it('sends a tag set offline once the connection returns; against another phone’s unseen tag the more restrictive stands, settled on the conflict card', async () => {
+    const [a, b] = pages as [Page, Page];
+    const qlA = (await readTable<{ id: string; reference: string }>(a, 'scaffolds')).find((scaffold) => scaffold.reference === 'QL-A')!;
+    await goOffline(phoneA, a);
+    await goOffline(phoneB, b);
+    await setTag(a, server.url, qlA.id, 'limited', 'Lifts 1–4 only: ties out above');
+    await setTag(b, server.url, qlA.id, 'cleared', 'Ties back in');
+    expect((await readTable<StoredEntry>(a, 'outbox')).map((entry) => [entry.entity, entry.action, entry.payload])).toEqual([
+      ['scaffold', 'status', { status: 'limited', note: 'Lifts 1–4 only: ties out above' }],
+    ]);
+
+    // A reconnects first: its tag reaches the server. Then B's cleared tag clashes with it and the limited tag stands.
+    await phoneA.context.setOffline(false);
+    await expect.poll(() => onScreen(a, 'outbox-count').getAttribute('data-count'), { timeout: 20_000 }).toBe('0');
+    await phoneB.context.setOffline(false);
+    await expect.poll(() => onScreen(b, 'outbox-count').getAttribute('data-count'), { timeout: 30_000 }).toBe('0');
+    await expect.poll(() => onScreen(b, 'sync-attention').textContent(), { timeout: 30_000 }).toBe('1 conflict to settle');
+    await expect.poll(async () => (await readTable<{ id: string; status: string }>(b, 'scaffolds')).find((s) => s.id === qlA.id)?.status, { timeout: 15_000 }).toBe('limited');
+
+    await onScreen(b, 'sync-badge').click();
+    await onScreen(b, 'sync-page').waitFor();
+    const card = onScreen(b, 'conflict-card');
+    await card.waitFor();
+    expect(await card.getAttribute('data-entity')).toBe('scaffold');
+    expect(await card.getByTestId('conflict-field').textContent()).toBe('Tag status');
+    expect(await card.getByTestId('conflict-current').textContent()).toBe('Limited use');
+    expect(await card.getByTestId('conflict-replaced').textContent()).toBe('Cleared for use');
+    await card.getByTestId('keep-current').scrollIntoViewIfNeeded();
+    await b.screenshot({ path: artifactPath('sync-conflict-tag.png') });
+    await card.getByTestId('keep-current').click();
+    await onScreen(b, 'no-conflicts').waitFor({ timeout: 15_000 });
     expect(errors).toEqual([]);
   });
 });

@@ -2,7 +2,8 @@
  * Records leave the phone through the pull: the real client sync engine over fake-indexeddb
  * against the real server and PostgreSQL. An archived scaffold leaves every phone with its
  * findings; a foreman reassigned away from a finding loses it (and the scaffold it brought) from
- * their phone, while the inspector's phone keeps both.
+ * their phone, while the inspector's phone keeps both. And a scaffold's tag set offline reaches
+ * the server after reconnecting, the more restrictive tag standing against one set meanwhile.
  */
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
@@ -92,5 +93,31 @@ describe('records leave the phone through the pull', () => {
     await syncUntil(inspector, async () => !!(await inspector.db.findings.get(finding.id)));
     expect(await inspector.db.findings.get(finding.id)).toMatchObject({ assigneeId: null });
     expect(await inspector.db.scaffolds.get(DEMO.loadingBayScaffold)).toBeDefined();
+  });
+});
+
+describe('a scaffold’s tag set offline', () => {
+  it('reaches the server after reconnecting; against a tag set meanwhile, the more restrictive stands and the phone gets the conflict', async () => {
+    const scaffold = await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(DEMO.quaysideSite));
+    const phone = phoneOf('demo:inspector');
+    await syncUntil(phone, async () => !!(await phone.db.scaffolds.get(scaffold.id)));
+    expect(await phone.db.scaffolds.get(scaffold.id)).toMatchObject({ status: 'closed', version: 1 });
+
+    phone.online = false;
+    await m.changeScaffoldStatus(phone.db, scaffold.id, { status: 'limited', note: 'Lifts 1–3 only' });
+    expect(await phone.engine.sync()).toBe('offline');
+    expect(await phone.db.outbox.count()).toBe(1);
+    // Meanwhile, unseen by the phone, a manager clears it.
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${scaffold.id}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+
+    phone.online = true;
+    await syncUntil(phone, async () => (await phone.db.scaffolds.get(scaffold.id))?.version === 3);
+    expect(await phone.db.outbox.count()).toBe(0);
+    expect((await api.call('demo:manager', 'GET', `/scaffolds/${scaffold.id}`)).body).toMatchObject({ status: 'limited', version: 3 });
+    expect(await phone.db.scaffolds.get(scaffold.id)).toMatchObject({ status: 'limited', version: 3 });
+    const conflicts = Object.values(((await phone.db.meta.get(m.SYNC_META.conflicts))?.value ?? {}) as Record<string, Record<string, unknown>>);
+    expect(conflicts).toEqual([
+      expect.objectContaining({ entity: 'scaffold', entityId: scaffold.id, field: 'status', currentValue: 'limited', replacedValue: 'cleared', replacedUserId: api.userIds['demo:manager'] }),
+    ]);
   });
 });

@@ -48,7 +48,9 @@ interface MobileModules {
   httpSyncTransport(fetchImpl: FetchLike): unknown;
   saveFinding(db: MobileDb, finding: PhoneFinding): Promise<void>;
   sampleFinding(overrides: Partial<PhoneFinding>): PhoneFinding;
-  SYNC_META: { cursor: string; clientId: string };
+  /** The scaffold store: the tag set on the phone with its outbox entry. */
+  changeScaffoldStatus(db: MobileDb, scaffoldId: string, change: { status: string; note: string }): Promise<PhoneRecord>;
+  SYNC_META: { cursor: string; clientId: string; conflicts: string };
 }
 
 const load = (path: string) =>
@@ -60,7 +62,7 @@ let mobile: MobileModules | undefined;
 export async function loadMobile(): Promise<MobileModules> {
   if (!mobile) {
     const modules = await Promise.all(
-      ['local-db/db', 'local-db/outbox', 'sync/sync-engine', 'sync/sync-transport', 'features/findings/findings.store', 'local-db/testing', 'sync/sync-state'].map(load),
+      ['local-db/db', 'local-db/outbox', 'sync/sync-engine', 'sync/sync-transport', 'features/findings/findings.store', 'features/scaffolds/scaffolds.store', 'local-db/testing', 'sync/sync-state'].map(load),
     );
     mobile = Object.assign({}, ...modules) as MobileModules;
   }

@@ -21,6 +21,7 @@ import type {
   InspectionUpdate,
   PhotoOwnerType,
   Scaffold,
+  ScaffoldStatusChange,
   Site,
   UserProfileUpdate,
   ControlCheckPut,
@@ -119,6 +120,7 @@ export type OutboxChange =
   | { entity: 'finding'; action: 'state'; payload: FindingStateChangeInput }
   | { entity: 'finding'; action: 'assign'; payload: FindingAssign }
   | { entity: 'finding'; action: 'hand-back'; payload: FindingHandBackInput }
+  | { entity: 'scaffold'; action: 'status'; payload: ScaffoldStatusChange }
   | { entity: 'photo'; action: 'upload'; payload: { id: string; ownerType: PhotoOwnerType; ownerId: string; takenAt?: IsoDateTime } }
   | { entity: 'user'; action: 'update'; payload: UserProfileUpdate };
 

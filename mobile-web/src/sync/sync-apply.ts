@@ -22,13 +22,14 @@ export interface Waiting {
 }
 
 async function waitingChanges(database: PlummetDb): Promise<Waiting> {
-  const [finding, inspection, controlCheckInspections] = await Promise.all([
+  const [finding, inspection, controlCheckInspections, scaffold] = await Promise.all([
     idsWithWaitingChanges(database, 'finding'),
     idsWithWaitingChanges(database, 'inspection'),
     idsWithWaitingChanges(database, 'control-check'),
+    // A tag status set on this phone and not sent yet.
+    idsWithWaitingChanges(database, 'scaffold'),
   ]);
-  // Scaffold status goes to the server straight from its screen (no outbox entry yet).
-  return { finding, inspection, controlCheckInspections, scaffold: new Set() };
+  return { finding, inspection, controlCheckInspections, scaffold };
 }
 
 /** Every table a page may touch (one transaction for the page and its cursor). */

@@ -33,11 +33,11 @@ export interface SyncEngineOptions {
 
 export type SyncRunOutcome = 'done' | 'offline' | 'error';
 
-type PushableEntry = Extract<OutboxEntry, { entity: 'finding' | 'inspection' | 'control-check' | 'user' }>;
+type PushableEntry = Extract<OutboxEntry, { entity: 'finding' | 'inspection' | 'control-check' | 'scaffold' | 'user' }>;
 
-/** Every record change travels as a mutation; only photo bytes go to their own route. */
+/** Every record change travels as a mutation (a scaffold's tag status too); only photo bytes go to their own route. */
 const pushable = (entry: OutboxEntry): entry is PushableEntry =>
-  entry.entity === 'finding' || entry.entity === 'inspection' || entry.entity === 'control-check' || entry.entity === 'user';
+  entry.entity === 'finding' || entry.entity === 'inspection' || entry.entity === 'control-check' || entry.entity === 'scaffold' || entry.entity === 'user';
 
 export class SyncEngine {
   private running: Promise<SyncRunOutcome> | null = null;
@@ -150,7 +150,7 @@ export class SyncEngine {
   /** Gives the entries their mutation ids (kept for retries) and marks them tried, so no later edit folds into them. */
   private async prepare(entries: PushableEntry[]): Promise<{ mutations: SyncMutationInput[]; byMutation: Map<number, number> }> {
     const db = this.database;
-    return db.transaction('rw', [db.outbox, db.meta, db.findings, db.inspections, db.controlChecks], async () => {
+    return db.transaction('rw', [db.outbox, db.meta, db.findings, db.inspections, db.controlChecks, db.scaffolds], async () => {
       const assignments = await readAssignments(db);
       let next = (await readMeta<number>(db, SYNC_META.nextMutationId)) ?? 1;
       const mutations: SyncMutationInput[] = [];
@@ -185,6 +185,8 @@ export class SyncEngine {
         return (await db.inspections.get(entry.entityId))?.version ?? 0;
       case 'control-check':
         return (await db.controlChecks.get(entry.entityId))?.version ?? 0;
+      case 'scaffold':
+        return (await db.scaffolds.get(entry.entityId))?.version ?? 0;
       case 'user': {
         const profile = await readMeta<{ id?: string; version?: number }>(db, SYNC_META.profile);
         const session = await readMeta<{ user?: { id?: string; version?: number } }>(db, SESSION_META);

@@ -36,6 +36,7 @@ import { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { registerContextOf } from '../register/register-context.js';
 import { RegisterRepository } from '../register/register.repository.js';
 import { toScaffold } from '../scaffolds/scaffold.mapper.js';
+import { seenTagWrite } from '../scaffolds/scaffold-commands.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { InspectionCommandRepository } from './inspection-command.repository.js';
 import { type ControlCheckRow, type InspectionRow, toControlCheck, toInspection } from './inspection.mapper.js';
@@ -171,8 +172,9 @@ export class InspectionCommands {
     if (target && (!target.scaffold.lastInspectedAt || target.scaffold.lastInspectedAt < finishedAt)) {
       const context = registerContextOf(target.site, target.scaffold);
       const nextDueAt = nextInspectionDue(finishedAt, context.regime, context.timeZone);
-      // The tag status the inspector recorded becomes the scaffold's (none recorded: it stays as it was).
-      const status = input.tagStatus ? { status: input.tagStatus } : {};
+      // The tag status the inspector recorded becomes the scaffold's (none recorded: it stays as it
+      // was), stamped as a write of the field, so a later push that had not seen it is a conflict.
+      const status = input.tagStatus ? seenTagWrite(target.scaffold, input.tagStatus, actor, await this.writes.now(tx)) : {};
       const scaffold = toScaffold(await this.scaffolds.update(target.scaffold.id, { lastInspectedAt: finishedAt, nextDueAt, ...status }, tx));
       await this.audit.record(tx, user, { entityType: 'scaffold', entityId: scaffold.id, action: 'inspected', before: toScaffold(target.scaffold), after: scaffold });
     }

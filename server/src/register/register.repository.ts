@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, inArray, isNull, lte, type SQL, sql } from 'drizzle-orm';
-import type { InspectionRegime, ScaffoldStatus, ScaffoldTriggerKind } from '@plummet/shared';
+import type { FieldStamps, InspectionRegime, ScaffoldStatus, ScaffoldTriggerKind } from '@plummet/shared';
 import { scaffoldInScope } from '../common/foreman-scope.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { scaffolds, scaffoldTriggers, sites } from '../db/schema/index.js';
@@ -29,7 +29,7 @@ export class RegisterRepository {
   /** Closes the scaffold and makes its inspection due (an alteration also stamps when it was altered). */
   async closeForTrigger(
     scaffoldId: string,
-    changes: { status: ScaffoldStatus; nextDueAt: Date; alteredAt?: Date },
+    changes: { status?: ScaffoldStatus; syncFields?: FieldStamps; nextDueAt: Date; alteredAt?: Date },
     executor: DbExecutor = this.db,
   ): Promise<typeof scaffolds.$inferSelect> {
     const [row] = await executor

@@ -20,6 +20,7 @@ import { AppError, ErrorCode } from '../common/app-error.js';
 import { scopedForeman } from '../common/foreman-scope.js';
 import { DRIZZLE, type Db } from '../db/db.tokens.js';
 import { toScaffold } from '../scaffolds/scaffold.mapper.js';
+import { seenTagWrite } from '../scaffolds/scaffold-commands.js';
 import { ScaffoldsRepository } from '../scaffolds/scaffolds.repository.js';
 import { SitesRepository } from '../sites/sites.repository.js';
 import { registerContextOf } from './register-context.js';
@@ -79,7 +80,10 @@ export class RegisterService {
       if (!target || (foremanId && !(await this.scaffolds.inForemanScope(scaffoldId, foremanId, tx)))) throw AppError.notFound('Scaffold');
       if (target.scaffold.archivedAt) throw new AppError(ErrorCode.Conflict, 'The scaffold is archived');
       const now = new Date();
-      const row = await this.register.closeForTrigger(scaffoldId, { ...applyTrigger(now), ...(input.kind === 'altered' ? { alteredAt: now } : {}) }, tx);
+      const { status, nextDueAt } = applyTrigger(now);
+      // Closing is a stamped write of the tag: a phone's unseen offline tag then clashes with it, and closed stands.
+      const tag = seenTagWrite(target.scaffold, status, { user, clientId: null, mutationId: null }, now);
+      const row = await this.register.closeForTrigger(scaffoldId, { nextDueAt, ...tag, ...(input.kind === 'altered' ? { alteredAt: now } : {}) }, tx);
       const trigger = toScaffoldTrigger(
         await this.register.insertTrigger(
           { organisationId: user.organisationId, scaffoldId, kind: input.kind, note: input.note, recordedBy: user.userId, recordedAt: now },

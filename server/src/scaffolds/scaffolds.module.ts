@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
 import { AuditModule } from '../audit/audit.module.js';
 import { SitesModule } from '../sites/sites.module.js';
+import { ScaffoldCommandRepository } from './scaffold-command.repository.js';
+import { ScaffoldCommands } from './scaffold-commands.js';
 import { ScaffoldsController } from './scaffolds.controller.js';
 import { ScaffoldsRepository } from './scaffolds.repository.js';
 import { ScaffoldsService } from './scaffolds.service.js';
@@ -8,7 +10,7 @@ import { ScaffoldsService } from './scaffolds.service.js';
 @Module({
   imports: [AuditModule, SitesModule],
   controllers: [ScaffoldsController],
-  providers: [ScaffoldsRepository, ScaffoldsService],
-  exports: [ScaffoldsRepository],
+  providers: [ScaffoldsRepository, ScaffoldCommandRepository, ScaffoldCommands, ScaffoldsService],
+  exports: [ScaffoldsRepository, ScaffoldCommands],
 })
 export class ScaffoldsModule {}

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, inArray, isNotNull, lt, type SQL, sql } from 'drizzle-orm';
-import type { InspectionRegime, ScaffoldCreate, ScaffoldListQuery, ScaffoldStatus, ScaffoldUpdate } from '@plummet/shared';
+import type { FieldStamps, InspectionRegime, ScaffoldCreate, ScaffoldListQuery, ScaffoldStatus, ScaffoldUpdate } from '@plummet/shared';
 import { scaffoldInScope } from '../common/foreman-scope.js';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
@@ -81,7 +81,7 @@ export class ScaffoldsRepository {
 
   async update(
     id: string,
-    changes: Omit<ScaffoldUpdate, 'version'> & { status?: ScaffoldStatus; lastInspectedAt?: Date; nextDueAt?: Date; archivedAt?: Date },
+    changes: Omit<ScaffoldUpdate, 'version'> & { status?: ScaffoldStatus; syncFields?: FieldStamps; lastInspectedAt?: Date; nextDueAt?: Date; archivedAt?: Date },
     executor: DbExecutor = this.db,
   ): Promise<ScaffoldRow> {
     const [row] = await executor

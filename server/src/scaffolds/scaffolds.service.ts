@@ -15,6 +15,7 @@ import { scopedForeman } from '../common/foreman-scope.js';
 import { toPage } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { SitesRepository } from '../sites/sites.repository.js';
+import { ScaffoldCommands } from './scaffold-commands.js';
 import { toScaffold } from './scaffold.mapper.js';
 import { ScaffoldsRepository } from './scaffolds.repository.js';
 
@@ -33,6 +34,7 @@ export class ScaffoldsService {
     private readonly scaffolds: ScaffoldsRepository,
     private readonly sites: SitesRepository,
     private readonly audit: AuditService,
+    private readonly commands: ScaffoldCommands,
   ) {}
 
   async list(user: AuthUser, query: ScaffoldListQuery): Promise<ListResponse<Scaffold>> {
@@ -77,21 +79,13 @@ export class ScaffoldsService {
     });
   }
 
-  /** The tag on the scaffold (cleared / limited / closed, shown in Plummet's own words), changed on site with a reason. */
+  /**
+   * The tag on the scaffold (cleared / limited / closed, shown in Plummet's own words), changed on
+   * site with a reason: the one command (scaffold-commands.ts), as a phone's push runs it.
+   */
   async changeStatus(user: AuthUser, id: string, input: ScaffoldStatusChange): Promise<Scaffold> {
-    return this.db.transaction(async (tx) => {
-      const current = await this.scaffolds.find(user.organisationId, id, tx, true);
-      if (!current) throw AppError.notFound('Scaffold');
-      const scaffold = toScaffold(await this.scaffolds.update(id, { status: input.status }, tx));
-      await this.audit.record(tx, user, {
-        entityType: 'scaffold',
-        entityId: id,
-        action: 'status',
-        before: toScaffold(current),
-        after: { ...scaffold, statusNote: input.note },
-      });
-      return scaffold;
-    });
+    const actor = { user, clientId: null, mutationId: null };
+    return toScaffold((await this.db.transaction((tx) => this.commands.changeStatus(tx, actor, id, input))).row);
   }
 
   /**

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { created, DEMO, type DataApi, EVERYONE, finishBody, inspectionBody, startDataApi, type Who } from '../../test/data-api.js';
+import { created, DEMO, type DataApi, EVERYONE, finishBody, inspectionBody, scaffoldBody, startDataApi, type Who } from '../../test/data-api.js';
 
 let api: DataApi;
 beforeAll(async () => {
@@ -40,13 +40,23 @@ const outcome = (i: Inspection) => ({
   checks: i.controlChecks.map((c) => ({ control: c.control, result: c.result, note: c.note, version: c.version })),
 });
 
+/** A fresh scaffold (closed, version 1) on the demo's quayside site. */
+const newScaffold = async () => (await created(api, 'demo:admin', 'POST', '/scaffolds', scaffoldBody(DEMO.quaysideSite))).id;
+type Scaffold = { status: string; version: number };
+const scaffoldOutcome = async (id: string) => {
+  const s = (await api.call('demo:manager', 'GET', `/scaffolds/${id}`)).body as Scaffold;
+  return { status: s.status, version: s.version };
+};
+
 interface CommandCase {
   command: string;
   target?: () => Promise<string>;
   rest(id: string): { method: string; path: string; body: Body };
   push(id: string): Body & { entityId: string };
-  /** The record to compare afterwards (the inspection's id). */
+  /** The record to compare afterwards (the inspection's id, or the target's when `read` is given). */
   inspectionOf(id: string, mutation: Body & { entityId: string }): string;
+  /** What two runs must agree on, for a record that is not an inspection. */
+  read?: (id: string) => Promise<unknown>;
   /** In the order of EVERYONE: [demo admin, manager, inspector, foreman, other admin, manager, inspector, foreman]. */
   expect: readonly number[];
 }
@@ -113,10 +123,29 @@ const COMMANDS: CommandCase[] = [
     inspectionOf: (id) => id,
     expect: [403, 403, 409, 403, 403, 403, 404, 403],
   },
+  {
+    command: 'set a scaffold’s tag',
+    target: newScaffold,
+    rest: (id) => ({ method: 'POST', path: `/scaffolds/${id}/status`, body: { status: 'limited', note: 'Top lift boarded out only' } }),
+    push: (id) => ({ entityId: id, entity: 'scaffold', action: 'status', baseVersion: 1, payload: { status: 'limited', note: 'Top lift boarded out only' } }),
+    inspectionOf: (id) => id,
+    read: scaffoldOutcome,
+    expect: [200, 200, 200, 403, 404, 404, 404, 403],
+  },
+  {
+    command: 'confirm a scaffold’s tag it already has',
+    target: newScaffold,
+    rest: (id) => ({ method: 'POST', path: `/scaffolds/${id}/status`, body: { status: 'closed', note: 'Ties removed on lift 3' } }),
+    push: (id) => ({ entityId: id, entity: 'scaffold', action: 'status', baseVersion: 1, payload: { status: 'closed', note: 'Ties removed on lift 3' } }),
+    inspectionOf: (id) => id,
+    read: scaffoldOutcome,
+    expect: [200, 200, 200, 403, 404, 404, 404, 403],
+  },
 ];
 
-describe('every inspection command gives the same outcome through REST and through push, for every role of both organisations', () => {
+describe('every inspection and scaffold-tag command gives the same outcome through REST and through push, for every role of both organisations', () => {
   for (const c of COMMANDS) {
+    const read = c.read ?? (async (id: string) => outcome(await get(id)));
     EVERYONE.forEach((who, i) => {
       const status = c.expect[i]!;
       it(`${c.command} as ${who}: ${status} through REST, the same through push`, async () => {
@@ -129,12 +158,12 @@ describe('every inspection command gives the same outcome through REST and throu
         const restInspection = c.target ? restId : ((rest.body as { id?: string }).id ?? '');
         if (status < 300) {
           expect(pushed.outcome, pushed.reason ?? '').toBe('applied');
-          expect(outcome(await get(c.inspectionOf(pushId, mutation)))).toEqual(outcome(await get(restInspection)));
+          expect(await read(c.inspectionOf(pushId, mutation))).toEqual(await read(restInspection));
         } else {
           expect(pushed.outcome).toBe('rejected');
           // The push's reason starts with the REST error's message: one rejection, two adapters.
           expect(pushed.reason!.startsWith(rest.body.message), `${pushed.reason} / ${rest.body.message}`).toBe(true);
-          if (c.target) expect(outcome(await get(pushId))).toEqual(outcome(await get(restId)));
+          if (c.target) expect(await read(pushId)).toEqual(await read(restId));
         }
       });
     });
@@ -205,5 +234,78 @@ describe('per-field merge of inspections and control checks', () => {
     expect((await api.call('demo:inspector', 'PATCH', `/inspections/${id}`, { reporterPosition: 'Lead inspector' })).status).toBe(200);
     const pushed = await push('demo:inspector', { entityId: id, entity: 'inspection', action: 'update', baseVersion: 1, payload: { reporterPosition: 'Inspector' } });
     expect(pushed.outcome).toBe('conflict');
+  });
+});
+
+describe('a scaffold’s tag through push: the more restrictive tag stands', () => {
+  const tag = (id: string, status: string, baseVersion: number) => ({ entityId: id, entity: 'scaffold', action: 'status', baseVersion, payload: { status, note: `Tagged ${status}` } });
+  const conflictsOf = async (id: string) => (await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${id}`)).body.items as Body[];
+
+  it('keeps the safer tag whichever of two unseen edits arrives last, and names who wrote the tag that did not stand', async () => {
+    for (const [first, second] of [['limited', 'cleared'], ['cleared', 'limited']] as const) {
+      // A new scaffold is closed (version 1); two phones that both saw it so tag it apart.
+      const id = await newScaffold();
+      expect(await push('demo:inspector', tag(id, first, 1))).toMatchObject({ outcome: 'applied' });
+      const late = await push('demo:manager', tag(id, second, 1));
+      expect(late.outcome, late.reason ?? '').toBe('conflict');
+      expect(await scaffoldOutcome(id)).toEqual({ status: 'limited', version: 3 });
+      const replacedWriter = first === 'limited' ? 'demo:manager' : 'demo:inspector';
+      expect(await conflictsOf(id)).toEqual([
+        expect.objectContaining({ id: late.conflictIds[0], entity: 'scaffold', field: 'status', currentValue: 'limited', replacedValue: 'cleared', replacedUserId: api.userIds[replacedWriter], replacedAt: expect.any(String) }),
+      ]);
+    }
+  });
+
+  it('records a conflict when an offline push replaces a tag a REST change set after the phone last saw it, and settles it', async () => {
+    const id = await newScaffold();
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+    // The phone last saw version 1 (closed) and limits the tag offline: the safer tag is written over the unseen one.
+    const pushed = await push('demo:inspector', tag(id, 'limited', 1));
+    expect(pushed.outcome).toBe('conflict');
+    expect(await scaffoldOutcome(id)).toEqual({ status: 'limited', version: 3 });
+    expect(await conflictsOf(id)).toEqual([expect.objectContaining({ currentValue: 'limited', replacedValue: 'cleared', replacedUserId: api.userIds['demo:manager'] })]);
+    const settled = await api.call('demo:manager', 'POST', `/sync/conflicts/${pushed.conflictIds[0]}/resolve`, { keep: 'replaced' });
+    expect(settled.status, JSON.stringify(settled.body)).toBe(200);
+    expect((await scaffoldOutcome(id)).status).toBe('cleared');
+  });
+
+  it('treats the tag a finished inspection recorded as a write a later unseen push clashes with', async () => {
+    const scaffoldId = await newScaffold();
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${scaffoldId}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+    const id = (await created(api, 'demo:inspector', 'POST', '/inspections', inspectionBody(scaffoldId))).id;
+    // A phone last saw the scaffold cleared (version 2); the inspection then closes it.
+    expect(await push('demo:inspector', { entityId: id, entity: 'inspection', action: 'finish', baseVersion: 1, payload: finishBody({ tagStatus: 'closed', accessTagsChanged: true }) })).toMatchObject({ outcome: 'applied', reason: null });
+    const late = await push('demo:manager', tag(scaffoldId, 'limited', 2));
+    expect(late.outcome).toBe('conflict');
+    expect((await scaffoldOutcome(scaffoldId)).status).toBe('closed');
+  });
+
+  it('keeps a scaffold closed by a recorded alteration against an offline tag that had not seen it', async () => {
+    const id = await newScaffold();
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/trigger`, { kind: 'altered', note: 'Bay 3 ties moved' })).status).toBe(201);
+    // The phone last saw it cleared (version 2) and limits it offline: the closure stands.
+    const late = await push('demo:inspector', tag(id, 'limited', 2));
+    expect(late.outcome).toBe('conflict');
+    expect((await scaffoldOutcome(id)).status).toBe('closed');
+  });
+
+  it('brings the stamped tag and its conflict back through the pull', async () => {
+    const id = await newScaffold();
+    const clientId = randomUUID();
+    expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/status`, { status: 'limited', note: 'Top lift only' })).status).toBe(200);
+    const [late] = await pushAll('demo:inspector', [tag(id, 'cleared', 1)], clientId);
+    expect(late!.outcome).toBe('conflict');
+    const changes: { type: string; record: Body }[] = [];
+    let cursor = '';
+    for (;;) {
+      const page = await api.call('demo:inspector', 'GET', `/sync/pull?limit=1000&clientId=${clientId}${cursor ? `&cursor=${cursor}` : ''}`);
+      expect(page.status).toBe(200);
+      changes.push(...page.body.changes);
+      cursor = page.body.cursor;
+      if (!page.body.hasMore) break;
+    }
+    expect(changes.filter((c) => c.type === 'scaffold' && c.record.id === id).at(-1)!.record).toMatchObject({ status: 'limited', version: 3 });
+    expect(changes.find((c) => c.type === 'conflict' && c.record.entityId === id)!.record).toMatchObject({ entity: 'scaffold', field: 'status', currentValue: 'limited', replacedValue: 'cleared' });
   });
 });

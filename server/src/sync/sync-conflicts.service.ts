@@ -14,6 +14,7 @@ import { FindingsRepository } from '../findings/findings.repository.js';
 import { CatalogueRepository } from '../catalogue/catalogue.repository.js';
 import { FindingCommands } from '../findings/finding-commands.js';
 import { InspectionCommands } from '../inspections/inspection-commands.js';
+import { ScaffoldCommands } from '../scaffolds/scaffold-commands.js';
 import { UserSettingsCommands } from '../users/user-settings-commands.js';
 import { toSyncConflict } from './sync.mapper.js';
 import { SyncRepository } from './sync.repository.js';
@@ -29,6 +30,7 @@ export class SyncConflictsService {
     private readonly commands: FindingCommands,
     private readonly inspectionCommands: InspectionCommands,
     private readonly settingsCommands: UserSettingsCommands,
+    private readonly scaffoldCommands: ScaffoldCommands,
   ) {}
 
   async list(user: AuthUser, query: SyncConflictListQuery): Promise<{ items: SyncConflict[] }> {
@@ -50,6 +52,8 @@ export class SyncConflictsService {
       const actor = { user, clientId: null, mutationId: null };
       if (settled.write && (conflict.entity === 'inspection' || conflict.entity === 'control-check')) {
         await this.inspectionCommands.settle(tx, actor, conflict.entity, conflict.entityId, conflict.field, settled.value);
+      } else if (settled.write && conflict.entity === 'scaffold') {
+        await this.scaffoldCommands.settle(tx, actor, conflict.entityId, conflict.field, settled.value);
       } else if (settled.write && conflict.entity === 'user') {
         await this.settingsCommands.edit(tx, actor, conflict.entityId, { [conflict.field]: settled.value });
       } else if (settled.write) {

@@ -41,7 +41,7 @@ export class SyncPullService {
   /** The versions this page hands the phone, so its later pushes are checked against them. */
   private async noteGiven(user: AuthUser, clientId: string, page: SyncPullResponse): Promise<void> {
     const records = page.changes.flatMap((c) =>
-      (c.type === 'finding' || c.type === 'inspection' || c.type === 'control-check' || c.type === 'user') && typeof c.record.version === 'number'
+      (c.type === 'finding' || c.type === 'inspection' || c.type === 'control-check' || c.type === 'scaffold' || c.type === 'user') && typeof c.record.version === 'number'
         ? [{ id: c.record.id, version: c.record.version }]
         : [],
     );

@@ -133,7 +133,7 @@ export class SyncPushService {
    * savepoint and one savepoint per mutation instead, which records the offending one as rejected.
    */
   private async applyFresh(tx: DbExecutor, user: AuthUser, clientId: string, fresh: SyncMutation[], touched: string[]): Promise<FreshOutcome> {
-    // Only a batch of findings alone is applied in memory; inspections, checks and settings go one by one.
+    // Only a batch of findings alone is applied in memory; inspections, checks, scaffold tags and settings go one by one.
     if (fresh.every((m) => m.entity === 'finding')) {
       try {
         return await tx.transaction((sp) => this.applyInMemory(sp, user, clientId, fresh, touched));

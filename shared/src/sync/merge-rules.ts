@@ -28,6 +28,8 @@ export const INSPECTION_SYNC_FIELDS = [
 ] as const;
 /** The fields of a control check a phone may set. */
 export const CONTROL_CHECK_SYNC_FIELDS = ['result', 'note'] as const;
+/** The field of a scaffold a phone may set: its tag status (the rest is set up by managers over REST). */
+export const SCAFFOLD_SYNC_FIELDS = ['status'] as const;
 /** The user's own profile and settings a phone may patch. */
 export const USER_SETTINGS_SYNC_FIELDS = ['name', 'position', 'units', 'windUnits'] as const;
 
@@ -215,6 +217,7 @@ export const INSPECTION_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = 
 
 export const CONTROL_CHECK_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = { result: safer(failedControl), note: BOTH_TEXTS };
 
+/** A scaffold: the more restrictive tag stands (closed before limited before cleared). */
 export const SCAFFOLD_MERGE_POLICIES: Readonly<Record<string, FieldPolicy>> = { status: safer(moreRestrictiveTag) };
 
 /** Stamps for a record made by `clientId`: every given field written at version 1. */

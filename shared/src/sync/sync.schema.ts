@@ -19,22 +19,23 @@ export const SYNC_PUSH_MAX = 1000;
 /** Most changes one pull page holds. */
 export const SYNC_PULL_MAX = 1000;
 
-/** The records a phone changes through push: findings, inspections, their control checks, and the user's own settings. */
-export const SYNC_ENTITIES = ['finding', 'inspection', 'control-check', 'user'] as const;
+/** The records a phone changes through push: findings, inspections, their control checks, a scaffold's tag status, and the user's own settings. */
+export const SYNC_ENTITIES = ['finding', 'inspection', 'control-check', 'scaffold', 'user'] as const;
 export const SyncEntitySchema = z.enum(SYNC_ENTITIES);
 export type SyncEntity = z.infer<typeof SyncEntitySchema>;
 
 /**
  * finding: create, update, state, assign, hand-back; inspection: create, update, finish;
- * control-check: put (the answer to one control, made or changed); user: update (own settings).
+ * control-check: put (the answer to one control, made or changed); scaffold: status (its tag status,
+ * with a reason); user: update (own settings).
  */
-export const SyncActionSchema = z.enum(['create', 'update', 'state', 'assign', 'hand-back', 'finish', 'put']);
+export const SyncActionSchema = z.enum(['create', 'update', 'state', 'assign', 'hand-back', 'finish', 'put', 'status']);
 export type SyncAction = z.infer<typeof SyncActionSchema>;
 
 /**
  * One mutation. The envelope is checked for the whole batch; the payload is checked per mutation by
  * the server with the schema of its command (FindingCreateSchema, InspectionUpdateSchema,
- * ControlCheckSyncPutSchema, UserProfileUpdateSchema…), so one invalid
+ * ControlCheckSyncPutSchema, ScaffoldStatusChangeSchema, UserProfileUpdateSchema…), so one invalid
  * payload is rejected with its reason instead of blocking every later mutation.
  */
 export const SyncMutationSchema = z.object({

@@ -9,6 +9,10 @@ describe('conflict words', () => {
     expect(valueWords('exposure', 'public', 'si')).toBe('Public, no head protection');
     expect(valueWords('heightM', 3.048, 'imperial')).toMatch(/^10(\.0)? ft$/);
     expect(valueWords('item', { name: 'Brick', massKg: 2.3 }, 'si')).toBe('Brick, 2.3 kg');
+    // A scaffold's tag, in Plummet's own words; chosen on the card, never typed.
+    expect(fieldWords('status')).toBe('Tag status');
+    expect(valueWords('status', 'limited', 'si')).toBe('Limited use');
+    expect(canTypeValue('status')).toBe(false);
   });
 
   it('turns typed text into a value the server accepts, or says what is wrong', () => {

@@ -2,7 +2,7 @@
  * How a conflict's field and values read on screen, and how a typed value becomes one the server
  * accepts. Values stay SI; units are applied only here, at the screen's edge.
  */
-import type { FindingExposure, SyncConflict } from '@plummet/shared';
+import { type FindingExposure, scaffoldStatusWords, type SyncConflict } from '@plummet/shared';
 import { formatDateTime } from '../../lib/format-date';
 import { EXPOSURE_WORDS } from '../findings/finding-words';
 import { formatQuantity, parseQuantity, type Units } from '../../lib/units';
@@ -16,6 +16,8 @@ export const FIELD_WORDS: Record<string, string> = {
   item: 'Item',
   exposure: 'Who is below',
   likelihoodAnswers: 'Likelihood answers',
+  /** A scaffold's only synced field. */
+  status: 'Tag status',
 };
 
 export function fieldWords(field: string): string {
@@ -26,6 +28,7 @@ export function fieldWords(field: string): string {
 export function valueWords(field: string, value: unknown, units: Units): string {
   if (value === null || value === undefined || value === '') return '(empty)';
   if (field === 'heightM' && typeof value === 'number') return formatQuantity('height', value, units);
+  if (field === 'status' && typeof value === 'string') return scaffoldStatusWords(value);
   if (field === 'exposure' && typeof value === 'string') return EXPOSURE_WORDS[value as FindingExposure]?.label ?? value;
   if (field === 'item' && typeof value === 'object') {
     const item = value as { name?: string; massKg?: number };

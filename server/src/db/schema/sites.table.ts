@@ -1,6 +1,7 @@
 import { date, index, integer, pgEnum, pgTable, primaryKey, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
+import { syncFieldsColumn } from './sync.table.js';
 import { users } from './users.table.js';
 
 export const inspectionRegimeEnum = pgEnum('inspection_regime', ['7-day', 'pre-shift']);
@@ -77,6 +78,8 @@ export const scaffolds = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
+    /** Who last wrote the tag status, through a phone's push or REST (scaffold-commands.ts merges on it). */
+    syncFields: syncFieldsColumn(),
     ...syncStampColumns(),
   },
   (t) => [

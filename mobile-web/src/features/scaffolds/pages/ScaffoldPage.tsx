@@ -15,6 +15,7 @@ import { LastReportSection } from '../../register/components/LastReportSection';
 import { TriggerCard } from '../../register/components/TriggerCard';
 import { ScaffoldElevations } from '../components/ScaffoldElevations';
 import { ScaffoldStatusTag } from '../components/ScaffoldStatusTag';
+import { TagChangeSection } from '../components/TagChangeSection';
 import { useScaffold } from '../scaffolds.queries';
 import './ScaffoldPage.css';
 
@@ -54,6 +55,7 @@ export function ScaffoldPage() {
                     </dl>
                     <p className="muted scaffold-summary__description">{scaffold.description}</p>
                   </div>
+                  {session.user.role !== 'foreman' && <TagChangeSection scaffold={scaffold} />}
                   <TriggerCard scaffold={scaffold} />
                   <LastReportSection scaffold={scaffold} />
                   <ExclusionZoneSection scaffoldId={scaffold.id} units={units} windUnits={windUnits} canEdit={session.user.role !== 'foreman'} />

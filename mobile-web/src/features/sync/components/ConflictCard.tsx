@@ -19,7 +19,11 @@ interface ConflictCardProps {
  * One conflict: the finding, the field, the value in place now and the value it replaced, with
  * who wrote each; settled by keeping one or typing another (on the server, so it needs a connection).
  */
-export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
+export function ConflictCard(props: ConflictCardProps) {
+  return props.conflict.entity === 'scaffold' ? <ScaffoldConflictCard {...props} /> : <FindingConflictCard {...props} />;
+}
+
+function FindingConflictCard({ conflict, userId, units }: ConflictCardProps) {
   const finding = useLiveQuery(async () => {
     const record = await db.findings.get(conflict.entityId);
     const scaffold = record ? await db.scaffolds.get(record.scaffoldId) : undefined;
@@ -108,3 +112,51 @@ export function ConflictCard({ conflict, userId, units }: ConflictCardProps) {
   );
 }
 
+
+/**
+ * A clash on a scaffold's tag: the more restrictive tag is in place; settling keeps it or puts the
+ * other back (a third tag is set on the scaffold's page afterwards).
+ */
+function ScaffoldConflictCard({ conflict, userId, units }: ConflictCardProps) {
+  const scaffold = useLiveQuery(async () => (await db.scaffolds.get(conflict.entityId)) ?? null, [conflict.entityId]);
+  const resolve = useResolveConflictMutation();
+  const settle = (body: SyncConflictResolve) => resolve.mutate({ id: conflict.id, body });
+  return (
+    <article className="conflict-card" data-testid="conflict-card" data-conflict-id={conflict.id} data-field={conflict.field} data-entity="scaffold">
+      <h3 className="conflict-card__title">
+        {scaffold ? (
+          <Link to={`/scaffolds/${scaffold.id}`} data-testid="conflict-scaffold">
+            Scaffold {scaffold.reference}
+          </Link>
+        ) : (
+          'Scaffold'
+        )}
+        <span className="muted"> — {scaffold === null ? 'a scaffold not on this phone' : 'its tag'}</span>
+      </h3>
+      <p>
+        <strong data-testid="conflict-field">{fieldWords(conflict.field)}</strong> was set on two phones before either had seen the other’s change. The more
+        restrictive tag stands until someone settles it.
+      </p>
+      <dl className="conflict-card__values">
+        <dt>Now in place, the more restrictive — since {formatDateTime(conflict.createdAt)}</dt>
+        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
+        <dt data-testid="conflict-replaced-by">Not in place — {replacedWords(conflict, userId)}</dt>
+        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
+      </dl>
+      <div className="conflict-card__actions">
+        <IonButton disabled={resolve.isPending} onClick={() => settle({ keep: 'current' })} data-testid="keep-current">
+          Keep the tag in place
+        </IonButton>
+        <IonButton fill="outline" disabled={resolve.isPending} onClick={() => settle({ keep: 'replaced' })} data-testid="keep-replaced">
+          Use the other tag
+        </IonButton>
+      </div>
+      <p className="muted">To give a third tag, keep one here, then change the tag on the scaffold’s page.</p>
+      {resolve.error && (
+        <p className="field-error" role="alert" data-testid="conflict-problem">
+          {describeResolveError(resolve.error)}
+        </p>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,1 @@
+ALTER TABLE "scaffolds" ADD COLUMN "sync_fields" jsonb DEFAULT '{}'::jsonb NOT NULL;
