@@ -2,9 +2,10 @@
 // assessDrop (validation, defaults, both impacts, forces, severity, the full result) against a bare
 // loop of the same closed-form arithmetic, measured in the same run. Run with
 // `npm run bench:physics` (builds shared first). Goals: ≥ 5 million still-air estimates/s on one
-// core, at least half the bare loop's rate, and ≤ 100 µs per drift estimate. Figures only;
-// nothing is asserted.
-import { assessDrop, integrateDrift } from '../dist/index.js';
+// core, at least half the bare loop's rate, and ≤ 100 µs per drift estimate. Two parts of the
+// still-air estimate are also timed alone on the same inputs (the validation and the severity
+// rating), so that the cost of each can be read beside the whole. Figures only; nothing is asserted.
+import { assessDrop, firstDropInputIssue, integrateDrift, rateSeverity } from '../dist/index.js';
 
 const G = 9.80665;
 const RHO = 1.225;
@@ -141,6 +142,21 @@ const shapeNs = timeLoop('assessDrop with shape', N / 4, (n) => {
   for (let i = 0; i < n; i++) acc += assessDrop(shapeInputs[i & (COUNT - 1)]).impactEnergyJ;
   return acc;
 });
+// Parts of the still-air estimate, each timed alone on the same inputs (both are inside assessDrop).
+const validNs = timeLoop('validation alone', N, (n) => {
+  let acc = 0;
+  for (let i = 0; i < n; i++) acc += firstDropInputIssue(stillInputs[i & (COUNT - 1)]) === undefined ? 1 : 0;
+  return acc;
+});
+const stillFigures = stillInputs.map((x) => assessDrop(x));
+const ratingNs = timeLoop('severity rating alone', N, (n) => {
+  let acc = 0;
+  for (let i = 0; i < n; i++) {
+    const d = stillFigures[i & (COUNT - 1)];
+    acc += rateSeverity(d.impactEnergyJ, d.peakForceN, 'bare-head').level;
+  }
+  return acc;
+});
 const M = 20_000;
 const driftNs = timeLoop('assessDrop with wind', M, (n) => {
   let acc = 0;
@@ -163,6 +179,7 @@ console.log(`still-air estimates (assessDrop, Cd·A given):  ${perSecond(stillNs
 console.log(`bare closed-form loop, same arithmetic:        ${perSecond(bareNs)} /s  (${bareNs.toFixed(1)} ns each)`);
 console.log(`ratio of rates, assessDrop / bare loop:        ${(bareNs / stillNs).toFixed(2)}  (${(stillNs / bareNs).toFixed(2)} × the time; goal ≥ 0.5)`);
 console.log(`bare loop building a result of the same shape: ${perSecond(bareResultNs)} /s  (${bareResultNs.toFixed(1)} ns each; ratio of rates to the bare loop ${(bareNs / bareResultNs).toFixed(2)}, assessDrop to it ${(bareResultNs / stillNs).toFixed(2)})`);
+console.log(`parts of the still-air estimate, timed alone:  validation ${validNs.toFixed(1)} ns, severity rating ${ratingNs.toFixed(1)} ns (its words are put together only when read)`);
 console.log(`still-air estimates with a box shape:          ${perSecond(shapeNs)} /s  (${shapeNs.toFixed(1)} ns each)`);
 console.log(`drift estimates (assessDrop with wind):        ${perSecond(driftNs)} /s  (${(driftNs / 1000).toFixed(2)} µs each; goal ≤ 100 µs)`);
 console.log(`drift integration steps: mean ${(steps / COUNT).toFixed(1)}, worst ${worstSteps} (wind 1–25 m/s)`);
