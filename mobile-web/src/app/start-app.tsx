@@ -3,15 +3,7 @@ import { StrictMode, startTransition } from 'react';
 import { App } from './App';
 import { appRoot } from './root';
 
-/* Ionic: the required core styles, and only the optional sheets the app uses. */
-import '@ionic/react/css/core.css';
-import '@ionic/react/css/normalize.css';
-import '@ionic/react/css/structure.css';
-import '@ionic/react/css/typography.css';
-import '@ionic/react/css/padding.css';
-
-import '../theme/global.css';
-import '../theme/screens.css';
+/* Ionic's styles and ours are in main.tsx: the page carries them from its first paint. */
 
 /** Starts the full app (Ionic, the router, every page on demand) at the current address. */
 export function startApp(): void {

@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from '../../../components/ionic-elements';
 import type { Role } from '@plummet/shared';
 import { alarmOutline, checkmarkDoneOutline, constructOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
@@ -13,7 +13,7 @@ export function OverdueFixes({ userId }: { userId: string }) {
   const overdue = entries.filter((e) => e.due.overdue).length;
   return (
     <p className={overdue ? 'fix-summary__overdue' : 'muted'} data-testid="overdue-fixes" data-count={overdue}>
-      {overdue ? <IonIcon icon={alarmOutline} aria-hidden="true" /> : null} {overdue === 0 ? 'No fix overdue.' : `${overdue} ${overdue === 1 ? 'fix' : 'fixes'} overdue.`} {entries.length} on the fix list.
+      {overdue ? <Icon icon={alarmOutline} aria-hidden="true" /> : null} {overdue === 0 ? 'No fix overdue.' : `${overdue} ${overdue === 1 ? 'fix' : 'fixes'} overdue.`} {entries.length} on the fix list.
     </p>
   );
 }
@@ -24,7 +24,7 @@ export function FixLoopShortcut({ userId, role }: { userId: string; role: Role }
   if (role === 'foreman') {
     return (
       <Link to="/fix-list" className="fix-summary" data-testid="home-fix-list">
-        <IonIcon icon={constructOutline} aria-hidden="true" />
+        <Icon icon={constructOutline} aria-hidden="true" />
         <strong>Fix list</strong>
         <OverdueFixes userId={userId} />
       </Link>
@@ -33,7 +33,7 @@ export function FixLoopShortcut({ userId, role }: { userId: string; role: Role }
   if (role === 'admin') return null;
   return (
     <Link to="/to-verify" className="fix-summary" data-testid="home-to-verify" data-count={toVerify?.length ?? 0}>
-      <IonIcon icon={checkmarkDoneOutline} aria-hidden="true" />
+      <Icon icon={checkmarkDoneOutline} aria-hidden="true" />
       <strong>To verify: {toVerify?.length ?? '…'}</strong>
       <span className="muted">fixed findings waiting for a second pair of eyes</span>
     </Link>
