@@ -1,16 +1,15 @@
-import { useDeferredValue } from 'react';
+import { lazy, Suspense, useDeferredValue } from 'react';
 import { Navigate } from 'react-router-dom';
 import { homePathFor } from '../../../app/role-home';
 import { CautionNote } from '../../../components/CautionNote';
 import { Button, definePageElements } from '../../../components/ionic-elements';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
-import { ShowWhenSettled } from '../../../components/ShowWhenSettled';
 import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
-import { FixLoopShortcut } from '../../fix-loop/components/FixLoopShortcut';
-import { DueSection } from '../../register/components/DueSection';
-import { SitesOverview } from '../../sites/components/SitesOverview';
 import '../pages/HomePage.css';
+
+/** The signed-in body, on demand and preloaded (SignedInHome.tsx says why). */
+const SignedInHome = lazy(() => import('./SignedInHome').then((module) => ({ default: module.SignedInHome })));
 
 /**
  * The home's header, body and footer, drawn with the Ionic elements themselves (no @ionic/react):
@@ -46,11 +45,9 @@ export function HomeScreen() {
       </ion-header>
       <ion-content className="ion-padding" data-testid="app-shell">
         {loading ? null : signedIn ? (
-          <ShowWhenSettled parts={['due', 'sites']}>
-            <FixLoopShortcut userId={session.user.id} role={session.user.role} />
-            <DueSection />
-            <SitesOverview session={session} expired={status === 'expired'} />
-          </ShowWhenSettled>
+          <Suspense fallback={null}>
+            <SignedInHome session={session} expired={status === 'expired'} />
+          </Suspense>
         ) : (
           <div className="home-page">
             <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />
