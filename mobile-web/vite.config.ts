@@ -123,7 +123,14 @@ export default defineConfig({
       devOptions: { enabled: false },
     }),
     inlineEntryCss(),
-    preloadChunks({ page: 'index.html', modules: [new URL('./src/features/auth/session.queries.ts', import.meta.url)] }),
+    preloadChunks({
+      page: 'index.html',
+      modules: [
+        new URL('./src/features/auth/session.queries.ts', import.meta.url),
+        new URL('./src/features/home/components/HomeScreen.tsx', import.meta.url),
+        new URL('./src/features/home/components/SignedInHome.tsx', import.meta.url),
+      ],
+    }),
     initialJsSize({ budgetKiB: 200 }),
     // Brotli and gzip files beside each text asset, made once at build time at the highest levels;
     // the server picks one by Accept-Encoding (server/src/web/static-web.ts). Maps stay uncompressed.

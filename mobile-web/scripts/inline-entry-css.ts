@@ -3,7 +3,10 @@ import type { Plugin } from 'vite';
 /**
  * Puts each page's own stylesheet into the page (a <style> where Vite wrote a <link>), so the first
  * paint waits for no second request. The CSS file stays in the build: code loaded later (a page
- * started from another entry) may still ask for it.
+ * started from another entry) may still ask for it. The page keeps a disabled <link> to it, which
+ * loads nothing but tells Vite's loader of on-demand chunks that the sheet is already there: it
+ * would otherwise add a second copy of it when a chunk that needs it loads (every rule twice, and
+ * the whole page's style worked out again when the copy arrives).
  */
 export function inlineEntryCss(): Plugin {
   return {
@@ -19,7 +22,7 @@ export function inlineEntryCss(): Plugin {
           const css = typeof asset.source === 'string' ? asset.source : new TextDecoder().decode(asset.source);
           // A stylesheet cannot end the <style> element early; say so loudly if one ever tries.
           if (/<\/style/i.test(css)) throw new Error(`${fileName} contains "</style"; it cannot be inlined`);
-          return `<style>${css.trim()}</style>`;
+          return `<style>${css.trim()}</style>\n    <link rel="stylesheet" href="/${fileName}" disabled>`;
         });
       },
     },

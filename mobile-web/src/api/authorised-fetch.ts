@@ -1,4 +1,4 @@
-import { accessTokenNeedsRefresh, sessionFromResponse, type StoredSession } from '../features/auth/session';
+import { accessTokenNeedsRefresh, type StoredSession } from '../features/auth/session';
 import { readSession, saveSession } from '../features/auth/session.store';
 import { db, type PlummetDb } from '../local-db/db';
 import { isGatewayFailure, reportServerReachable } from '../lib/connectivity';
@@ -13,6 +13,8 @@ async function refresh(database: PlummetDb, session: StoredSession, fetchImpl?: 
   refreshInFlight ??= (async () => {
     try {
       const response = await apiFetch<unknown>('/auth/refresh', { method: 'POST', body: { refreshToken: session.refreshToken } }, fetchImpl);
+      // The answer's check (shared's schemas) loads with the first refresh, not with every screen.
+      const { sessionFromResponse } = await import('../features/auth/session-response');
       const renewed = sessionFromResponse(response, new Date(), session.signedInAt);
       await saveSession(database, renewed);
       return renewed;

@@ -1,4 +1,4 @@
-import { IonButton } from '@ionic/react';
+import { Button } from '../components/ionic-elements';
 import { useEffect } from 'react';
 import { useRegisterSW } from 'virtual:pwa-register/react';
 import './ReloadPrompt.css';
@@ -57,12 +57,12 @@ export function ReloadPrompt() {
       <div className="reload-prompt" role="alert" data-testid="reload-prompt">
         <span className="reload-prompt__text">A new version of Plummet is ready</span>
         <span className="reload-prompt__actions">
-          <IonButton fill="clear" className="reload-prompt__later" onClick={() => setNeedRefresh(false)}>
+          <Button fill="clear" className="reload-prompt__later" onClick={() => setNeedRefresh(false)}>
             Later
-          </IonButton>
-          <IonButton color="secondary" onClick={() => void reloadIntoNewVersion()} data-testid="reload-prompt-reload">
+          </Button>
+          <Button color="secondary" onClick={() => void reloadIntoNewVersion()} data-testid="reload-prompt-reload">
             Reload
-          </IonButton>
+          </Button>
         </span>
       </div>
     );
@@ -73,9 +73,9 @@ export function ReloadPrompt() {
       <div className="reload-prompt" role="status" data-testid="offline-ready">
         <span className="reload-prompt__text">Plummet is ready to work offline</span>
         <span className="reload-prompt__actions">
-          <IonButton fill="clear" className="reload-prompt__later" onClick={() => setOfflineReady(false)}>
+          <Button fill="clear" className="reload-prompt__later" onClick={() => setOfflineReady(false)}>
             OK
-          </IonButton>
+          </Button>
         </span>
       </div>
     );

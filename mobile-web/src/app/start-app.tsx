@@ -3,7 +3,11 @@ import { StrictMode, startTransition } from 'react';
 import { App } from './App';
 import { appRoot } from './root';
 
-/* Ionic: the required core styles, and only the optional sheets the app uses. */
+/*
+ * Ionic: the required core styles, and only the optional sheets the app uses. main.tsx imports the
+ * same sheets, so index.html carries them from its first paint; here for sign-in.html, which starts
+ * the app only after someone has signed in.
+ */
 import '@ionic/react/css/core.css';
 import '@ionic/react/css/normalize.css';
 import '@ionic/react/css/structure.css';

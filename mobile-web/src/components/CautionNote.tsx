@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from './ionic-elements';
 import { CAUTION_TEXT } from '@plummet/shared';
 import { warningOutline } from 'ionicons/icons';
 
@@ -6,7 +6,7 @@ import { warningOutline } from 'ionicons/icons';
 export function CautionNote() {
   return (
     <aside className="plummet-caution" aria-label="Caution">
-      <IonIcon icon={warningOutline} aria-hidden="true" />
+      <Icon icon={warningOutline} aria-hidden="true" />
       <p data-testid="caution" style={{ margin: 0 }}>
         {CAUTION_TEXT}
       </p>

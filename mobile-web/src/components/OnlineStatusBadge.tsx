@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from './ionic-elements';
 import { cloudDoneOutline, cloudOfflineOutline } from 'ionicons/icons';
 import { useOnlineStatus } from '../lib/use-online-status';
 import './OnlineStatusBadge.css';
@@ -13,7 +13,7 @@ export function OnlineStatusBadge() {
       data-online={online}
       role="status"
     >
-      <IonIcon icon={online ? cloudDoneOutline : cloudOfflineOutline} aria-hidden="true" />
+      <Icon icon={online ? cloudDoneOutline : cloudOfflineOutline} aria-hidden="true" />
       {online ? 'Online' : 'Offline'}
     </span>
   );

@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from './ionic-elements';
 import { checkmarkDoneOutline, cloudUploadOutline } from 'ionicons/icons';
 import { useWaitingChangeCount } from '../local-db/outbox.queries';
 
@@ -9,7 +9,7 @@ export function OutboxBadge() {
   const text = count === 0 ? 'All changes sent' : count === 1 ? '1 change waiting' : `${count} changes waiting`;
   return (
     <span className={`status-chip ${count > 0 ? 'status-chip--waiting' : ''}`} data-testid="outbox-count" data-count={count} role="status">
-      <IonIcon icon={count > 0 ? cloudUploadOutline : checkmarkDoneOutline} aria-hidden="true" />
+      <Icon icon={count > 0 ? cloudUploadOutline : checkmarkDoneOutline} aria-hidden="true" />
       {text}
     </span>
   );

@@ -1,4 +1,4 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from './ionic-elements';
 import { alertCircleOutline, syncOutline, warningOutline } from 'ionicons/icons';
 import { Link } from 'react-router-dom';
 import { useAppSyncEngine, useSyncStatus } from '../features/sync/sync-hooks';
@@ -18,19 +18,19 @@ export function SyncBadge() {
       <OutboxBadge />
       {engine && (
         <span className="status-chip" data-testid="last-sync" data-state={status?.state ?? 'starting'} role="status">
-          <IonIcon icon={syncOutline} aria-hidden="true" />
+          <Icon icon={syncOutline} aria-hidden="true" />
           {lastSyncWords(status)}
         </span>
       )}
       {attention && (
         <span className="status-chip status-chip--waiting" data-testid="sync-attention">
-          <IonIcon icon={alertCircleOutline} aria-hidden="true" />
+          <Icon icon={alertCircleOutline} aria-hidden="true" />
           {attention}
         </span>
       )}
       {status?.unsyncedWarning && (
         <span className="status-chip status-chip--waiting" data-testid="unsynced-warning-chip">
-          <IonIcon icon={warningOutline} aria-hidden="true" />
+          <Icon icon={warningOutline} aria-hidden="true" />
           Unsent for over 3 days
         </span>
       )}

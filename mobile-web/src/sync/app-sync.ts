@@ -26,12 +26,16 @@ interface Running {
 
 let running: Running | null = null;
 
+/** True while sign-out clears the phone: a screen that asks for an engine meanwhile does not get one. */
+let signingOut = false;
+
 /**
  * Starts syncing for `userId` (again only when the user changed). The triggers skip a run while
  * the browser says no network is attached: a run marks the entries it tries, and an entry tried
  * for nothing would stop later edits folding into it.
  */
-export function startAppSync(userId: string): SyncEngine {
+export function startAppSync(userId: string): SyncEngine | undefined {
+  if (signingOut) return undefined;
   if (running?.userId === userId) return running.engine;
   void stopAppSync();
   const authorised = fetchWithAccessToken(db);
@@ -85,4 +89,19 @@ export async function stopAppSync(): Promise<void> {
   await current.engine.whenIdle();
   // The foremen and settings downloads after a sync write to the phone too: wait for them.
   await Promise.allSettled([...current.runs]);
+}
+
+/**
+ * Runs `work` (sign-out clearing the phone) with syncing stopped and kept stopped: the sync runner
+ * of a screen still starting up may ask for an engine in the meantime, and a run started then
+ * would write to the phone after it has been cleared.
+ */
+export async function withAppSyncStopped<T>(work: () => Promise<T>): Promise<T> {
+  signingOut = true;
+  try {
+    await stopAppSync();
+    return await work();
+  } finally {
+    signingOut = false;
+  }
 }

@@ -1,20 +1,9 @@
 import { z } from 'zod';
 import { ROLE_VALUES } from '../auth/roles.js';
 import { IdSchema, NameSchema, ShortTextSchema } from '../common/fields.schema.js';
+import { UNITS_VALUES, WIND_UNITS_VALUES } from './units.js';
 
-/** Display units a user can choose; values are always stored and sent in SI. */
-export const UNITS_VALUES = ['si', 'imperial'] as const;
-export type Units = (typeof UNITS_VALUES)[number];
-
-/**
- * Wind speed has its own unit choice (UK sites give wind in mph while measuring in metres):
- * metres per second, kilometres per hour or miles per hour. Values stay in m/s everywhere else.
- */
-export const WIND_UNITS_VALUES = ['mps', 'kmh', 'mph'] as const;
-export type WindUnits = (typeof WIND_UNITS_VALUES)[number];
-
-/** The wind unit a user starts with: the one that goes with their display units. */
-export const defaultWindUnitsFor = (units: Units): WindUnits => (units === 'imperial' ? 'mph' : 'mps');
+export { defaultWindUnitsFor, UNITS_VALUES, WIND_UNITS_VALUES, type Units, type WindUnits } from './units.js';
 
 /** An e-mail address as the service stores it: trimmed, lower-cased, at most 254 characters. */
 export const EmailSchema = z

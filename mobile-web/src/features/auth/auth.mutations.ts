@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { isOnline } from '../../lib/connectivity';
 import { db } from '../../local-db/db';
-import { stopAppSync } from '../../sync/app-sync';
+import { withAppSyncStopped } from '../../sync/app-sync';
 import { signOutOnServer } from './auth.api';
 import { readSession, signOutLocally } from './session.store';
 
@@ -11,13 +11,13 @@ import { readSession, signOutLocally } from './session.store';
  */
 export function useSignOutMutation() {
   return useMutation({
-    mutationFn: async () => {
-      // Stop syncing first: a run still writing after the clear would leave records behind.
-      await stopAppSync();
-      const session = await readSession(db);
-      if (session && isOnline()) await signOutOnServer(session.refreshToken).catch(() => undefined);
-      await signOutLocally(db);
-    },
+    // Stop syncing first, until the phone is clear: a run still writing after the clear would leave records behind.
+    mutationFn: () =>
+      withAppSyncStopped(async () => {
+        const session = await readSession(db);
+        if (session && isOnline()) await signOutOnServer(session.refreshToken).catch(() => undefined);
+        await signOutLocally(db);
+      }),
     meta: { errorToast: 'Signing out failed. Close Plummet and try again.' },
   });
 }

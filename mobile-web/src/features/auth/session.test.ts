@@ -2,7 +2,8 @@ import 'fake-indexeddb/auto';
 import { afterEach, describe, expect, it } from 'vitest';
 import { listWaitingChanges } from '../../local-db/outbox';
 import { dropTestDatabases, freshDb, inspector, ORG_ID, site } from '../../local-db/testing';
-import { accessTokenNeedsRefresh, ASSUMED_REFRESH_LIFETIME_MS, sessionFromResponse, sessionStatus } from './session';
+import { accessTokenNeedsRefresh, ASSUMED_REFRESH_LIFETIME_MS, sessionStatus } from './session';
+import { sessionFromResponse } from './session-response';
 import { changeUnits, changeWindUnits, readSession, saveSession, signOutLocally, startSession } from './session.store';
 
 afterEach(dropTestDatabases);

@@ -2,7 +2,7 @@
  * The session kept on the phone: the tokens from sign-in and the user's profile. Pure helpers;
  * session.store.ts keeps it in the database.
  */
-import { DateTimeSchema, defaultWindUnitsFor, SessionSchema, UserProfileSchema, type Session, type UserProfile } from '@plummet/shared';
+import { defaultWindUnitsFor, ROLE_VALUES, UNITS_VALUES, WIND_UNITS_VALUES, type UserProfile } from '@plummet/shared';
 
 /**
  * How long a refresh token lives when the server does not say: the server's default
@@ -12,9 +12,6 @@ export const ASSUMED_REFRESH_LIFETIME_MS = 30 * 86_400_000;
 
 /** Refresh the access token this long before it expires, so a request never leaves with a stale one. */
 export const ACCESS_TOKEN_MARGIN_MS = 30_000;
-
-/** What sign-in and refresh answer, with the refresh token's expiry should the server add it. */
-export const SessionResponseSchema = SessionSchema.extend({ refreshTokenExpiresAt: DateTimeSchema.optional() });
 
 export interface StoredSession {
   accessToken: string;
@@ -27,44 +24,57 @@ export interface StoredSession {
 }
 
 /** A profile saved before wind had its own unit gets the one that goes with its display units. */
-function withWindUnits(user: unknown): unknown {
-  if (typeof user !== 'object' || user === null || 'windUnits' in user) return user;
-  const units = (user as { units?: unknown }).units;
-  return { ...user, windUnits: defaultWindUnitsFor(units === 'imperial' ? 'imperial' : 'si') };
+function withWindUnits(user: Record<string, unknown>): Record<string, unknown> {
+  if ('windUnits' in user) return user;
+  return { ...user, windUnits: defaultWindUnitsFor(user.units === 'imperial' ? 'imperial' : 'si') };
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+/** An ISO 8601 date-time with a zone (Z or an offset), as the server and toISOString write it. */
+const DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(?::\d{2}(?:\.\d+)?)?(?:Z|[+-]\d{2}:?\d{2})$/;
+
+const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null;
+const isText = (value: unknown): value is string => typeof value === 'string';
+const isOneOf = <T extends string>(values: readonly T[], value: unknown): value is T => values.includes(value as T);
+const isDateTime = (value: unknown): value is string => isText(value) && DATE_TIME.test(value) && !Number.isNaN(Date.parse(value));
+
+/**
+ * The stored profile, checked by hand: it was checked against UserProfileSchema when it arrived
+ * (sessionFromResponse), so reading it back needs its shape, not the schemas (building them is
+ * a long task on a phone, at every start). Keeps the profile's own fields, as the schema did.
+ */
+function restoreProfile(value: unknown): UserProfile | undefined {
+  if (!isRecord(value)) return undefined;
+  const user = withWindUnits(value);
+  const { id, email, name, position, units, windUnits, role, organisation, version } = user;
+  if (!isText(id) || !UUID.test(id) || !isText(email) || !isText(name) || !isText(position)) return undefined;
+  if (!isOneOf(UNITS_VALUES, units) || !isOneOf(WIND_UNITS_VALUES, windUnits) || !isOneOf(ROLE_VALUES, role)) return undefined;
+  if (!isRecord(organisation) || !isText(organisation.id) || !UUID.test(organisation.id) || !isText(organisation.name)) return undefined;
+  if (version !== undefined && !Number.isInteger(version)) return undefined;
+  return {
+    id,
+    email,
+    name,
+    position,
+    units,
+    windUnits,
+    role,
+    organisation: { id: organisation.id, name: organisation.name },
+    ...(version === undefined ? {} : { version: version as number }),
+  };
 }
 
 /** A stored session read back from the database, or undefined when it is not one. */
 export function restoreSession(value: unknown): StoredSession | undefined {
-  if (typeof value !== 'object' || value === null) return undefined;
-  const candidate = value as Record<string, unknown>;
-  const user = UserProfileSchema.safeParse(withWindUnits(candidate.user));
-  const texts = [candidate.accessToken, candidate.refreshToken];
-  if (!user.success || !texts.every((text) => typeof text === 'string' && text.length > 0)) return undefined;
-  const signedInAt = DateTimeSchema.safeParse(candidate.signedInAt);
-  const refreshExpiresAt = DateTimeSchema.safeParse(candidate.refreshExpiresAt);
-  if (!signedInAt.success || !refreshExpiresAt.success) return undefined;
-  return {
-    accessToken: candidate.accessToken as string,
-    refreshToken: candidate.refreshToken as string,
-    user: user.data,
-    signedInAt: signedInAt.data,
-    refreshExpiresAt: refreshExpiresAt.data,
-  };
+  if (!isRecord(value)) return undefined;
+  const user = restoreProfile(value.user);
+  const { accessToken, refreshToken, signedInAt, refreshExpiresAt } = value;
+  if (!user || !isText(accessToken) || !isText(refreshToken) || accessToken.length === 0 || refreshToken.length === 0) return undefined;
+  if (!isDateTime(signedInAt) || !isDateTime(refreshExpiresAt)) return undefined;
+  return { accessToken, refreshToken, user, signedInAt, refreshExpiresAt };
 }
 
 export type SessionStatus = 'signed-out' | 'expired' | 'active';
-
-export function sessionFromResponse(response: unknown, now: Date, signedInAt?: string): StoredSession {
-  const parsed = SessionResponseSchema.parse(response);
-  const session: Session = parsed;
-  return {
-    accessToken: session.accessToken,
-    refreshToken: session.refreshToken,
-    user: session.user,
-    signedInAt: signedInAt ?? now.toISOString(),
-    refreshExpiresAt: parsed.refreshTokenExpiresAt ?? new Date(now.getTime() + ASSUMED_REFRESH_LIFETIME_MS).toISOString(),
-  };
-}
 
 export function sessionStatus(session: StoredSession | undefined, now: Date = new Date()): SessionStatus {
   if (!session) return 'signed-out';

@@ -1,6 +1,7 @@
 import { db } from '../../local-db/db';
 import { signIn, type SignInCredentials } from './auth.api';
-import { sessionFromResponse, type StoredSession } from './session';
+import type { StoredSession } from './session';
+import { sessionFromResponse } from './session-response';
 import { startSession } from './session.store';
 
 export { describeSignInError } from './auth.api';

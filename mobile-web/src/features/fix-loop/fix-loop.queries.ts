@@ -1,20 +1,10 @@
-import { DEFAULT_ORGANISATION_SETTINGS, readOrganisationSettings, type OrganisationSettings } from '@plummet/shared';
+import type { OrganisationSettings } from '@plummet/shared';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { useMemo } from 'react';
-import { db, readMeta } from '../../local-db/db';
+import { db } from '../../local-db/db';
 import type { FindingRecord, FixRecord, ScaffoldRecord, SiteRecord, VerificationRecord } from '../../local-db/records';
 import { buildFixList, buildToVerify, type FixListEntry, type ToVerifyEntry } from './fix-loop-rules';
 
-import { ORGANISATION_SETTINGS_META_KEY } from '../../sync/download-settings';
-
-export { ORGANISATION_SETTINGS_META_KEY };
-
-/** The organisation's settings as last synced, or the defaults (common practice, no source) before then. */
-export function useOrganisationSettings(): OrganisationSettings {
-  const stored = useLiveQuery(() => readMeta<unknown>(db, ORGANISATION_SETTINGS_META_KEY), []);
-  // One object per stored value: the lists below re-query when it changes, not on every render.
-  return useMemo(() => (stored === undefined ? DEFAULT_ORGANISATION_SETTINGS : readOrganisationSettings(stored)), [stored]);
-}
+/* The organisation's settings, which the fix list needs, are read in organisation-settings.queries.ts. */
 
 async function scaffoldsById(): Promise<Map<string, ScaffoldRecord>> {
   return new Map((await db.scaffolds.toArray()).map((scaffold) => [scaffold.id, scaffold]));

@@ -1,4 +1,4 @@
-import { IonButton, IonIcon } from '@ionic/react';
+import { Button, Icon } from '../../../components/ionic-elements';
 import { keyOutline } from 'ionicons/icons';
 import { formatDateTime } from '../../../lib/format-date';
 import type { StoredSession } from '../session';
@@ -10,15 +10,15 @@ export function SessionNote({ session, now = new Date() }: { session: StoredSess
   if (Date.parse(session.refreshExpiresAt) <= now.getTime()) {
     return (
       <div className="session-note session-note--soon" role="alert" data-testid="session-expiry" data-expired="true">
-        <IonIcon icon={keyOutline} aria-hidden="true" />
+        <Icon icon={keyOutline} aria-hidden="true" />
         <div>
           <p className="session-note__text">
             Your sign-in on this phone ended on <strong>{formatDateTime(session.refreshExpiresAt)}</strong>. Everything recorded here is kept;
             connect and sign in again as {session.user.email} to carry on and send it.
           </p>
-          <IonButton routerLink="/sign-in" size="default">
+          <Button routerLink="/sign-in" size="default">
             Sign in again
-          </IonButton>
+          </Button>
         </div>
       </div>
     );
@@ -26,7 +26,7 @@ export function SessionNote({ session, now = new Date() }: { session: StoredSess
   const soon = Date.parse(session.refreshExpiresAt) - now.getTime() < SOON_MS;
   return (
     <p className={`session-note ${soon ? 'session-note--soon' : ''}`} data-testid="session-expiry">
-      <IonIcon icon={keyOutline} aria-hidden="true" />
+      <Icon icon={keyOutline} aria-hidden="true" />
       <span>
         Signed in as <strong>{session.user.name}</strong> ({session.user.organisation.name}). Works offline until{' '}
         <strong>{formatDateTime(session.refreshExpiresAt)}</strong>

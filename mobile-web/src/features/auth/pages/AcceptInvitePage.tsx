@@ -6,7 +6,7 @@ import { useSearchParams } from 'react-router-dom';
 import { homePathFor } from '../../../app/role-home';
 import { apiFetch, ApiError } from '../../../api/http';
 import { db } from '../../../local-db/db';
-import { sessionFromResponse } from '../session';
+import { sessionFromResponse } from '../session-response';
 import { startSession } from '../session.store';
 import '../components/SignInForm.css';
 

@@ -1,22 +1,13 @@
-import { IonIcon } from '@ionic/react';
+import { Icon } from '../../../components/ionic-elements';
 import type { Role } from '@plummet/shared';
-import { alarmOutline, checkmarkDoneOutline, constructOutline } from 'ionicons/icons';
+import { checkmarkDoneOutline, constructOutline } from 'ionicons/icons';
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
-import { useFixList, useOrganisationSettings, useToVerify } from '../fix-loop.queries';
+import { useToVerify } from '../fix-loop.queries';
 import '../fix-loop.css';
 
-/** A foreman's overdue fixes, in words (the home and the sync screen show it). */
-export function OverdueFixes({ userId }: { userId: string }) {
-  const settings = useOrganisationSettings();
-  const entries = useFixList(userId, settings);
-  if (!entries) return null;
-  const overdue = entries.filter((e) => e.due.overdue).length;
-  return (
-    <p className={overdue ? 'fix-summary__overdue' : 'muted'} data-testid="overdue-fixes" data-count={overdue}>
-      {overdue ? <IonIcon icon={alarmOutline} aria-hidden="true" /> : null} {overdue === 0 ? 'No fix overdue.' : `${overdue} ${overdue === 1 ? 'fix' : 'fixes'} overdue.`} {entries.length} on the fix list.
-    </p>
-  );
-}
+/** A foreman's overdue fixes: on demand, since reading the organisation's settings builds their schema. */
+const OverdueFixes = lazy(() => import('./OverdueFixes').then((module) => ({ default: module.OverdueFixes })));
 
 /** The way into the fix loop from the home: the fix list for a foreman, the to-verify list for everyone who verifies. */
 export function FixLoopShortcut({ userId, role }: { userId: string; role: Role }) {
@@ -24,16 +15,18 @@ export function FixLoopShortcut({ userId, role }: { userId: string; role: Role }
   if (role === 'foreman') {
     return (
       <Link to="/fix-list" className="fix-summary" data-testid="home-fix-list">
-        <IonIcon icon={constructOutline} aria-hidden="true" />
+        <Icon icon={constructOutline} aria-hidden="true" />
         <strong>Fix list</strong>
-        <OverdueFixes userId={userId} />
+        <Suspense fallback={null}>
+          <OverdueFixes userId={userId} />
+        </Suspense>
       </Link>
     );
   }
   if (role === 'admin') return null;
   return (
     <Link to="/to-verify" className="fix-summary" data-testid="home-to-verify" data-count={toVerify?.length ?? 0}>
-      <IonIcon icon={checkmarkDoneOutline} aria-hidden="true" />
+      <Icon icon={checkmarkDoneOutline} aria-hidden="true" />
       <strong>To verify: {toVerify?.length ?? '…'}</strong>
       <span className="muted">fixed findings waiting for a second pair of eyes</span>
     </Link>

@@ -4,7 +4,8 @@ import { VirtualList } from '../../../components/VirtualList';
 import { RequireSession } from '../../auth/components/RequireSession';
 import { useSession, useUnits } from '../../auth/session.queries';
 import { FIX_ROW_HEIGHT, FixListRow } from '../components/FixListRow';
-import { useFixList, useOrganisationSettings, useSitesById } from '../fix-loop.queries';
+import { useFixList, useSitesById } from '../fix-loop.queries';
+import { useOrganisationSettings } from '../organisation-settings.queries';
 import '../fix-loop.css';
 
 /**

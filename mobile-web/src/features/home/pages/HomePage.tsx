@@ -1,82 +1,11 @@
-import { IonButton, IonContent, IonFooter, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
-import { useDeferredValue } from 'react';
-import { Navigate } from 'react-router-dom';
-import { homePathFor } from '../../../app/role-home';
-import { CautionNote } from '../../../components/CautionNote';
-import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
-import { ShowWhenSettled } from '../../../components/ShowWhenSettled';
-import { SyncBadge } from '../../../components/SyncBadge';
-import { useSession } from '../../auth/session.queries';
-import { FixLoopShortcut } from '../../fix-loop/components/FixLoopShortcut';
-import { DueSection } from '../../register/components/DueSection';
-import { SitesOverview } from '../../sites/components/SitesOverview';
-import './HomePage.css';
+import { IonPage } from '@ionic/react';
+import { HomeScreen } from '../components/HomeScreen';
 
-/** Signed out: what Plummet is, and the way in. Signed in: the sites, for the walk. */
+/** The home inside the full app (its router's stack of pages); components/HomeScreen.tsx draws it. */
 export function HomePage() {
-  const current = useSession();
-  // The signed-in body is the biggest render of a start: React does it at low priority, in slices
-  // between which the phone can answer a tap, rather than as one long task.
-  const status = useDeferredValue(current.status);
-  const session = useDeferredValue(current.session);
-  const signedIn = session && status !== 'signed-out';
-  // Only inspectors start here; everyone else has a home of their own.
-  const home = signedIn ? homePathFor(session.user.role) : '/';
-  if (home !== '/') return <Navigate to={home} replace />;
-  // Until the phone has read its session, draw only the frame: neither the signed-out welcome
-  // (a flash of the wrong screen for someone signed in) nor a guess at the sites.
-  const loading = status === 'loading';
-
   return (
     <IonPage>
-      <IonHeader>
-        <IonToolbar>
-          <IonTitle>Plummet</IonTitle>
-          {/* The same compact status as every page's header (components/AppHeader.tsx). */}
-          <div slot="end" className="app-status">
-            <OnlineStatusBadge />
-            {signedIn && <SyncBadge />}
-          </div>
-        </IonToolbar>
-      </IonHeader>
-      <IonContent className="ion-padding" data-testid="app-shell">
-        {loading ? null : signedIn ? (
-          <ShowWhenSettled parts={['due', 'sites']}>
-            <FixLoopShortcut userId={session.user.id} role={session.user.role} />
-            <DueSection />
-            <SitesOverview session={session} expired={status === 'expired'} />
-          </ShowWhenSettled>
-        ) : (
-          <div className="home-page">
-            <img className="home-page__mark" src="/icons/plummet.svg" alt="" width="96" height="96" />
-            <h1 className="home-page__heading">What could fall, and how hard it would land</h1>
-            <p className="home-page__lead">
-              Plummet is the safety team&rsquo;s field tool for objects falling from scaffolds: walk the scaffold lift by
-              lift, record each unsecured item with photos, get an estimate of its impact on the spot &mdash; with or
-              without signal &mdash; and turn the walk into the signed inspection record and a fix list.
-            </p>
-            <CautionNote />
-            <IonButton expand="block" routerLink="/sign-in" className="home-page__action" data-testid="home-sign-in">
-              Sign in
-            </IonButton>
-            <IonButton expand="block" fill="outline" routerLink="/calculator" className="home-page__action--secondary">
-              Try a quick estimate
-            </IonButton>
-          </div>
-        )}
-      </IonContent>
-      {signedIn && (
-        <IonFooter>
-          <div className="bottom-actions">
-            <IonButton fill="outline" routerLink="/calculator" data-testid="open-calculator">
-              Quick estimate
-            </IonButton>
-            <IonButton fill="outline" routerLink="/settings" data-testid="open-settings">
-              Settings
-            </IonButton>
-          </div>
-        </IonFooter>
-      )}
+      <HomeScreen />
     </IonPage>
   );
 }

@@ -1,4 +1,4 @@
-import { IonButton, IonIcon } from '@ionic/react';
+import { Button, Icon } from '../../../components/ionic-elements';
 import type { Site } from '@plummet/shared';
 import { checkmarkCircle, cloudDownloadOutline } from 'ionicons/icons';
 import { formatDateTime } from '../../../lib/format-date';
@@ -29,7 +29,7 @@ export function SiteCard({ site, local, organisationId, online }: SiteCardProps)
       </p>
       {local?.offline ? (
         <p className="site-card__offline" data-testid="site-offline-state">
-          <IonIcon icon={checkmarkCircle} aria-hidden="true" /> Available offline · downloaded {formatDateTime(local.downloadedAt)}
+          <Icon icon={checkmarkCircle} aria-hidden="true" /> Available offline · downloaded {formatDateTime(local.downloadedAt)}
         </p>
       ) : (
         <p className="site-card__not-offline">Not on this phone yet.</p>
@@ -49,20 +49,20 @@ export function SiteCard({ site, local, organisationId, online }: SiteCardProps)
       )}
       <div className="site-card__actions">
         {online && (
-          <IonButton
+          <Button
             fill={local?.offline ? 'outline' : 'solid'}
             disabled={makeOffline.isPending}
             onClick={() => makeOffline.mutate({ site, organisationId })}
             data-testid="make-offline"
           >
-            {makeOffline.isPending ? <Spinner /> : <IonIcon slot="start" icon={cloudDownloadOutline} aria-hidden="true" />}
+            {makeOffline.isPending ? <Spinner /> : <Icon slot="start" icon={cloudDownloadOutline} aria-hidden="true" />}
             {makeOffline.isPending ? 'Downloading…' : local?.offline ? 'Update offline copy' : 'Make available offline'}
-          </IonButton>
+          </Button>
         )}
         {local?.offline && (
-          <IonButton routerLink={`/sites/${site.id}`} data-testid="open-site">
+          <Button routerLink={`/sites/${site.id}`} data-testid="open-site">
             Open site
-          </IonButton>
+          </Button>
         )}
       </div>
     </article>

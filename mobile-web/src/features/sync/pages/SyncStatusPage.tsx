@@ -10,7 +10,7 @@ import { dismissRejected } from '../../../sync/sync-state';
 import { useAppSyncEngine, useSyncStatus } from '../sync-hooks';
 import { lastSyncWords, pendingWords, UNSYNCED_WARNING_TEXT } from '../../../sync/sync-words';
 import { RequireSession } from '../../auth/components/RequireSession';
-import { OverdueFixes } from '../../fix-loop/components/FixLoopShortcut';
+import { OverdueFixes } from '../../fix-loop/components/OverdueFixes';
 import { ConflictCard } from '../components/ConflictCard';
 import './SyncStatusPage.css';
 
