@@ -1,9 +1,10 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, asc, eq, inArray, sql, type AnyColumn } from 'drizzle-orm';
+import { and, asc, eq, sql, type AnyColumn } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
 import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
 import { RawJson } from './raw-json.js';
+import { idIn } from './sync-batch.repository.js';
 import { syncFindingJson } from './sync-finding-json.js';
 import { toSyncConflict } from './sync.mapper.js';
 
@@ -100,6 +101,6 @@ export class SyncPullRepository {
       .select({ finding: findings, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
-      .where(inArray(findings.id, ids));
+      .where(idIn(ids));
   }
 }
