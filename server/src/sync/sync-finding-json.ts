@@ -5,57 +5,75 @@ import { sql, type SQL } from 'drizzle-orm';
  * A pulled finding as JSON text written by PostgreSQL: the record toSyncFinding (sync.mapper.ts)
  * makes from the same row, key for key and value for value. A pull page is a thousand findings of
  * thirty columns; decoding each cell, building the record and writing it out again was most of a
- * page's time on the server. The text goes into the answer unparsed (raw-json.ts).
+ * page's time on the server. The text goes into the answer unparsed (raw-json.ts). It is put
+ * together by plain concatenation, compact, which costs the database about half of what
+ * json_build_object does.
  *
  * What keeps the two the same:
- * - jsonb and text columns are written by PostgreSQL's JSON output, which the driver's parse plus
- *   JSON.stringify reproduce (the same values; spacing aside);
+ * - text is written by to_json, jsonb columns by their own output, which the driver's parse plus
+ *   JSON.stringify reproduce (the same values; spacing aside); uuids and enum labels need no escaping;
  * - `real` columns print the shortest decimal that identifies the stored float, which is what the
- *   driver parses;
+ *   driver parses (the physics never stores a non-finite one);
  * - timestamps are written as Date#toISOString writes them: UTC, milliseconds, the microseconds cut
  *   off as a Date parsed from PostgreSQL's text cuts them;
  * - overdue is isOverdue (finding.mapper.ts): a due time, in milliseconds, before `now`, and not fixed.
  * sync-pull.int-spec.ts compares both for findings with every optional column set and unset.
  */
-const iso = (column: string) => `to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+type Kind = 'id' | 'text' | 'label' | 'number' | 'json' | 'time';
+
+/** A value of `kind` as JSON text; null as `null` (concat() would drop a NULL). */
+function asJson(kind: Kind, e: string): string {
+  switch (kind) {
+    case 'id':
+    case 'label':
+      return `coalesce('"' || ${e} || '"', 'null')`;
+    case 'text':
+      return `coalesce(to_json(${e})::text, 'null')`;
+    case 'number':
+    case 'json':
+      return `coalesce(${e}::text, 'null')`;
+    case 'time':
+      return `coalesce('"' || to_char(${e} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') || '"', 'null')`;
+  }
+}
 
 const unfixed = UNFIXED_STATES.map((s) => `'${s}'`).join(', ');
 
-/** The record's keys in toFinding's order, then toSyncFinding's two; each a column of `f` or an expression of it. */
-function fields(f: string, siteId: string, now: number): [string, string | SQL][] {
+/** The record's keys in toFinding's order, then toSyncFinding's two, with what each is written from. */
+function fields(f: string, siteId: string): [string, Kind, string][] {
   return [
-    ['id', `${f}.id`],
-    ['inspectionId', `${f}.inspection_id`],
-    ['scaffoldId', `${f}.scaffold_id`],
-    ['elevation', `${f}.elevation`],
-    ['lift', `${f}.lift`],
-    ['bay', `${f}.bay`],
-    ['heightM', `${f}.height_m`],
-    ['item', `json_build_object('catalogueItemId', ${f}.catalogue_item_id, 'name', ${f}.item_name, 'massKg', ${f}.mass_kg, 'shape', ${f}.shape)`],
-    ['exposure', `${f}.exposure`],
-    ['likelihoodAnswers', `${f}.likelihood_answers`],
-    ['likelihood', `${f}.likelihood`],
-    ['estimate', `${f}.estimate`],
-    ['severity', `${f}.severity`],
-    ['riskScore', `${f}.risk_score`],
-    ['riskBand', `${f}.risk_band`],
-    ['state', `${f}.state`],
-    ['assigneeId', `${f}.assignee_id`],
-    ['dueAt', iso(`${f}.due_at`)],
-    ['overdue', sql`(${sql.raw(`${f}.due_at is not null and floor(extract(epoch from ${f}.due_at) * 1000)`)} < ${now}::numeric ${sql.raw(`and ${f}.state in (${unfixed})`)})`],
-    ['notes', `${f}.notes`],
-    ['madeSafeNote', `${f}.made_safe_note`],
-    ['madeSafeUntil', iso(`${f}.made_safe_until`)],
-    ['handBack', `${f}.hand_back`],
-    ['madeSafeControl', `${f}.made_safe_control`],
-    ['zoneRadiusM', `${f}.zone_radius_m`],
-    ['madeSafePhotoIds', `${f}.made_safe_photo_ids`],
-    ['createdBy', `${f}.created_by`],
-    ['createdAt', iso(`${f}.created_at`)],
-    ['updatedAt', iso(`${f}.updated_at`)],
-    ['version', `${f}.version`],
-    ['organisationId', `${f}.organisation_id`],
-    ['siteId', siteId],
+    ['id', 'id', `${f}.id`],
+    ['inspectionId', 'id', `${f}.inspection_id`],
+    ['scaffoldId', 'id', `${f}.scaffold_id`],
+    ['elevation', 'text', `${f}.elevation`],
+    ['lift', 'number', `${f}.lift`],
+    ['bay', 'number', `${f}.bay`],
+    ['heightM', 'number', `${f}.height_m`],
+    ['item', 'json', ''],
+    ['exposure', 'label', `${f}.exposure`],
+    ['likelihoodAnswers', 'json', `${f}.likelihood_answers`],
+    ['likelihood', 'number', `${f}.likelihood`],
+    ['estimate', 'json', `${f}.estimate`],
+    ['severity', 'number', `${f}.severity`],
+    ['riskScore', 'number', `${f}.risk_score`],
+    ['riskBand', 'label', `${f}.risk_band`],
+    ['state', 'label', `${f}.state`],
+    ['assigneeId', 'id', `${f}.assignee_id`],
+    ['dueAt', 'time', `${f}.due_at`],
+    ['overdue', 'json', ''],
+    ['notes', 'text', `${f}.notes`],
+    ['madeSafeNote', 'text', `${f}.made_safe_note`],
+    ['madeSafeUntil', 'time', `${f}.made_safe_until`],
+    ['handBack', 'json', `${f}.hand_back`],
+    ['madeSafeControl', 'label', `${f}.made_safe_control`],
+    ['zoneRadiusM', 'number', `${f}.zone_radius_m`],
+    ['madeSafePhotoIds', 'json', `array_to_json(${f}.made_safe_photo_ids)`],
+    ['createdBy', 'id', `${f}.created_by`],
+    ['createdAt', 'time', `${f}.created_at`],
+    ['updatedAt', 'time', `${f}.updated_at`],
+    ['version', 'number', `${f}.version`],
+    ['organisationId', 'id', `${f}.organisation_id`],
+    ['siteId', 'id', siteId],
   ];
 }
 
@@ -65,6 +83,16 @@ function fields(f: string, siteId: string, now: number): [string, string | SQL][
  * caller's SQL, never input.
  */
 export function syncFindingJson(f: string, siteId: string, now: number): SQL {
-  const pairs = fields(f, siteId, now).map(([key, value]) => sql`${sql.raw(`'${key}'`)}, ${typeof value === 'string' ? sql.raw(value) : value}`);
-  return sql`json_build_object(${sql.join(pairs, sql`, `)})::text`;
+  const item = [
+    `'{"catalogueItemId":', ${asJson('id', `${f}.catalogue_item_id`)}, ',"name":', ${asJson('text', `${f}.item_name`)}`,
+    `',"massKg":', ${asJson('number', `${f}.mass_kg`)}, ',"shape":', ${asJson('json', `${f}.shape`)}, '}'`,
+  ].join(', ');
+  const overdue = sql`case when ${sql.raw(`${f}.due_at is not null and ${f}.state in (${unfixed}) and floor(extract(epoch from ${f}.due_at) * 1000)`)} < ${now}::numeric then 'true' else 'false' end`;
+  const parts: SQL[] = fields(f, siteId).map(([key, kind, e], i) => {
+    const lead = sql.raw(`'${i === 0 ? '{' : ','}"${key}":', `);
+    if (key === 'item') return sql`${lead}${sql.raw(item)}`;
+    if (key === 'overdue') return sql`${lead}${overdue}`;
+    return sql`${lead}${sql.raw(asJson(kind, e))}`;
+  });
+  return sql`concat(${sql.join(parts, sql`, `)}, '}')`;
 }
