@@ -83,16 +83,32 @@ function fields(f: string, siteId: string): [string, Kind, string][] {
  * caller's SQL, never input.
  */
 export function syncFindingJson(f: string, siteId: string, now: number): SQL {
-  const item = [
-    `'{"catalogueItemId":', ${asJson('id', `${f}.catalogue_item_id`)}, ',"name":', ${asJson('text', `${f}.item_name`)}`,
-    `',"massKg":', ${asJson('number', `${f}.mass_kg`)}, ',"shape":', ${asJson('json', `${f}.shape`)}, '}'`,
-  ].join(', ');
-  const overdue = sql`case when ${sql.raw(`${f}.due_at is not null and ${f}.state in (${unfixed}) and floor(extract(epoch from ${f}.due_at) * 1000)`)} < ${now}::numeric then 'true' else 'false' end`;
-  const parts: SQL[] = fields(f, siteId).map(([key, kind, e], i) => {
-    const lead = sql.raw(`'${i === 0 ? '{' : ','}"${key}":', `);
-    if (key === 'item') return sql`${lead}${sql.raw(item)}`;
-    if (key === 'overdue') return sql`${lead}${overdue}`;
-    return sql`${lead}${sql.raw(asJson(kind, e))}`;
-  });
-  return sql`concat(${sql.join(parts, sql`, `)}, '}')`;
+  const [before, after] = textAround(f, siteId);
+  const overdue = sql.raw(`${f}.due_at is not null and ${f}.state in (${unfixed}) and floor(extract(epoch from ${f}.due_at) * 1000)`);
+  return sql`${sql.raw(before)}case when ${overdue} < ${now}::numeric then 'true' else 'false' end${sql.raw(after)}`;
+}
+
+/** The SQL text before and after the overdue test, built once per alias (a pull builds its query for every page). */
+const texts = new Map<string, [string, string]>();
+
+function textAround(f: string, siteId: string): [string, string] {
+  const key = `${f} ${siteId}`;
+  let found = texts.get(key);
+  if (!found) {
+    const item = [
+      `'{"catalogueItemId":', ${asJson('id', `${f}.catalogue_item_id`)}, ',"name":', ${asJson('text', `${f}.item_name`)}`,
+      `',"massKg":', ${asJson('number', `${f}.mass_kg`)}, ',"shape":', ${asJson('json', `${f}.shape`)}, '}'`,
+    ].join(', ');
+    const parts = fields(f, siteId).map(([key, kind, e], i) => {
+      const lead = `'${i === 0 ? '{' : ','}"${key}":', `;
+      if (key === 'item') return `${lead}${item}`;
+      // Where the overdue test goes (it carries `now` as a parameter); SQL text never holds a NUL.
+      if (key === 'overdue') return `${lead}\u0000`;
+      return `${lead}${asJson(kind, e)}`;
+    });
+    const [before, after] = `concat(${parts.join(', ')}, '}')`.split('\u0000') as [string, string];
+    found = [before, after];
+    texts.set(key, found);
+  }
+  return found;
 }
