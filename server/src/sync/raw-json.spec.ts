@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { RawJson, rawJson, stringifyWithRawJson } from './raw-json.js';
+import { jsonAnswer, RawJson, rawJson, rawJsonPieces, stringifyWithRawJson } from './raw-json.js';
 
 // jsonb as PostgreSQL writes it (with its spaces), the way a pull page carries a finding's estimate.
 const estimate = '{"severity": {"label": "Major", "basis": "Peak force 8.75 kN – see \\"basis\\""}, "impactEnergyJ": 9.5}';
@@ -21,5 +21,15 @@ describe('JSON text carried into an answer unparsed', () => {
   it('gives the parsed value to any other serialiser', () => {
     expect(JSON.parse(JSON.stringify({ estimate: new RawJson(estimate) }))).toEqual({ estimate: JSON.parse(estimate) });
     expect(stringifyWithRawJson({ plain: [1, 'two'] })).toBe(JSON.stringify({ plain: [1, 'two'] }));
+  });
+
+  it('sends the pieces of an answer as the UTF-8 bytes of the whole, characters outside ASCII included', async () => {
+    const page = { changes: [{ record: rawJson(estimate) }, { record: rawJson('{"note": "Ø 48.3 mm – tube"}') }], cursor: 'ü.1' };
+    const pieces = rawJsonPieces(page);
+    expect(pieces.length).toBeGreaterThan(1);
+    expect(pieces.join('')).toBe(stringifyWithRawJson(page));
+    const chunks: Buffer[] = [];
+    for await (const chunk of jsonAnswer(pieces).getStream()) chunks.push(chunk as Buffer);
+    expect(Buffer.concat(chunks).equals(Buffer.from(pieces.join('')))).toBe(true);
   });
 });

@@ -31,6 +31,14 @@ export function rawJson(text: unknown): RawJson | null {
  * a NUL, so no other string of the answer can look like a marker.
  */
 export function stringifyWithRawJson(value: unknown): string {
+  return rawJsonPieces(value).join('');
+}
+
+/**
+ * The same JSON as stringifyWithRawJson, as the pieces it is made of, in order (to be written out
+ * one after another: a page is megabytes, and one string of it would be copied whole once more).
+ */
+export function rawJsonPieces(value: unknown): string[] {
   const state = { texts: [] as string[], tag: randomBytes(6).toString('hex') };
   let json: string;
   collecting = state;
@@ -39,15 +47,24 @@ export function stringifyWithRawJson(value: unknown): string {
   } finally {
     collecting = undefined;
   }
-  if (!state.texts.length) return json;
-  return json.replace(new RegExp(`"\\\\u0000${state.tag}(\\d+)"`, 'g'), (_marker, index: string) => state.texts[Number(index)]!);
+  if (!state.texts.length) return [json];
+  // Split around the markers; with the index captured, every odd piece is the index of a text.
+  const pieces = json.split(new RegExp(`"\\\\u0000${state.tag}(\\d+)"`));
+  for (let i = 1; i < pieces.length; i += 2) pieces[i] = state.texts[Number(pieces[i])]!;
+  return pieces;
 }
 
 /**
- * A JSON answer already written, sent as its UTF-8 bytes: encoded once, and without the ETag Express
- * would hash over it (sync answers are megabytes, and never asked for conditionally).
+ * A JSON answer already written (whole, or in pieces to be joined), sent as its UTF-8 bytes: each
+ * piece encoded once into one buffer, and without the ETag Express would hash over it (sync
+ * answers are megabytes, and never asked for conditionally).
  */
-export function jsonAnswer(json: string): StreamableFile {
-  const bytes = Buffer.from(json);
+export function jsonAnswer(json: string | string[]): StreamableFile {
+  const pieces = typeof json === 'string' ? [json] : json;
+  let length = 0;
+  for (const piece of pieces) length += Buffer.byteLength(piece);
+  const bytes = Buffer.allocUnsafe(length);
+  let at = 0;
+  for (const piece of pieces) at += bytes.write(piece, at);
   return new StreamableFile(bytes, { type: 'application/json; charset=utf-8', length: bytes.length });
 }

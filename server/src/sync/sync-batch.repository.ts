@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { asc, eq, inArray, sql } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { findings, fixes, scaffolds, syncConflicts, verifications } from '../db/schema/index.js';
 import type { FindingRow } from '../findings/finding.mapper.js';
@@ -41,6 +41,14 @@ function asJson(rows: FindingRow[], columns: readonly FindingColumn[]): string {
   return JSON.stringify(out);
 }
 
+/**
+ * `findings.id` is one of `ids`, the list as ONE array parameter: a push names up to thousands of
+ * findings, and a parameter per id costs the query's building, binding and planning each time.
+ */
+export function idIn(ids: string[]) {
+  return sql`${findings.id} = any(${sql.param(ids)}::uuid[])`;
+}
+
 /** A finding of the batch with what its answer and scope need from its scaffold. */
 export interface BatchFinding extends FindingWithScope {
   siteId: string;
@@ -75,7 +83,7 @@ export class SyncBatchRepository {
       .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId, siteId: scaffolds.siteId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
-      .where(inArray(findings.id, ids))
+      .where(idIn(ids))
       .orderBy(asc(findings.id))
       .for('update', { of: findings });
   }
@@ -83,7 +91,7 @@ export class SyncBatchRepository {
   /** The compared columns of the findings just written, as they read back. */
   async readChecked(ids: string[], tx: DbExecutor): Promise<CheckedFinding[]> {
     if (!ids.length) return [];
-    return tx.select(checkSelection).from(findings).where(inArray(findings.id, ids));
+    return tx.select(checkSelection).from(findings).where(idIn(ids));
   }
 
   /**

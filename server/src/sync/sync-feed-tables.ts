@@ -9,6 +9,7 @@ import type { SyncChange } from '@plummet/shared';
 import { and, asc, eq, isNull, or, sql, type SQL } from 'drizzle-orm';
 import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
 import type { DbExecutor } from '../db/db.tokens.js';
+import type { RawJson } from './raw-json.js';
 import {
   catalogueItems,
   controlChecks,
@@ -30,11 +31,22 @@ import { toScaffold } from '../scaffolds/scaffold.mapper.js';
 import { toSite } from '../sites/site.mapper.js';
 import { findingsInScope, type PullScope, scaffoldsInScope, sitesInScope } from './sync-site-scope.js';
 
+/** A finding whose record is its JSON text as PostgreSQL wrote it (sync-finding-json.ts), sent unparsed. */
+export interface RawFindingChange {
+  type: 'finding';
+  record: RawJson;
+}
+
+/** A change as a pull page carries it. */
+export type FeedChange = SyncChange | RawFindingChange;
+
 /** One change of the feed with its stamp. */
 export interface StampedChange {
   xid: string;
   seq: number;
-  change: SyncChange;
+  change: FeedChange;
+  /** The version of a raw record handed to the phone (the other records carry theirs in `change`). */
+  given?: { id: string; version: number };
 }
 
 export interface FeedScope extends PullScope {

@@ -145,6 +145,49 @@ describe('pulling changes', () => {
     expect(pulled?.record).toEqual({ ...rest.body, organisationId: expect.any(String), siteId: expect.any(String) });
   });
 
+  it('writes each finding as the findings API reads it, with every optional field set or left empty', async () => {
+    const { cursor } = await pullAll('demo:manager');
+    const shaped = { name: 'Bucket of fixings', massKg: 7.3, shape: { kind: 'box', lengthM: 0.3, widthM: 0.3, heightM: 0.35 } };
+    const [bare, full, fixed] = await pushCreates(3);
+    const client = new pg.Client({ connectionString: api.t.db.url });
+    await client.connect();
+    try {
+      // Times with microseconds (a Date keeps milliseconds), a due time passed, every nullable column set.
+      await client.query(
+        `update findings set state = 'made-safe', due_at = '2021-03-04 05:06:07.891999+00', made_safe_until = '2031-01-02 03:04:05.000001+00',
+           made_safe_note = 'Bagged, "tied" and tagged \\ at lift 3', made_safe_control = 'tether', zone_radius_m = 2.7,
+           made_safe_photo_ids = array[gen_random_uuid(), gen_random_uuid()], assignee_id = $2::uuid, inspection_id = $3,
+           hand_back = jsonb_build_object('reason', 'not-my-area', 'note', 'Ask the roofer', 'by', $2::text, 'at', '2026-01-02T03:04:05.678Z'),
+           notes = E'Line one\nline two – with a dash', created_at = '2025-12-31 23:59:59.999999+00', updated_at = now(),
+           sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq')
+         where id = $1`,
+        [full, api.userIds['demo:foreman'], DEMO.openInspection],
+      );
+      // Fixed: a passed due time no longer makes it overdue.
+      await client.query(
+        `update findings set state = 'fixed', due_at = now() - interval '1 day', updated_at = now(), sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq') where id = $1`,
+        [fixed],
+      );
+    } finally {
+      await client.end();
+    }
+    const withShape = await api.call('demo:inspector', 'POST', '/findings', findingBody(DEMO.unmannedScaffold, { elevation: 'South', bay: 1, item: shaped }));
+    expect(withShape.status).toBe(201);
+    const ids = [bare!, full!, fixed!, withShape.body.id as string];
+    await pullAll('demo:manager', cursor, 500, ids);
+    const pulled = (await pull('demo:manager', cursor)).changes.filter((c) => c.type === 'finding' && ids.includes(c.record.id));
+    expect(pulled).toHaveLength(4);
+    for (const change of pulled) {
+      const rest = await api.call('demo:manager', 'GET', `/findings/${change.record.id}`);
+      expect(rest.status).toBe(200);
+      expect(change.record).toEqual({ ...rest.body, organisationId: expect.any(String), siteId: DEMO.quaysideSite });
+    }
+    const byId = new Map(pulled.map((c) => [c.record.id, c.record]));
+    expect(byId.get(full!)).toMatchObject({ overdue: true, dueAt: '2021-03-04T05:06:07.891Z', madeSafeUntil: '2031-01-02T03:04:05.000Z', createdAt: '2025-12-31T23:59:59.999Z', zoneRadiusM: 2.7 });
+    expect(byId.get(fixed!)).toMatchObject({ overdue: false, state: 'fixed' });
+    expect(byId.get(bare!)).toMatchObject({ overdue: false, madeSafeUntil: null, madeSafeControl: null, zoneRadiusM: null, handBack: null, madeSafePhotoIds: [] });
+  });
+
   it('refuses a malformed cursor', async () => {
     expect((await api.call('demo:manager', 'GET', '/sync/pull?cursor=yesterday')).status).toBe(400);
   });

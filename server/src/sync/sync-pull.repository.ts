@@ -1,31 +1,12 @@
 import { Inject, Injectable } from '@nestjs/common';
-import { and, type AnyColumn, asc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, sql, type AnyColumn } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
 import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
-import { FINDING_API_COLUMNS, type FindingApiRow } from '../findings/finding.mapper.js';
 import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
-import { rawJson } from './raw-json.js';
-import { toSyncConflict, toSyncFinding } from './sync.mapper.js';
-
-const findingApiColumns = FINDING_API_COLUMNS.map((key) => [key, findings[key]] as const);
-/** jsonb columns travel as text and into the answer unparsed (raw-json.ts): the estimate is most of a page. */
-const isJsonb = (column: AnyColumn) => column.getSQLType() === 'jsonb';
-const findingSelectList = sql.raw(
-  findingApiColumns.map(([, column]) => (isJsonb(column) ? `findings.${column.name}::text as ${column.name}` : `findings.${column.name}`)).join(', '),
-);
-const findingDecoders = findingApiColumns.map(
-  ([key, column]) => [key, column.name, isJsonb(column) ? rawJson : (value: unknown) => column.mapFromDriverValue(value as never)] as const,
-);
-
-/** A raw findings row (column names as in the table) as a typed select would give it, its jsonb still text (RawJson). */
-function decodeFinding(raw: Record<string, unknown>): FindingApiRow {
-  const row: Record<string, unknown> = {};
-  for (const [key, name, decode] of findingDecoders) {
-    const value = raw[name];
-    row[key] = value === null || value === undefined ? null : decode(value);
-  }
-  return row as FindingApiRow;
-}
+import { RawJson } from './raw-json.js';
+import { idIn } from './sync-batch.repository.js';
+import { syncFindingJson } from './sync-finding-json.js';
+import { toSyncConflict } from './sync.mapper.js';
 
 /** (xid, seq) order of the feed; xid8 travels as decimal text, so compare it as a BigInt. */
 export function feedOrder(a: { xid: string; seq: number }, b: { xid: string; seq: number }): number {
@@ -81,13 +62,14 @@ export class SyncPullRepository {
       await tx.execute<{ changed: boolean[] }>(sql`select set_config('enable_sort', 'off', true), array[${sql.join(probes, sql`, `)}] as changed`)
     ).rows;
     const [findingsChanged, conflictsChanged, ...othersChanged] = probe!.changed;
-    // Raw rows decoded by each column's own Drizzle decoder: the same values as a typed select,
-    // without its per-cell bookkeeping (a page is a thousand rows of thirty columns).
+    // Each finding comes as its record's JSON text, written by PostgreSQL (sync-finding-json.ts), with
+    // what the feed and the versions handed out need beside it: no cell is decoded here.
     const scoped = foremanId ? sql`and (s.foreman_id = ${foremanId} or findings.assignee_id = ${foremanId})` : sql``;
     const onSite = scope.siteId ? sql`and s.site_id = ${scope.siteId}` : sql``;
     const found = findingsChanged
-      ? await tx.execute<Record<string, unknown>>(sql`
-      select ${findingSelectList}, findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq, s.site_id as feed_site_id
+      ? await tx.execute<{ record: string; id: string; version: number; feed_xid: string; feed_seq: string }>(sql`
+      select ${syncFindingJson('findings', 's.site_id', now)} as record, findings.id, findings.version,
+        findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq
       from findings join scaffolds s on s.id = findings.scaffold_id
       where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped} ${onSite}
       order by findings.sync_xid, findings.sync_seq
@@ -102,9 +84,10 @@ export class SyncPullRepository {
     const otherRows: StampedChange[][] = [];
     for (const [i, reader] of others.entries()) if (othersChanged[i]) otherRows.push(await reader.read());
     const out: StampedChange[] = found.rows.map((r) => ({
-      xid: r.feed_xid as string,
+      xid: r.feed_xid,
       seq: Number(r.feed_seq),
-      change: { type: 'finding', record: toSyncFinding(decodeFinding(r), r.feed_site_id as string, now) },
+      change: { type: 'finding', record: new RawJson(r.record) },
+      given: { id: r.id, version: r.version },
     }));
     for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c) } });
     for (const part of otherRows) out.push(...part);
@@ -118,6 +101,6 @@ export class SyncPullRepository {
       .select({ finding: findings, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
-      .where(inArray(findings.id, ids));
+      .where(idIn(ids));
   }
 }

@@ -15,7 +15,7 @@ import { AcceptsEndedSession, CurrentUser, Roles } from '../auth/auth.decorators
 import type { AuthUser } from '../auth/auth.types.js';
 import { IdParamPipe } from '../common/id-param.pipe.js';
 import { EndedSessionPushes } from './ended-session-pushes.js';
-import { jsonAnswer, stringifyWithRawJson } from './raw-json.js';
+import { jsonAnswer, rawJsonPieces } from './raw-json.js';
 import { SyncConflictsService } from './sync-conflicts.service.js';
 import { SyncPullService } from './sync-pull.service.js';
 import { SyncPushService } from './sync-push.service.js';
@@ -58,7 +58,7 @@ export class SyncController {
   @Get('pull')
   @ApiOkResponse({ type: SyncPullResponseDto })
   async pull(@CurrentUser() user: AuthUser, @Query() query: SyncPullQueryDto): Promise<StreamableFile> {
-    return jsonAnswer(stringifyWithRawJson(await this.pulls.changes(user, query)));
+    return jsonAnswer(rawJsonPieces(await this.pulls.changes(user, query)));
   }
 
   @Get('conflicts')
