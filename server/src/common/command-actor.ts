@@ -1,12 +1,13 @@
 /**
- * What every command layer (findings, inspections, user settings) shares: who is acting, the one
- * role check, and a pushed payload checked with its shared schema. A command refuses with one
+ * What every command layer (findings, inspections, scaffolds, user settings) shares: who is acting, the one
+ * role check, a pushed payload checked with its shared schema, and the rows that keep clashes. A command refuses with one
  * typed rejection (AppError): REST answers it as an HTTP error, sync push as a rejected mutation
  * whose reason is the error's message (sync/mutation-rejected.ts).
  */
-import type { Role } from '@plummet/shared';
+import type { FieldConflict, Role, SyncEntity } from '@plummet/shared';
 import type { ZodType } from 'zod';
 import type { AuthUser } from '../auth/auth.types.js';
+import type { syncConflicts } from '../db/schema/index.js';
 import { AppError, ErrorCode, type ErrorIssue } from './app-error.js';
 
 /** Who runs a command: the user, and for a push the phone's client and mutation ids (null through REST). */
@@ -46,4 +47,26 @@ export function seenVersion(actor: CommandActor, current: number, baseVersion: n
 /** What a conflict answer tells the phone: the fields that clashed with values its writer had not seen. */
 export function conflictReason(conflicts: readonly { field: string }[]): string {
   return `Clashed with a value you had not seen: ${conflicts.map((c) => c.field).join(', ')}`;
+}
+
+/**
+ * The rows that keep a merge's clashes: the value left in place, the one it replaced with who wrote
+ * it and when (from the field's stamp), and the writer that won (the actor; a REST write names no phone).
+ */
+export function conflictRows(actor: CommandActor, entity: SyncEntity, entityId: string, conflicts: readonly FieldConflict[]): (typeof syncConflicts.$inferInsert)[] {
+  return conflicts.map((c) => ({
+    organisationId: actor.user.organisationId,
+    entity,
+    entityId,
+    field: c.field,
+    currentValue: c.currentValue ?? null,
+    replacedValue: c.replacedValue ?? null,
+    replacedVersion: c.replacedStamp.v,
+    replacedClientId: c.replacedStamp.c,
+    replacedUserId: c.replacedStamp.u ?? null,
+    replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
+    winnerClientId: actor.clientId ?? SERVER_CLIENT,
+    winnerUserId: actor.user.userId,
+    mutationId: actor.mutationId ?? 0,
+  }));
 }

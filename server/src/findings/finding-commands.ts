@@ -32,7 +32,7 @@ import { assignFinding, changeFindingState, handBackFinding } from './finding-st
 import { DbFindingStore, type FindingStore } from './finding-store.js';
 import { FindingsRepository } from './findings.repository.js';
 
-import { conflictReason, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
+import { conflictReason, conflictRows, seenVersion } from '../common/command-actor.js';
 
 @Injectable()
 export class FindingCommands {
@@ -134,21 +134,7 @@ export class FindingCommands {
       ? await store.updateFinding(current.id, { ...columns, notes: fields.notes, syncFields: merge.stamps, ...(dueAt !== undefined ? { dueAt } : {}) })
       : current;
     const conflicts = await store.insertConflicts(
-      merge.conflicts.map((c) => ({
-        organisationId: actor.user.organisationId,
-        entity: 'finding',
-        entityId: current.id,
-        field: c.field,
-        currentValue: c.currentValue ?? null,
-        replacedValue: c.replacedValue ?? null,
-        replacedVersion: c.replacedStamp.v,
-        replacedClientId: c.replacedStamp.c,
-        replacedUserId: c.replacedStamp.u ?? null,
-        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
-        winnerClientId: actor.clientId ?? SERVER_CLIENT,
-        winnerUserId: actor.user.userId,
-        mutationId: actor.mutationId ?? 0,
-      })),
+      conflictRows(actor, 'finding', current.id, merge.conflicts),
     );
     await store.audit({ entityType: 'finding', entityId: current.id, action, before: toFinding(current), after: toFinding(row) });
     return conflicts.length

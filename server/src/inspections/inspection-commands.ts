@@ -30,7 +30,7 @@ import {
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
-import { type CommandActor, conflictReason, parseInput, requireRole, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
+import { type CommandActor, conflictReason, conflictRows, parseInput, requireRole, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { ReportMailQueue } from '../mail/report-mail.queue.js';
 import { registerContextOf } from '../register/register-context.js';
@@ -261,21 +261,7 @@ export class InspectionCommands {
 
   private async keepConflicts(tx: DbExecutor, actor: CommandActor, entity: 'inspection' | 'control-check', entityId: string, conflicts: FieldConflict[]): Promise<string[]> {
     const rows = await this.writes.insertConflicts(
-      conflicts.map((c) => ({
-        organisationId: actor.user.organisationId,
-        entity,
-        entityId,
-        field: c.field,
-        currentValue: c.currentValue ?? null,
-        replacedValue: c.replacedValue ?? null,
-        replacedVersion: c.replacedStamp.v,
-        replacedClientId: c.replacedStamp.c,
-        replacedUserId: c.replacedStamp.u ?? null,
-        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
-        winnerClientId: actor.clientId ?? SERVER_CLIENT,
-        winnerUserId: actor.user.userId,
-        mutationId: actor.mutationId ?? 0,
-      })),
+      conflictRows(actor, entity, entityId, conflicts),
       tx,
     );
     return rows.map((r) => r.id);

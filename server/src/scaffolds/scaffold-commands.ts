@@ -12,7 +12,7 @@ import { Injectable } from '@nestjs/common';
 import { type FieldConflict, type FieldStamps, mergeFieldPatch, SCAFFOLD_MERGE_POLICIES, ScaffoldStatusChangeSchema, type ScaffoldStatus } from '@plummet/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { AppError } from '../common/app-error.js';
-import { type CommandActor, conflictReason, parseInput, requireRole, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
+import { type CommandActor, conflictReason, conflictRows, parseInput, requireRole, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { ScaffoldCommandRepository } from './scaffold-command.repository.js';
 import { type ScaffoldRow, toScaffold } from './scaffold.mapper.js';
@@ -100,21 +100,7 @@ export class ScaffoldCommands {
 
   private async keepConflicts(tx: DbExecutor, actor: CommandActor, entityId: string, conflicts: FieldConflict[]): Promise<string[]> {
     const rows = await this.writes.insertConflicts(
-      conflicts.map((c) => ({
-        organisationId: actor.user.organisationId,
-        entity: 'scaffold',
-        entityId,
-        field: c.field,
-        currentValue: c.currentValue ?? null,
-        replacedValue: c.replacedValue ?? null,
-        replacedVersion: c.replacedStamp.v,
-        replacedClientId: c.replacedStamp.c,
-        replacedUserId: c.replacedStamp.u ?? null,
-        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
-        winnerClientId: actor.clientId ?? SERVER_CLIENT,
-        winnerUserId: actor.user.userId,
-        mutationId: actor.mutationId ?? 0,
-      })),
+      conflictRows(actor, 'scaffold', entityId, conflicts),
       tx,
     );
     return rows.map((r) => r.id);

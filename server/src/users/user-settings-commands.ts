@@ -7,7 +7,7 @@
 import { Injectable } from '@nestjs/common';
 import { type FieldStamps, mergeFieldPatch, UserProfileUpdateSchema } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
-import { type CommandActor, conflictReason, parseInput, SERVER_CLIENT, seenVersion } from '../common/command-actor.js';
+import { type CommandActor, conflictReason, conflictRows, parseInput, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { UserSettingsRepository } from './user-settings.repository.js';
 import { UsersRepository } from './users.repository.js';
@@ -44,21 +44,7 @@ export class UserSettingsCommands {
     if (!Object.keys(merge.changes).length && !merge.conflicts.length) return { outcome: 'applied', reason: 'Nothing to change', conflictIds: [] };
     if (Object.keys(merge.changes).length) await this.settings.update(userId, { ...merge.changes, syncFields: merge.stamps }, tx);
     const conflicts = await this.settings.insertConflicts(
-      merge.conflicts.map((c) => ({
-        organisationId: user.organisationId,
-        entity: 'user',
-        entityId: userId,
-        field: c.field,
-        currentValue: c.currentValue ?? null,
-        replacedValue: c.replacedValue ?? null,
-        replacedVersion: c.replacedStamp.v,
-        replacedClientId: c.replacedStamp.c,
-        replacedUserId: c.replacedStamp.u ?? null,
-        replacedAt: c.replacedStamp.t ? new Date(c.replacedStamp.t) : null,
-        winnerClientId: actor.clientId ?? SERVER_CLIENT,
-        winnerUserId: user.userId,
-        mutationId: actor.mutationId ?? 0,
-      })),
+      conflictRows(actor, 'user', userId, merge.conflicts),
       tx,
     );
     const shown = (row: typeof current) => ({ name: row.name, position: row.position, units: row.units, windUnits: row.windUnits });
