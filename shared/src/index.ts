@@ -36,6 +36,7 @@ export * from './findings/finding-estimate.js';
 export * from './findings/finding.schema.js';
 export * from './sync/sync.schema.js';
 export * from './sync/merge-rules.js';
+export * from './sync/finding-rows.js';
 export * from './manager/overview.schema.js';
 export * from './manager/trends.schema.js';
 export * from './manager/reports.schema.js';

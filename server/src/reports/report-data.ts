@@ -1,5 +1,6 @@
 import type { OrganisationSettings } from '@plummet/shared';
-import type { controlChecks, findings, inspections, photos, scaffolds, sites } from '../db/schema/index.js';
+import type { controlChecks, inspections, photos, scaffolds, sites } from '../db/schema/index.js';
+import type { FindingRow } from '../findings/finding.mapper.js';
 
 export interface ReportPerson {
   id: string;
@@ -9,7 +10,7 @@ export interface ReportPerson {
 }
 
 export interface ReportFinding {
-  row: typeof findings.$inferSelect;
+  row: FindingRow;
   assignee: ReportPerson | null;
   photos: (typeof photos.$inferSelect)[];
 }

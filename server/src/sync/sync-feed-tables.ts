@@ -31,11 +31,11 @@ import { toScaffold } from '../scaffolds/scaffold.mapper.js';
 import { toSite } from '../sites/site.mapper.js';
 import { findingsInScope, type PullScope, scaffoldsInScope, sitesInScope } from './sync-site-scope.js';
 
-/** A finding whose record is its JSON text as PostgreSQL wrote it (sync-finding-json.ts), sent unparsed. */
-export interface RawFindingChange {
-  type: 'finding';
-  record: RawJson;
-}
+/**
+ * A finding as JSON text PostgreSQL wrote (sync-finding-json.ts), sent unparsed: its record, or with
+ * `format=rows` its row (shared/src/sync/finding-rows.ts).
+ */
+export type RawFindingChange = { type: 'finding'; record: RawJson } | { type: 'finding'; row: RawJson };
 
 /** A change as a pull page carries it. */
 export type FeedChange = SyncChange | RawFindingChange;

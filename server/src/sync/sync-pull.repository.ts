@@ -1,7 +1,8 @@
 import { Inject, Injectable } from '@nestjs/common';
+import type { SyncPullFormat } from '@plummet/shared';
 import { and, asc, eq, sql, type AnyColumn } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
+import { findingColumns, findings, scaffolds, syncConflicts } from '../db/schema/index.js';
 import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
 import { RawJson } from './raw-json.js';
 import { idIn } from './sync-batch.repository.js';
@@ -44,7 +45,14 @@ export class SyncPullRepository {
    * REPEATABLE READ transaction). Each table gives its first `limit` rows of the window; merged in
    * (xid, seq) order, the first `limit` of the union is a prefix of the whole feed.
    */
-  async changes(scope: FeedScope, after: { xid: string; seq: number }, limit: number, tx: DbExecutor, now = Date.now()): Promise<StampedChange[]> {
+  async changes(
+    scope: FeedScope,
+    after: { xid: string; seq: number },
+    limit: number,
+    tx: DbExecutor,
+    format: SyncPullFormat = 'records',
+    now = Date.now(),
+  ): Promise<StampedChange[]> {
     const horizon = sql`pg_snapshot_xmin(pg_current_snapshot())`;
     const window = (xid: AnyColumn, seq: AnyColumn) =>
       sql`(${xid}, ${seq}) > (${after.xid}::xid8, ${after.seq}::bigint) and ${xid} < ${horizon}`;
@@ -68,7 +76,7 @@ export class SyncPullRepository {
     const onSite = scope.siteId ? sql`and s.site_id = ${scope.siteId}` : sql``;
     const found = findingsChanged
       ? await tx.execute<{ record: string; id: string; version: number; feed_xid: string; feed_seq: string }>(sql`
-      select ${syncFindingJson('findings', 's.site_id', now)} as record, findings.id, findings.version,
+      select ${syncFindingJson('findings', 's.site_id', now, format)} as record, findings.id, findings.version,
         findings.sync_xid::text as feed_xid, findings.sync_seq as feed_seq
       from findings join scaffolds s on s.id = findings.scaffold_id
       where findings.organisation_id = ${organisationId} and ${window(findings.syncXid, findings.syncSeq)} and s.archived_at is null ${scoped} ${onSite}
@@ -86,7 +94,7 @@ export class SyncPullRepository {
     const out: StampedChange[] = found.rows.map((r) => ({
       xid: r.feed_xid,
       seq: Number(r.feed_seq),
-      change: { type: 'finding', record: new RawJson(r.record) },
+      change: format === 'rows' ? { type: 'finding', row: new RawJson(r.record) } : { type: 'finding', record: new RawJson(r.record) },
       given: { id: r.id, version: r.version },
     }));
     for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c) } });
@@ -98,7 +106,7 @@ export class SyncPullRepository {
   async findingsWithSite(ids: string[], executor: DbExecutor = this.db) {
     if (!ids.length) return [];
     return executor
-      .select({ finding: findings, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
+      .select({ finding: findingColumns, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(idIn(ids));

@@ -28,7 +28,7 @@ export class SyncPullService {
     const { page, given } = await this.db.transaction(
       async (tx) => {
         const scope = { organisationId: user.organisationId, userId: user.userId, foremanId, siteId: query.siteId };
-        const feed = await this.pull.changes(scope, { xid, seq: Number(seq) }, query.limit + 1, tx);
+        const feed = await this.pull.changes(scope, { xid, seq: Number(seq) }, query.limit + 1, tx, query.format);
         const stamped = feed.slice(0, query.limit);
         const last = stamped.at(-1);
         return {
@@ -58,7 +58,7 @@ export interface SyncPullPage extends Omit<SyncPullResponse, 'changes'> {
 function givenVersion(c: StampedChange): { id: string; version: number }[] {
   if (c.given) return [c.given];
   const { change } = c;
-  if (change.record instanceof RawJson) return [];
+  if (!('record' in change) || change.record instanceof RawJson) return [];
   return (change.type === 'finding' || change.type === 'inspection' || change.type === 'control-check' || change.type === 'scaffold' || change.type === 'user') &&
     typeof change.record.version === 'number'
     ? [{ id: change.record.id, version: change.record.version }]

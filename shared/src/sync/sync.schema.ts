@@ -155,7 +155,14 @@ export const SyncPullQuerySchema = z.object({
    */
   siteId: IdSchema.optional(),
   limit: z.coerce.number().int().min(1).max(SYNC_PULL_MAX).default(500),
+  /**
+   * `rows`: each finding as `{ type: 'finding', row: [...] }`, its values without their keys, which
+   * unpackPullPage (finding-rows.ts) turns back into records; `records` (the default, for phones
+   * that predate rows): each as its record.
+   */
+  format: z.enum(['records', 'rows']).default('records'),
 });
+export type SyncPullFormat = SyncPullQuery['format'];
 export type SyncPullQuery = z.infer<typeof SyncPullQuerySchema>;
 
 /** Every kind of record a phone holds; the change feed carries each, and a tombstone names one to drop. */

@@ -1,0 +1,158 @@
+import { randomUUID } from 'node:crypto';
+import { ESTIMATE_ROW, estimateFinding, unpackPullPage, unpackRow, type ShapeSpec } from '@plummet/shared';
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO, type DataApi, findingBody, LOOSE_AT_EDGE, startDataApi } from '../../test/data-api.js';
+import { estimateRowFunctionBody } from './estimate-row-sql.js';
+
+/**
+ * Findings pulled as rows (GET /sync/pull?format=rows, shared/src/sync/finding-rows.ts): each row,
+ * unpacked as the phone unpacks it, is the record the same pull answers without the parameter, and
+ * the estimate's row PostgreSQL keeps (migration 0020) is the stored estimate's values.
+ */
+let api: DataApi;
+let client: pg.Client;
+beforeAll(async () => {
+  api = await startDataApi();
+  client = new pg.Client({ connectionString: api.t.db.url });
+  await client.connect();
+});
+afterAll(async () => {
+  await client?.end();
+  await api?.t.close();
+});
+
+interface Page {
+  changes: { type: string; record?: { id: string } & Record<string, unknown>; row?: unknown[] }[];
+  cursor: string;
+  hasMore: boolean;
+}
+
+async function pullText(format: 'rows' | 'records' | undefined, cursor?: string): Promise<string> {
+  const query = new URLSearchParams({ limit: '1000', ...(format ? { format } : {}), ...(cursor ? { cursor } : {}) });
+  const res = await fetch(`${api.t.baseUrl}/api/sync/pull?${query}`, { headers: { authorization: `Bearer ${api.tokens['demo:manager']}` } });
+  expect(res.status).toBe(200);
+  return res.text();
+}
+
+/** The findings of one page after `cursor`, by id, as records (rows unpacked as the phone does). */
+async function findingsOf(format: 'rows' | 'records' | undefined, cursor: string) {
+  const page = JSON.parse(await pullText(format, cursor)) as Page;
+  // Each finding's size as it travelled (a row's first value is the id).
+  const sizes = new Map(page.changes.filter((c) => c.type === 'finding').map((c) => [c.row ? (c.row[0] as string) : c.record!.id, JSON.stringify(c).length]));
+  unpackPullPage(page);
+  return { sizes, byId: new Map(page.changes.filter((c) => c.type === 'finding').map((c) => [c.record!.id, c.record!])) };
+}
+
+async function cursorNow(): Promise<string> {
+  let page = JSON.parse(await pullText('records')) as Page;
+  while (page.hasMore) page = JSON.parse(await pullText('records', page.cursor)) as Page;
+  return page.cursor;
+}
+
+/** Waits until the feed hands out every one of `ids` (other test files share the cluster and can hold back the horizon). */
+async function untilPulled(cursor: string, ids: string[]) {
+  const deadline = Date.now() + 10_000;
+  for (;;) {
+    const found = await findingsOf('records', cursor);
+    if (ids.every((id) => found.byId.has(id)) || Date.now() > deadline) return;
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+}
+
+const SHAPES: (ShapeSpec | null)[] = [
+  null,
+  { kind: 'box', lengthM: 0.3, widthM: 0.2, heightM: 0.1 },
+  { kind: 'sphere', diameterM: 0.08 },
+  { kind: 'cylinder', diameterM: 0.05, lengthM: 1.2 },
+];
+
+describe('findings pulled as rows', () => {
+  it("keep the estimate's row with the function the server's template writes", async () => {
+    const { rows } = await client.query<{ prosrc: string }>(`select prosrc from pg_proc where proname = 'finding_estimate_row'`);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]!.prosrc).toBe(estimateRowFunctionBody());
+  });
+
+  it("write every estimate the physics makes as a row of its values, and leave an estimate of another shape to travel as its object", async () => {
+    const estimates = SHAPES.flatMap((shape) =>
+      ([null, 0, 7.5, 25] as const).flatMap((windSpeedMps) =>
+        (['public', 'hard-hats', 'zone-closed'] as const).map((exposure) =>
+          JSON.parse(JSON.stringify(estimateFinding({ massKg: 3.2, heightM: 22.5, shape, exposure, likelihoodAnswers: LOOSE_AT_EDGE, windSpeedMps }).estimate)),
+        ),
+      ),
+    ) as Record<string, unknown>[];
+    const { rows } = await client.query<{ row: string | null }>(`select finding_estimate_row(e) as row from jsonb_array_elements($1::jsonb) e`, [JSON.stringify(estimates)]);
+    expect(rows).toHaveLength(estimates.length);
+    rows.forEach(({ row }, i) => expect(unpackRow(ESTIMATE_ROW, JSON.parse(row!))).toEqual(estimates[i]));
+
+    const one = estimates[5]!;
+    const severity = one.severity as Record<string, unknown>;
+    const resolved = one.resolved as Record<string, unknown>;
+    const { stillAirPeakForceN: _older, ...withoutAField } = one;
+    const others = [
+      withoutAField,
+      { ...one, comment: 'a field this template does not know' },
+      { ...one, severity: { ...severity, source: 'an extra nested field' } },
+      { ...one, severity: 'Major' },
+      { ...one, resolved: [resolved] },
+      { ...one, likelihood: null },
+      [one],
+      'an estimate',
+    ];
+    const answered = await client.query<{ row: string | null }>(`select finding_estimate_row(e) as row from jsonb_array_elements($1::jsonb) e`, [JSON.stringify(others)]);
+    expect(answered.rows.map((r) => r.row)).toEqual(others.map(() => null));
+  });
+
+  it('unpack to the records a pull without rows answers, with every optional field set or left empty, in far fewer bytes', async () => {
+    const cursor = await cursorNow();
+    const bodies = [
+      ...SHAPES.map((shape, i) =>
+        findingBody(DEMO.unmannedScaffold, { elevation: 'South', bay: 1 + (i % 3), exposure: i % 2 ? 'hard-hats' : 'public', item: { name: `Row test item ${i}`, massKg: 0.4 + i, shape } }),
+      ),
+      // In an inspection with wind: the estimate carries a drift and a wind impact.
+      findingBody(DEMO.preShiftScaffold, { elevation: 'Street', bay: 9, inspectionId: DEMO.openInspection, item: { name: 'Sheet of ply', massKg: 9, shape: { kind: 'box', lengthM: 1.2, widthM: 0.6, heightM: 0.018 } } }),
+    ];
+    const push = await api.call('demo:inspector', 'POST', '/sync/push', {
+      clientId: randomUUID(),
+      mutations: bodies.map((b, i) => ({ id: i + 1, entity: 'finding', entityId: b.id, action: 'create', payload: b })),
+    });
+    expect(push.status).toBe(200);
+    expect(push.body.results.map((r: { outcome: string }) => r.outcome)).toEqual(bodies.map(() => 'applied'));
+    const [full, older] = [bodies[1]!.id, bodies[2]!.id];
+    await client.query(
+      `update findings set state = 'made-safe', due_at = '2021-03-04 05:06:07.891999+00', made_safe_until = '2031-01-02 03:04:05.000001+00',
+         made_safe_note = 'Bagged, "tied" and tagged \\ at lift 3', made_safe_control = 'tether', zone_radius_m = 2.7,
+         made_safe_photo_ids = array[gen_random_uuid()], assignee_id = $2::uuid,
+         hand_back = jsonb_build_object('reason', 'not-my-area', 'note', 'Ask the roofer – twice', 'by', $2::text, 'at', '2026-01-02T03:04:05.678Z'),
+         notes = E'Line one\\nline two – with a dash', sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq')
+       where id = $1`,
+      [full, api.userIds['demo:foreman']],
+    );
+    // An estimate stored before a field was kept: no row of it, so it travels as its object.
+    await client.query(`update findings set estimate = estimate - 'windPeakForceN', sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq') where id = $1`, [older]);
+    const stored = await client.query<{ id: string; has_row: boolean }>(`select id, estimate_row is not null as has_row from findings where id = any($1::uuid[])`, [bodies.map((b) => b.id)]);
+    expect(Object.fromEntries(stored.rows.map((r) => [r.id, r.has_row]))).toEqual(Object.fromEntries(bodies.map((b) => [b.id, b.id !== older])));
+
+    const ids = bodies.map((b) => b.id);
+    await untilPulled(cursor, ids);
+    const asRecords = await findingsOf(undefined, cursor);
+    const asRows = await findingsOf('rows', cursor);
+    expect((await findingsOf('records', cursor)).byId).toEqual(asRecords.byId);
+    for (const id of ids) {
+      expect(asRecords.byId.get(id)).toBeDefined();
+      expect(asRows.byId.get(id)).toEqual(asRecords.byId.get(id));
+    }
+    expect(asRows.byId.get(full)).toMatchObject({ state: 'made-safe', overdue: true, zoneRadiusM: 2.7, madeSafeControl: 'tether' });
+    expect((asRows.byId.get(bodies[4]!.id)!.estimate as { driftM: number }).driftM).toBeGreaterThan(0);
+    expect(asRows.byId.size).toBe(asRecords.byId.size);
+    // Without keys, a finding whose estimate has its row travels in well under two thirds of the bytes.
+    const sum = (sizes: Map<string, number>) => ids.filter((id) => id !== older).reduce((n, id) => n + sizes.get(id)!, 0);
+    expect(sum(asRows.sizes)).toBeLessThan(sum(asRecords.sizes) * 0.62);
+  });
+
+  it('refuses a format it does not know', async () => {
+    const res = await api.call('demo:manager', 'GET', '/sync/pull?format=columns');
+    expect(res.status).toBe(400);
+  });
+});
