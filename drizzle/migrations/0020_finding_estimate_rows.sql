@@ -1,13 +1,22 @@
--- A finding's estimate as a pulled row (shared/src/sync/finding-rows.ts): its values in a fixed
--- order without their keys, written once by PostgreSQL when the estimate is written, so a pull copies
--- text instead of formatting each estimate again and a phone parses about half the bytes. NULL for
--- an estimate of another shape, which the pull sends as its object. The function's body is
--- estimateRowFunctionBody() of server/src/sync/estimate-row-sql.ts; sync-rows.int-spec.ts checks
--- the two are the same. Adding the column rewrites the table once, filling it for every finding.
-CREATE FUNCTION finding_estimate_row(e jsonb) RETURNS text LANGUAGE sql IMMUTABLE PARALLEL SAFE AS $$
-  select case when case when case when case when case when jsonb_typeof(e) = 'object' then e ?& array['terminalVelocityMps', 'impactVelocityMps', 'vacuumImpactVelocityMps', 'fallTimeS', 'riseM', 'impactEnergyJ', 'meanForceN', 'peakForceN', 'driftM', 'governingImpact', 'stillAirImpactVelocityMps', 'stillAirImpactEnergyJ', 'stillAirPeakForceN', 'windImpactVelocityMps', 'windImpactEnergyJ', 'windPeakForceN', 'severity', 'likelihood', 'resolved'] and e - array['terminalVelocityMps', 'impactVelocityMps', 'vacuumImpactVelocityMps', 'fallTimeS', 'riseM', 'impactEnergyJ', 'meanForceN', 'peakForceN', 'driftM', 'governingImpact', 'stillAirImpactVelocityMps', 'stillAirImpactEnergyJ', 'stillAirPeakForceN', 'windImpactVelocityMps', 'windImpactEnergyJ', 'windPeakForceN', 'severity', 'likelihood', 'resolved'] = '{}'::jsonb else false end then case when jsonb_typeof((e -> 'severity')) = 'object' then (e -> 'severity') ?& array['level', 'label', 'basis'] and (e -> 'severity') - array['level', 'label', 'basis'] = '{}'::jsonb else false end else false end then case when jsonb_typeof((e -> 'likelihood')) = 'object' then (e -> 'likelihood') ?& array['level', 'label', 'reasons'] and (e -> 'likelihood') - array['level', 'label', 'reasons'] = '{}'::jsonb else false end else false end then case when jsonb_typeof((e -> 'resolved')) = 'object' then (e -> 'resolved') ?& array['massKg', 'heightM', 'initialVelocityMps', 'dragAreaM2', 'dragAreaSource', 'airDensityKgM3', 'gravityMps2', 'windSpeedMps', 'exposure', 'contact', 'defaultsApplied'] and (e -> 'resolved') - array['massKg', 'heightM', 'initialVelocityMps', 'dragAreaM2', 'dragAreaSource', 'airDensityKgM3', 'gravityMps2', 'windSpeedMps', 'exposure', 'contact', 'defaultsApplied'] = '{}'::jsonb else false end else false end
-    then concat('[', (e -> 'terminalVelocityMps')::text, ',', (e -> 'impactVelocityMps')::text, ',', (e -> 'vacuumImpactVelocityMps')::text, ',', (e -> 'fallTimeS')::text, ',', (e -> 'riseM')::text, ',', (e -> 'impactEnergyJ')::text, ',', (e -> 'meanForceN')::text, ',', (e -> 'peakForceN')::text, ',', (e -> 'driftM')::text, ',', (e -> 'governingImpact')::text, ',', (e -> 'stillAirImpactVelocityMps')::text, ',', (e -> 'stillAirImpactEnergyJ')::text, ',', (e -> 'stillAirPeakForceN')::text, ',', (e -> 'windImpactVelocityMps')::text, ',', (e -> 'windImpactEnergyJ')::text, ',', (e -> 'windPeakForceN')::text, ',', concat('[', ((e -> 'severity') -> 'level')::text, ',', ((e -> 'severity') -> 'label')::text, ',', ((e -> 'severity') -> 'basis')::text, ']'), ',', concat('[', ((e -> 'likelihood') -> 'level')::text, ',', ((e -> 'likelihood') -> 'label')::text, ',', ((e -> 'likelihood') -> 'reasons')::text, ']'), ',', concat('[', ((e -> 'resolved') -> 'massKg')::text, ',', ((e -> 'resolved') -> 'heightM')::text, ',', ((e -> 'resolved') -> 'initialVelocityMps')::text, ',', ((e -> 'resolved') -> 'dragAreaM2')::text, ',', ((e -> 'resolved') -> 'dragAreaSource')::text, ',', ((e -> 'resolved') -> 'airDensityKgM3')::text, ',', ((e -> 'resolved') -> 'gravityMps2')::text, ',', ((e -> 'resolved') -> 'windSpeedMps')::text, ',', ((e -> 'resolved') -> 'exposure')::text, ',', ((e -> 'resolved') -> 'contact')::text, ',', ((e -> 'resolved') -> 'defaultsApplied')::text, ']'), ']')
-  end
+-- A finding's estimate as a pulled row (shared/src/sync/finding-rows.ts): its values in a fixed order
+-- without their keys, as JSON text the server writes with the estimate (server/src/findings/finding-input.ts).
+-- A pull copies it instead of formatting the estimate's numbers again, and a phone parses about half
+-- the bytes. Findings stored before this migration have no row and travel as their object until their
+-- estimate is next written.
+ALTER TABLE "findings" ADD COLUMN "estimate_row" text;
+--> statement-breakpoint
+ALTER TABLE "findings" ALTER COLUMN "estimate_row" SET COMPRESSION lz4;
+--> statement-breakpoint
+-- Whatever changes the estimate without writing its row in the same statement (a hand-written UPDATE,
+-- a path added later) empties the row, so the pull sends that estimate as its object and never the row
+-- of an older one.
+CREATE FUNCTION finding_estimate_row_guard() RETURNS trigger LANGUAGE plpgsql AS $$
+BEGIN
+  NEW.estimate_row := NULL;
+  RETURN NEW;
+END
 $$;
 --> statement-breakpoint
-ALTER TABLE "findings" ADD COLUMN "estimate_row" text GENERATED ALWAYS AS (finding_estimate_row(estimate)) STORED;
+CREATE TRIGGER findings_estimate_row_guard BEFORE UPDATE OF estimate ON findings FOR EACH ROW
+  WHEN (NEW.estimate IS DISTINCT FROM OLD.estimate AND NEW.estimate_row IS NOT DISTINCT FROM OLD.estimate_row)
+  EXECUTE FUNCTION finding_estimate_row_guard();

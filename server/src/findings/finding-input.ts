@@ -6,6 +6,7 @@
 import {
   DropInputError,
   estimateFinding,
+  estimateRowText,
   type FindingCreate,
   type FindingExposure,
   type FindingItemInput,
@@ -26,7 +27,7 @@ export type FindingComputedColumns = Required<
   Pick<
     FindingInsert,
     | 'elevation' | 'lift' | 'bay' | 'heightM' | 'catalogueItemId' | 'itemName' | 'massKg' | 'shape'
-    | 'exposure' | 'likelihoodAnswers' | 'estimate' | 'severity' | 'likelihood' | 'riskScore' | 'riskBand'
+    | 'exposure' | 'likelihoodAnswers' | 'estimate' | 'estimateRow' | 'severity' | 'likelihood' | 'riskScore' | 'riskBand'
   >
 >;
 
@@ -102,6 +103,8 @@ export function findingColumns(fields: FindingFields, windSpeedMps: number | nul
     exposure: fields.exposure,
     likelihoodAnswers: fields.likelihoodAnswers,
     estimate: result.estimate,
+    // The same estimate as the row a phone pulls (shared/src/sync/finding-rows.ts), written with it.
+    estimateRow: estimateRowText(result.estimate),
     severity: result.severity,
     likelihood: result.likelihood,
     riskScore: result.riskScore,

@@ -9,8 +9,7 @@ export const FINDING_API_COLUMNS = [
   'createdBy', 'createdAt', 'updatedAt', 'version',
 ] as const;
 
-/** A finding as read and written (findingColumns: without the pull's estimate row). */
-export type FindingRow = Omit<typeof findings.$inferSelect, 'estimateRow'>;
+export type FindingRow = typeof findings.$inferSelect;
 /** What the mapper reads: any row with the API columns (a full row or a list row). */
 export type FindingApiRow = Pick<FindingRow, (typeof FINDING_API_COLUMNS)[number]>;
 

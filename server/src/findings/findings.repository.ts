@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 import { type FindingListQuery, NOTE_PREVIEW_MAX } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { auditEvents, findingColumns, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
+import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
 import { findingFilters } from './finding-filters.js';
 import {
   FINDING_API_COLUMNS,
@@ -80,13 +80,13 @@ export class FindingsRepository {
 
   /** By id alone; row-level security shows only the organisation's own (another's shows up as a taken id on insert). */
   async findAnyOrg(id: string, executor: DbExecutor = this.db): Promise<FindingRow | undefined> {
-    const [row] = await executor.select(findingColumns).from(findings).where(eq(findings.id, id));
+    const [row] = await executor.select().from(findings).where(eq(findings.id, id));
     return row;
   }
 
   async findWithScope(organisationId: string, id: string, executor: DbExecutor = this.db, forUpdate = false): Promise<FindingWithScope | undefined> {
     const q = executor
-      .select({ finding: findingColumns, scaffoldForemanId: scaffolds.foremanId })
+      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(and(eq(findings.id, id), eq(findings.organisationId, organisationId)));
@@ -95,7 +95,7 @@ export class FindingsRepository {
   }
 
   async insertIfAbsent(values: FindingInsert, executor: DbExecutor = this.db): Promise<FindingRow | undefined> {
-    const [row] = await executor.insert(findings).values(values).onConflictDoNothing({ target: findings.id }).returning(findingColumns);
+    const [row] = await executor.insert(findings).values(values).onConflictDoNothing({ target: findings.id }).returning();
     return row;
   }
 
@@ -104,7 +104,7 @@ export class FindingsRepository {
       .update(findings)
       .set({ ...changes, version: sql`${findings.version} + 1`, updatedAt: sql`now()` })
       .where(eq(findings.id, id))
-      .returning(findingColumns);
+      .returning();
     return row;
   }
 

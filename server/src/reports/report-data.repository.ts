@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { readOrganisationSettings } from '@plummet/shared';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { controlChecks, findingColumns, findings, inspections, memberships, organisations, photos, scaffolds, siteManagers, sites, users } from '../db/schema/index.js';
+import { controlChecks, findings, inspections, memberships, organisations, photos, scaffolds, siteManagers, sites, users } from '../db/schema/index.js';
 import type { ReportData, ReportPerson } from './report-data.js';
 
 /** Everything a report or its e-mail shows, read in one place (the only Drizzle of the reports feature). */
@@ -75,7 +75,7 @@ export class ReportDataRepository {
   /** A finding with its scaffold, site and organisation (for the assignment e-mail). */
   async finding(id: string, executor: DbExecutor = this.db) {
     const [row] = await executor
-      .select({ finding: findingColumns, scaffold: scaffolds, site: sites, organisation: organisations })
+      .select({ finding: findings, scaffold: scaffolds, site: sites, organisation: organisations })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .innerJoin(sites, eq(sites.id, scaffolds.siteId))

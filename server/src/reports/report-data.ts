@@ -1,6 +1,5 @@
 import type { OrganisationSettings } from '@plummet/shared';
-import type { controlChecks, inspections, photos, scaffolds, sites } from '../db/schema/index.js';
-import type { FindingRow } from '../findings/finding.mapper.js';
+import type { controlChecks, findings, inspections, photos, scaffolds, sites } from '../db/schema/index.js';
 
 export interface ReportPerson {
   id: string;
@@ -10,7 +9,7 @@ export interface ReportPerson {
 }
 
 export interface ReportFinding {
-  row: FindingRow;
+  row: typeof findings.$inferSelect;
   assignee: ReportPerson | null;
   photos: (typeof photos.$inferSelect)[];
 }

@@ -1,4 +1,4 @@
-import { BUILTIN_ITEMS, estimateFinding, nextInspectionDue, type ShapeSpec } from '@plummet/shared';
+import { BUILTIN_ITEMS, estimateFinding, estimateRowText, nextInspectionDue, type ShapeSpec } from '@plummet/shared';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { controlChecks, findings, fixes, inspections, scaffolds, sites, verifications } from '../db/schema/index.js';
 import { DEMO_CONTROL_CHECKS, DEMO_FINDINGS, DEMO_INSPECTIONS, DEMO_SCAFFOLDS, DEMO_SITES, demoRecordId } from './demo-records.js';
@@ -136,6 +136,7 @@ export async function seedDemoRecords(tx: DbExecutor, people: DemoPeople): Promi
         likelihoodAnswers: f.answers,
         likelihood: result.likelihood,
         estimate: result.estimate,
+        estimateRow: estimateRowText(result.estimate),
         severity: result.severity,
         riskScore: result.riskScore,
         riskBand: result.riskBand,

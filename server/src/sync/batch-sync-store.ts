@@ -183,6 +183,7 @@ export class BatchSyncStore implements FindingStore {
       madeSafePhotoIds: [],
       madeSafeUntil: null,
       handBack: null,
+      estimateRow: null,
       syncFields: {},
       ...(defined(values) as FindingInsert),
       firstFixedAt: null, // kept by the database (triggers on fixes); never written from here

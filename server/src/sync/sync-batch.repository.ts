@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { asc, eq, sql } from 'drizzle-orm';
 import type { DbExecutor } from '../db/db.tokens.js';
-import { findingColumns, findings, fixes, scaffolds, syncConflicts, verifications } from '../db/schema/index.js';
+import { findings, fixes, scaffolds, syncConflicts, verifications } from '../db/schema/index.js';
 import type { FindingRow } from '../findings/finding.mapper.js';
 import type { FindingWithScope } from '../findings/findings.repository.js';
 import type { ConflictInsert, FixInsert, VerificationInsert } from '../findings/finding-store.js';
@@ -18,7 +18,7 @@ function chunks<T>(rows: T[]): T[][] {
 /** Columns a sync write may change on an existing finding (id, organisation, author and creation time never change). */
 const UPDATABLE = [
   'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg', 'shape', 'exposure',
-  'likelihoodAnswers', 'likelihood', 'estimate', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt', 'notes',
+  'likelihoodAnswers', 'likelihood', 'estimate', 'estimateRow', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'dueAt', 'notes',
   'madeSafeNote', 'madeSafeControl', 'zoneRadiusM', 'madeSafePhotoIds', 'madeSafeUntil', 'handBack', 'version', 'syncFields',
 ] as const;
 
@@ -80,7 +80,7 @@ export class SyncBatchRepository {
   async lockFindings(ids: string[], tx: DbExecutor): Promise<BatchFinding[]> {
     if (!ids.length) return [];
     return tx
-      .select({ finding: findingColumns, scaffoldForemanId: scaffolds.foremanId, siteId: scaffolds.siteId })
+      .select({ finding: findings, scaffoldForemanId: scaffolds.foremanId, siteId: scaffolds.siteId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(idIn(ids))

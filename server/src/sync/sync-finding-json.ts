@@ -20,7 +20,8 @@ import { sql, type SQL } from 'drizzle-orm';
  * sync-pull.int-spec.ts compares both for findings with every optional column set and unset.
  *
  * Asked for rows (`format=rows`), the same values are written as a row in shared's FINDING_ROW
- * order, without keys, and the estimate as the row PostgreSQL keeps beside it (estimate-row-sql.ts).
+ * order, without keys, and the estimate as the row stored beside it (`estimate_row`, written with the
+ * estimate by finding-input.ts), or as its object where there is none.
  */
 type Kind = 'id' | 'text' | 'label' | 'number' | 'json' | 'time';
 
@@ -59,8 +60,7 @@ function sources(f: string, siteId: string, format: SyncPullFormat): Record<stri
     exposure: ['label', `${f}.exposure`],
     likelihoodAnswers: ['json', `${f}.likelihood_answers`],
     likelihood: ['number', `${f}.likelihood`],
-    // As a row, the estimate's row PostgreSQL wrote when it was stored (migration 0020), or its
-    // object when it has another shape.
+    // As a row, the estimate's row stored with it (migration 0020), or its object where there is none.
     estimate: ['json', format === 'rows' ? `coalesce(${f}.estimate_row, ${f}.estimate::text)` : `${f}.estimate`],
     severity: ['number', `${f}.severity`],
     riskScore: ['number', `${f}.risk_score`],

@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { SyncPullFormat } from '@plummet/shared';
 import { and, asc, eq, sql, type AnyColumn } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { findingColumns, findings, scaffolds, syncConflicts } from '../db/schema/index.js';
+import { findings, scaffolds, syncConflicts } from '../db/schema/index.js';
 import { readOtherTables, type FeedScope, type StampedChange } from './sync-feed-tables.js';
 import { RawJson } from './raw-json.js';
 import { idIn } from './sync-batch.repository.js';
@@ -106,7 +106,7 @@ export class SyncPullRepository {
   async findingsWithSite(ids: string[], executor: DbExecutor = this.db) {
     if (!ids.length) return [];
     return executor
-      .select({ finding: findingColumns, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
+      .select({ finding: findings, siteId: scaffolds.siteId, scaffoldForemanId: scaffolds.foremanId })
       .from(findings)
       .innerJoin(scaffolds, eq(scaffolds.id, findings.scaffoldId))
       .where(idIn(ids));

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { estimateFinding } from '../findings/finding-estimate.js';
 import { FindingEstimateSchema } from '../findings/finding.schema.js';
-import { ESTIMATE_ROW, FINDING_ROW, rowKeys, unpackFindingRow, unpackPullPage, unpackRow, type RowTemplate } from './finding-rows.js';
+import type { ShapeSpec } from '../physics/shape.js';
+import { ESTIMATE_ROW, estimateRowText, FINDING_ROW, packRow, rowKeys, unpackFindingRow, unpackPullPage, unpackRow, type RowTemplate } from './finding-rows.js';
 import { SyncFindingSchema } from './sync.schema.js';
 
 const ANSWERS = { securing: 'loose', edgeDistance: 'at-edge', activity: 'light', wind: 'calm', footTraffic: 'frequent' } as const;
@@ -10,6 +11,14 @@ const ANSWERS = { securing: 'loose', edgeDistance: 'at-edge', activity: 'light',
 function pack(template: RowTemplate, value: Record<string, unknown>): unknown[] {
   return template.map((slot) => (typeof slot === 'string' ? value[slot] : pack(slot[1], value[slot[0]] as Record<string, unknown>)));
 }
+
+const SHAPES: (ShapeSpec | null)[] = [
+  null,
+  { kind: 'box', lengthM: 0.3, widthM: 0.2, heightM: 0.1 },
+  { kind: 'plate', lengthM: 1.2, widthM: 0.6, thicknessM: 0.018 },
+  { kind: 'sphere', diameterM: 0.08 },
+  { kind: 'rod', diameterM: 0.048, lengthM: 2 },
+];
 
 const estimate = (windSpeedMps: number | null) =>
   JSON.parse(
@@ -98,6 +107,40 @@ describe('finding rows', () => {
       hasMore: false,
     };
     expect(unpackPullPage(page)).toEqual({ changes: [{ type: 'finding', record: record(est) }, site, { type: 'finding', record: record(est) }], cursor: '1.2', hasMore: false });
+  });
+
+  it("are written for every estimate the physics makes, as JSON that unpacks to the estimate as stored", () => {
+    for (const shape of SHAPES) {
+      for (const windSpeedMps of [null, 0, 7.5, 25]) {
+        for (const exposure of ['public', 'hard-hats', 'zone-closed'] as const) {
+          const { estimate: est } = estimateFinding({ massKg: 3.2, heightM: 22.5, shape, exposure, likelihoodAnswers: ANSWERS, windSpeedMps });
+          const text = estimateRowText(est);
+          expect(text).not.toBeNull();
+          // The estimate as the database stores it: its JSON.
+          expect(unpackRow(ESTIMATE_ROW, JSON.parse(text!))).toEqual(JSON.parse(JSON.stringify(est)));
+        }
+      }
+    }
+  });
+
+  it('are not written for an estimate of another shape, which then travels as its object', () => {
+    const est = estimate(7.5);
+    const severity = est.severity as Record<string, unknown>;
+    const { stillAirPeakForceN: _older, ...withoutAField } = est;
+    const others: unknown[] = [
+      withoutAField,
+      { ...est, stillAirPeakForceN: undefined },
+      { ...est, comment: 'a field the template does not know' },
+      { ...est, severity: { ...severity, source: 'an extra nested field' } },
+      { ...est, severity: 'Major' },
+      { ...est, resolved: [est.resolved] },
+      { ...est, likelihood: null },
+      [est],
+      'an estimate',
+      null,
+    ];
+    for (const other of others) expect(estimateRowText(other)).toBeNull();
+    expect(packRow(ESTIMATE_ROW, est)).toHaveLength(ESTIMATE_ROW.length);
   });
 
   it('refuse a row of another length, naming what came', () => {

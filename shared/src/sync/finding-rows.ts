@@ -8,10 +8,10 @@
  * it, so a row unpacks to exactly the record the findings API reads.
  *
  * A row's layout is a template: a key, or a key with the template of an object held at that key.
- * The server writes the record's own values in the same order (server/src/sync/sync-finding-json.ts)
- * and PostgreSQL writes the stored estimate's (the function `finding_estimate_row`, drizzle
- * migration 0020). An estimate of another shape (one stored before a field was added) travels as
- * its object, so `unpackFindingRow` takes either.
+ * PostgreSQL writes the record's own values in the same order (server/src/sync/sync-finding-json.ts);
+ * the estimate's row is written by `estimateRowText` when the estimate is stored, and kept beside it
+ * (`findings.estimate_row`). An estimate of another shape (one stored before a field was added)
+ * travels as its object, so `unpackFindingRow` takes either.
  */
 export type RowTemplate = readonly (string | readonly [key: string, template: RowTemplate])[];
 
@@ -104,6 +104,34 @@ export function unpackRow(template: RowTemplate, row: unknown): Record<string, u
     else out[slot[0]] = unpackRow(slot[1], row[i]);
   }
   return out;
+}
+
+/**
+ * `value` as a row of `template`: its values in template order, nested templates as rows; undefined
+ * unless it has exactly the template's keys at every level, so that the row unpacks to what
+ * JSON.stringify writes of it (a key holding undefined counts as absent, as it does there).
+ */
+export function packRow(template: RowTemplate, value: unknown): unknown[] | undefined {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return undefined;
+  const object = value as Record<string, unknown>;
+  let keys = 0;
+  for (const key in object) if (Object.hasOwn(object, key) && object[key] !== undefined) keys += 1;
+  if (keys !== template.length) return undefined;
+  const row: unknown[] = new Array(template.length);
+  for (let i = 0; i < template.length; i++) {
+    const slot = template[i]!;
+    const key = typeof slot === 'string' ? slot : slot[0];
+    if (!Object.hasOwn(object, key) || object[key] === undefined) return undefined;
+    if (typeof slot === 'string') row[i] = object[key];
+    else if ((row[i] = packRow(slot[1], object[key])) === undefined) return undefined;
+  }
+  return row;
+}
+
+/** The estimate's row as JSON text, stored beside it for the pull; null when it is not of ESTIMATE_ROW's shape. */
+export function estimateRowText(estimate: unknown): string | null {
+  const row = packRow(ESTIMATE_ROW, estimate);
+  return row === undefined ? null : JSON.stringify(row);
 }
 
 /** A finding record from its pulled row; its estimate from a row or, for an estimate of another shape, as it came. */

@@ -1,5 +1,5 @@
 import { bigserial, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { getTableColumns, sql } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import { createdAt, updatedAt, version } from './columns.js';
 import { catalogueItems } from './catalogue.table.js';
 import { inspections } from './inspections.table.js';
@@ -38,11 +38,12 @@ export const findings = pgTable(
     /** The server-computed fall estimate (SI units). */
     estimate: jsonb('estimate').notNull(),
     /**
-     * The estimate as a pulled row (shared/src/sync/finding-rows.ts), written by PostgreSQL when the
-     * estimate is (finding_estimate_row, migration 0020); NULL for an estimate of another shape.
-     * Read only by the pull.
+     * The estimate as a pulled row (shared/src/sync/finding-rows.ts), JSON text written with it
+     * (finding-input.ts); read only by the pull. NULL for an estimate stored before rows, or of
+     * another shape: that one travels as its object. A trigger (migration 0020) empties it whenever
+     * the estimate changes without it, so it never describes an older estimate.
      */
-    estimateRow: text('estimate_row').generatedAlwaysAs(sql`finding_estimate_row(estimate)`),
+    estimateRow: text('estimate_row'),
     severity: integer('severity').notNull(),
     riskScore: integer('risk_score').notNull(),
     riskBand: riskBandEnum('risk_band').notNull(),
@@ -157,11 +158,3 @@ export const auditEvents = pgTable(
   (t) => [index('audit_events_org_entity_idx').on(t.organisationId, t.entityType, t.entityId)],
 );
 
-/**
- * A finding's columns for reading and writing it: all but `estimate_row`, which only the pull reads
- * (select({ finding: findingColumns }), returning(findingColumns)).
- */
-export const findingColumns = (() => {
-  const { estimateRow: _pulledOnly, ...columns } = getTableColumns(findings);
-  return columns;
-})();
