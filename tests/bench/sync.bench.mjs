@@ -118,9 +118,9 @@ async function main() {
 
   // Baseline: the same 1,000 rows (new ids), as stored, in one batched INSERT.
   const copy = `INSERT INTO findings (id, organisation_id, inspection_id, scaffold_id, elevation, lift, bay, height_m, catalogue_item_id, item_name, mass_kg, shape,
-      exposure, likelihood_answers, likelihood, estimate, severity, risk_score, risk_band, state, assignee_id, due_at, notes, made_safe_note, created_by)
+      exposure, likelihood_answers, likelihood, estimate, estimate_row, severity, risk_score, risk_band, state, assignee_id, due_at, notes, made_safe_note, created_by)
     SELECT gen_random_uuid(), (r).organisation_id, (r).inspection_id, (r).scaffold_id, (r).elevation, (r).lift, (r).bay, (r).height_m, (r).catalogue_item_id,
-      (r).item_name, (r).mass_kg, (r).shape, (r).exposure, (r).likelihood_answers, (r).likelihood, (r).estimate, (r).severity, (r).risk_score, (r).risk_band,
+      (r).item_name, (r).mass_kg, (r).shape, (r).exposure, (r).likelihood_answers, (r).likelihood, (r).estimate, (r).estimate_row, (r).severity, (r).risk_score, (r).risk_band,
       (r).state, (r).assignee_id, (r).due_at, (r).notes, (r).made_safe_note, (r).created_by
     FROM json_populate_recordset(null::findings, $1::json) r`;
   const stored = (await db.query('SELECT * FROM findings WHERE id = ANY($1::uuid[])', [bodies.map((b) => b.id)])).rows;
@@ -139,9 +139,9 @@ async function main() {
   await db.query(
     `WITH t AS (SELECT * FROM findings WHERE organisation_id = $1 LIMIT 1)
      INSERT INTO findings (id, organisation_id, scaffold_id, elevation, lift, bay, height_m, item_name, mass_kg, shape, exposure, likelihood_answers,
-       likelihood, estimate, severity, risk_score, risk_band, notes, created_by)
+       likelihood, estimate, estimate_row, severity, risk_score, risk_band, notes, created_by)
      SELECT gen_random_uuid(), t.organisation_id, t.scaffold_id, t.elevation, t.lift, t.bay, t.height_m, t.item_name, t.mass_kg, t.shape, t.exposure,
-       t.likelihood_answers, t.likelihood, t.estimate, t.severity, t.risk_score, t.risk_band, 'Pull bench ' || g, t.created_by
+       t.likelihood_answers, t.likelihood, t.estimate, t.estimate_row, t.severity, t.risk_score, t.risk_band, 'Pull bench ' || g, t.created_by
      FROM generate_series(1, ${PULL}) g CROSS JOIN t`,
     [who.org],
   );
