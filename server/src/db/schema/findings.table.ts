@@ -157,4 +157,3 @@ export const auditEvents = pgTable(
   },
   (t) => [index('audit_events_org_entity_idx').on(t.organisationId, t.entityType, t.entityId)],
 );
-
