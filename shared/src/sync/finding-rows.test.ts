@@ -116,11 +116,21 @@ describe('finding rows', () => {
           const { estimate: est } = estimateFinding({ massKg: 3.2, heightM: 22.5, shape, exposure, likelihoodAnswers: ANSWERS, windSpeedMps });
           const text = estimateRowText(est);
           expect(text).not.toBeNull();
+          expect(text).toMatch(/^[\x20-\x7e]+$/);
           // The estimate as the database stores it: its JSON.
           expect(unpackRow(ESTIMATE_ROW, JSON.parse(text!))).toEqual(JSON.parse(JSON.stringify(est)));
         }
       }
     }
+  });
+
+  it('write characters outside ASCII as escapes that parse back to them', () => {
+    const est = estimate(null);
+    const severity = { ...(est.severity as object), basis: 'Façade – “quoted” 10 m², 𝑣 ≥ 5 m/s\u007f' };
+    const text = estimateRowText({ ...est, severity })!;
+    expect(text).toMatch(/^[\x20-\x7e]+$/);
+    expect(text).toContain('Fa\\u00e7ade \\u2013 \\u201cquoted\\u201d');
+    expect(unpackRow(ESTIMATE_ROW, JSON.parse(text))).toEqual({ ...est, severity });
   });
 
   it('are not written for an estimate of another shape, which then travels as its object', () => {
