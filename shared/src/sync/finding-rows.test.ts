@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { estimateFinding } from '../findings/finding-estimate.js';
 import { FindingEstimateSchema } from '../findings/finding.schema.js';
 import type { ShapeSpec } from '../physics/shape.js';
-import { ESTIMATE_ROW, estimateRowText, FINDING_ROW, packRow, rowKeys, unpackFindingRow, unpackPullPage, unpackRow, type RowTemplate } from './finding-rows.js';
+import { ESTIMATE_ROW, estimateRowText, FINDING_ROW, packRow, rowKeys, unpackEstimateRow, unpackFindingRow, unpackPullPage, unpackRow, type RowTemplate } from './finding-rows.js';
 import { SyncFindingSchema } from './sync.schema.js';
 
 const ANSWERS = { securing: 'loose', edgeDistance: 'at-edge', activity: 'light', wind: 'calm', footTraffic: 'frequent' } as const;
@@ -151,6 +151,20 @@ describe('finding rows', () => {
     ];
     for (const other of others) expect(estimateRowText(other)).toBeNull();
     expect(packRow(ESTIMATE_ROW, est)).toHaveLength(ESTIMATE_ROW.length);
+  });
+
+  it('are unpacked by the written-out functions exactly as by their templates', () => {
+    // Every position holds a value of its own, so a key read from the wrong position shows.
+    let n = 0;
+    const distinct = (template: RowTemplate): unknown[] => template.map((slot) => (typeof slot === 'string' ? `v${n++}` : distinct(slot[1])));
+    const estimateRow = distinct(ESTIMATE_ROW);
+    expect(unpackEstimateRow(estimateRow)).toEqual(unpackRow(ESTIMATE_ROW, estimateRow));
+    expect(Object.keys(unpackEstimateRow(estimateRow))).toEqual(Object.keys(unpackRow(ESTIMATE_ROW, estimateRow)));
+    const findingRow = distinct(FINDING_ROW);
+    expect(unpackFindingRow(findingRow)).toEqual(unpackRow(FINDING_ROW, findingRow));
+    expect(Object.keys(unpackFindingRow(findingRow))).toEqual(Object.keys(unpackRow(FINDING_ROW, findingRow)));
+    findingRow[FINDING_ROW.indexOf('estimate')] = estimateRow;
+    expect(unpackFindingRow(findingRow).estimate).toEqual(unpackRow(ESTIMATE_ROW, estimateRow));
   });
 
   it('refuse a row of another length, naming what came', () => {
