@@ -27,5 +27,5 @@ import { startHome } from './app/start-home';
 
 // The home needs neither @ionic/react nor the router's page stack: start-home.tsx draws it and
 // starts the full app when someone leaves it. Any other address starts the full app straight away.
-if (window.location.pathname === '/') startHome();
+if (window.location.pathname === '/') void startHome();
 else void import('./app/start-app').then(({ startApp }) => startApp());
