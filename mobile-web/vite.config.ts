@@ -62,10 +62,11 @@ export default defineConfig({
     // The gzip budget printed by initialJsSize is the size check that matters for phones.
     chunkSizeWarningLimit: 1024,
     modulePreload: {
-      // The sync engine starts once the home is up, from the service worker's cache. A
-      // <link rel="modulepreload"> for each of its two dozen files costs the main thread more there
-      // (a few milliseconds each on a phone, all in one task) than fetching them as they are imported.
-      resolveDependencies: (filename, deps) => (/(^|\/)SyncRunner-[^/]*\.js$/.test(filename) ? [] : deps),
+      // The sync engine and the schemas built before it (src/api/building-schemas.ts) load once the
+      // home is up, from the service worker's cache. A <link rel="modulepreload"> for each of their
+      // files costs the main thread more there (a few milliseconds each on a phone, in one task)
+      // than fetching them as they are imported.
+      resolveDependencies: (filename, deps) => (/(^|\/)(SyncRunner|schemas-[a-z]+)-[^/]*\.js$/.test(filename) ? [] : deps),
     },
     rolldownOptions: {
       // Two pages: the app (index.html, every route) and the pre-rendered sign-in of a first visit

@@ -8,16 +8,16 @@ import { nextTask } from '../lib/next-task';
  * nothing, so screens that need the schemas later find them ready.
  */
 const STEPS = {
-  common: () => import('./schema-steps/common'),
-  sites: () => import('./schema-steps/sites'),
-  scaffolds: () => import('./schema-steps/scaffolds'),
-  inspections: () => import('./schema-steps/inspections'),
-  register: () => import('./schema-steps/register'),
-  findings: () => import('./schema-steps/findings'),
-  catalogue: () => import('./schema-steps/catalogue'),
-  users: () => import('./schema-steps/users'),
-  settings: () => import('./schema-steps/settings'),
-  sync: () => import('./schema-steps/sync'),
+  common: () => import('./schema-steps/schemas-common'),
+  sites: () => import('./schema-steps/schemas-sites'),
+  scaffolds: () => import('./schema-steps/schemas-scaffolds'),
+  inspections: () => import('./schema-steps/schemas-inspections'),
+  register: () => import('./schema-steps/schemas-register'),
+  findings: () => import('./schema-steps/schemas-findings'),
+  catalogue: () => import('./schema-steps/schemas-catalogue'),
+  users: () => import('./schema-steps/schemas-users'),
+  settings: () => import('./schema-steps/schemas-settings'),
+  sync: () => import('./schema-steps/schemas-sync'),
 } satisfies Record<string, () => Promise<unknown>>;
 
 type Step = keyof typeof STEPS;
