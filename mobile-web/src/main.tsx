@@ -5,6 +5,8 @@
  * needs neither React nor Ionic until someone has signed in.
  */
 
+import './lib/zod-setup';
+
 /* Open Sans, bundled (no CDN): latin subset, the three weights the theme uses, woff2 only. */
 import '@fontsource/open-sans/latin-400.css';
 import '@fontsource/open-sans/latin-600.css';
