@@ -14,7 +14,13 @@ import { appRoot } from './root';
  * download stays the page's frame; index.html preloads its code (vite.config.ts, preloadChunks),
  * so it downloads alongside the entry rather than after it.
  */
-const HomeScreen = lazy(() => import('../features/home/components/HomeScreen').then((module) => ({ default: module.HomeScreen })));
+const HomeScreen = lazy(() =>
+  // The local database (Dexie, the largest module the home runs) first, in a task of its own.
+  import('../local-db/db')
+    .then(nextTask)
+    .then(() => import('../features/home/components/HomeScreen'))
+    .then((module) => ({ default: module.HomeScreen })),
+);
 
 /** The sync engine, as in the full app: loaded once the home is up and the phone is idle, its schemas a few at a time. */
 const SyncRunner = lazy(() =>
