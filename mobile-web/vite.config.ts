@@ -61,6 +61,13 @@ export default defineConfig({
     sourcemap: true,
     // The gzip budget printed by initialJsSize is the size check that matters for phones.
     chunkSizeWarningLimit: 1024,
+    modulePreload: {
+      // The sync engine and the schemas built before it (src/api/building-schemas.ts) load once the
+      // home is up, from the service worker's cache. A <link rel="modulepreload"> for each of their
+      // files costs the main thread more there (a few milliseconds each on a phone, in one task)
+      // than fetching them as they are imported.
+      resolveDependencies: (filename, deps) => (/(^|\/)(SyncRunner|schemas-[a-z]+)-[^/]*\.js$/.test(filename) ? [] : deps),
+    },
     rolldownOptions: {
       // Two pages: the app (index.html, every route) and the pre-rendered sign-in of a first visit
       // to /sign-in (sign-in.html; the server sends it for that address).

@@ -6,6 +6,12 @@ interface ChunkLike {
   fileName: string;
   moduleIds: string[];
   imports: string[];
+  viteMetadata?: { importedCss: Set<string> };
+}
+
+interface AssetLike {
+  type: 'asset';
+  source: string | Uint8Array;
 }
 
 /**
@@ -13,6 +19,10 @@ interface ChunkLike {
  * import), code the app loads on demand but every start needs soon after (the session, read by
  * every screen, with the local database). The download then starts with the page's own scripts
  * instead of after them; the code still runs only when imported, and stays out of the entry.
+ *
+ * Their stylesheets go into the page, as the entry's do (inline-entry-css.ts): a <style> and a
+ * disabled <link> that tells Vite's loader the sheet is there. The loader would otherwise add a
+ * <link> for each when the chunk is imported, and adding them cost the phone a long task there.
  */
 export function preloadChunks(options: { page: string; modules: URL[] }): Plugin {
   const wanted = options.modules.map((url) => fileURLToPath(url));
@@ -36,9 +46,19 @@ export function preloadChunks(options: { page: string; modules: URL[] }): Plugin
         }
         const links = [...files]
           .filter((fileName) => !html.includes(`/${fileName}"`))
-          .map((fileName) => `<link rel="modulepreload" crossorigin href="/${fileName}">`)
-          .join('\n    ');
-        return links ? html.replace('</head>', `  ${links}\n  </head>`) : html;
+          .map((fileName) => `<link rel="modulepreload" crossorigin href="/${fileName}">`);
+        const sheets = [...new Set([...files].flatMap((fileName) => [...(byName.get(fileName)?.viteMetadata?.importedCss ?? [])]))]
+          .filter((fileName) => !html.includes(`/${fileName}"`))
+          .map((fileName) => {
+            const asset = (bundle as unknown as Record<string, AssetLike | undefined>)[fileName];
+            if (asset?.type !== 'asset') throw new Error(`preload-chunks: ${fileName} is not in the build`);
+            const css = typeof asset.source === 'string' ? asset.source : new TextDecoder().decode(asset.source);
+            // Inlined, a relative url() would point elsewhere, and a sheet cannot end the <style> early.
+            if (/url\(|<\/style/i.test(css)) throw new Error(`${fileName} has a url() or "</style"; it cannot be inlined`);
+            return `<style>${css.trim()}</style>\n    <link rel="stylesheet" href="/${fileName}" disabled>`;
+          });
+        const added = [...links, ...sheets].join('\n    ');
+        return added ? html.replace('</head>', `  ${added}\n  </head>`) : html;
       },
     },
   };

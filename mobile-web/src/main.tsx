@@ -5,6 +5,8 @@
  * needs neither React nor Ionic until someone has signed in.
  */
 
+import './lib/zod-setup';
+
 /* Open Sans, bundled (no CDN): latin subset, the three weights the theme uses, woff2 only. */
 import '@fontsource/open-sans/latin-400.css';
 import '@fontsource/open-sans/latin-600.css';
@@ -27,5 +29,5 @@ import { startHome } from './app/start-home';
 
 // The home needs neither @ionic/react nor the router's page stack: start-home.tsx draws it and
 // starts the full app when someone leaves it. Any other address starts the full app straight away.
-if (window.location.pathname === '/') startHome();
+if (window.location.pathname === '/') void startHome();
 else void import('./app/start-app').then(({ startApp }) => startApp());

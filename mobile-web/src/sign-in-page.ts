@@ -5,6 +5,8 @@
  * then starts the full app in the same page (loaded only then, precached by the service worker).
  */
 
+import './lib/zod-setup';
+
 /* Open Sans, bundled (no CDN): latin subset, the three weights the theme uses, woff2 only. */
 import '@fontsource/open-sans/latin-400.css';
 import '@fontsource/open-sans/latin-600.css';

@@ -1,4 +1,5 @@
 import { lazy, Suspense, type ComponentType, type LazyExoticComponent } from 'react';
+import { buildSchemasInSteps, SYNC_SCHEMAS } from '../api/building-schemas';
 
 /**
  * Every page loads on demand, so the first download holds only the shell (React, Ionic, the
@@ -37,8 +38,11 @@ export const PeoplePage = page(() => import('../features/setup/pages/PeoplePage'
 export const OrganisationSettingsPage = page(() => import('../features/setup/pages/OrganisationSettingsPage'), 'OrganisationSettingsPage');
 export const CatalogueSetupPage = page(() => import('../features/setup/pages/CatalogueSetupPage'), 'CatalogueSetupPage');
 export const FailedMailPage = page(() => import('../features/manager/pages/FailedMailPage'), 'FailedMailPage');
-/** Not a page: runs the sync engine while someone is signed in (it needs the local database, so it loads on demand too). */
-export const SyncRunner = page(() => import('./SyncRunner'), 'SyncRunner');
+/**
+ * Not a page: runs the sync engine while someone is signed in (it needs the local database, so it
+ * loads on demand too), after the schemas it checks with, built a few at a time.
+ */
+export const SyncRunner = page(() => buildSchemasInSteps(SYNC_SCHEMAS).then(() => import('./SyncRunner')), 'SyncRunner');
 
 /** A route's element: the lazy page, rendering nothing until its chunk has loaded (Ionic waits for the IonPage). */
 export function Lazy({ page: Page }: { page: LazyExoticComponent<ComponentType> }) {

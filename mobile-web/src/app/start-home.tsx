@@ -2,6 +2,8 @@ import { initialize } from '@ionic/core/components';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { StrictMode, Suspense, lazy, startTransition, useEffect, useRef } from 'react';
 import { BrowserRouter, useLocation } from 'react-router-dom';
+import { buildSchemasInSteps, SYNC_SCHEMAS } from '../api/building-schemas';
+import { nextTask } from '../lib/next-task';
 import { useAfterFirstScreen } from './after-first-screen';
 import { queryClient, setErrorNotifier } from './query-client';
 import { ReloadPrompt } from './ReloadPrompt';
@@ -12,10 +14,20 @@ import { appRoot } from './root';
  * download stays the page's frame; index.html preloads its code (vite.config.ts, preloadChunks),
  * so it downloads alongside the entry rather than after it.
  */
-const HomeScreen = lazy(() => import('../features/home/components/HomeScreen').then((module) => ({ default: module.HomeScreen })));
+const HomeScreen = lazy(() =>
+  // The local database (Dexie, the largest module the home runs) first, in a task of its own.
+  import('../local-db/db')
+    .then(nextTask)
+    .then(() => import('../features/home/components/HomeScreen'))
+    .then((module) => ({ default: module.HomeScreen })),
+);
 
-/** The sync engine, as in the full app: loaded once the home is up and the phone is idle. */
-const SyncRunner = lazy(() => import('./SyncRunner').then((module) => ({ default: module.SyncRunner })));
+/** The sync engine, as in the full app: loaded once the home is up and the phone is idle, its schemas a few at a time. */
+const SyncRunner = lazy(() =>
+  buildSchemasInSteps(SYNC_SCHEMAS)
+    .then(() => import('./SyncRunner'))
+    .then((module) => ({ default: module.SyncRunner })),
+);
 
 /**
  * A start at the home, the address most visits open at: the home alone, drawn with Ionic's own
@@ -24,10 +36,14 @@ const SyncRunner = lazy(() => import('./SyncRunner').then((module) => ({ default
  * (start-app.tsx) at that address, in place of this one; the home the full app shows on the way
  * back is the same HomeScreen inside its page stack.
  */
-export function startHome(): void {
+export async function startHome(): Promise<void> {
+  // The page's code has just run, in one task; Ionic's set-up (it looks the phone over) and the
+  // first render each get a task of their own.
+  await nextTask();
   // What setupIonicReact({ mode: 'md' }) does for the full app: Material Design mode, custom elements.
   document.documentElement.classList.add('ion-ce');
   initialize({ mode: 'md' });
+  await nextTask();
   startTransition(() => {
     appRoot().render(
       <StrictMode>

@@ -48,6 +48,8 @@ export const DUE_STATE_WORDS: Readonly<Record<DueState, string>> = {
   later: 'Not yet due',
 };
 
+const TWO_DAYS_MS = 2 * 24 * 60 * 60 * 1000;
+
 /** The local calendar date (YYYY-MM-DD) of an instant in a time zone. */
 function localDate(instant: number, timeZone: string): string {
   return new Date(instant + zoneOffsetMs(instant, timeZone)).toISOString().slice(0, 10);
@@ -63,6 +65,10 @@ export function dueState(
   if (scaffold.nextDueAt === null) return scaffold.lastInspectedAt === null ? 'first-inspection' : 'later';
   const due = new Date(scaffold.nextDueAt).getTime();
   if (due < now.getTime()) return 'overdue';
+  // Two instants two days apart or more never share a calendar date in one time zone (its offset
+  // changes by a day at most), so most scaffolds need no look-up of the zone's dates, which is slow
+  // the first time on a phone.
+  if (due - now.getTime() >= TWO_DAYS_MS) return 'later';
   return localDate(due, timeZone) === localDate(now.getTime(), timeZone) ? 'due-today' : 'later';
 }
 

@@ -67,6 +67,19 @@ describe('due states', () => {
     expect(dueState(scaffold, null, at('2026-03-29T00:30:00Z'), 'Asia/Tokyo')).toBe('later');
   });
 
+  it('tells due today from later by the calendar date in the site\'s zone, however far ahead', () => {
+    // Zones far east and far west of Greenwich (UTC+14 and UTC-11) as well as near it.
+    for (const zone of ['Pacific/Kiritimati', 'Pacific/Pago_Pago', london, 'Asia/Tokyo']) {
+      const now = at('2026-03-29T00:30:00Z');
+      for (const hoursAhead of [0, 12, 23, 24, 25, 36, 47, 48, 49, 72, 24 * 7]) {
+        const nextDueAt = new Date(now.getTime() + hoursAhead * 3_600_000);
+        const localDay = (instant: Date) => new Intl.DateTimeFormat('en-CA', { timeZone: zone, dateStyle: 'short' }).format(instant);
+        const expected = localDay(nextDueAt) === localDay(now) ? 'due-today' : 'later';
+        expect(dueState({ nextDueAt, lastInspectedAt: '2026-03-22T00:30:00Z' }, null, now, zone)).toBe(expected);
+      }
+    }
+  });
+
   it('lists a scaffold never inspected for its handover inspection', () => {
     expect(dueState({ nextDueAt: null, lastInspectedAt: null }, null, at('2026-03-01T00:00:00Z'), london)).toBe('first-inspection');
     expect(suggestedReason(null, null, '7-day')).toBe('handover');

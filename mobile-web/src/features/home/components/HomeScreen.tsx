@@ -1,6 +1,8 @@
 import { lazy, Suspense, useDeferredValue } from 'react';
 import { Navigate } from 'react-router-dom';
+import { buildSchemasInSteps, HOME_SCHEMAS } from '../../../api/building-schemas';
 import { homePathFor } from '../../../app/role-home';
+import { loadCollation } from '../../../lib/collation';
 import { CautionNote } from '../../../components/CautionNote';
 import { Button, definePageElements } from '../../../components/ionic-elements';
 import { OnlineStatusBadge } from '../../../components/OnlineStatusBadge';
@@ -8,8 +10,17 @@ import { SyncBadge } from '../../../components/SyncBadge';
 import { useSession } from '../../auth/session.queries';
 import '../pages/HomePage.css';
 
-/** The signed-in body, on demand and preloaded (SignedInHome.tsx says why). */
-const SignedInHome = lazy(() => import('./SignedInHome').then((module) => ({ default: module.SignedInHome })));
+/**
+ * The signed-in body, on demand and preloaded (SignedInHome.tsx says why), after the schemas it
+ * checks the server's answers with, built a few at a time (api/building-schemas.ts), and the
+ * collation data its site list is sorted with, each in tasks of their own.
+ */
+const SignedInHome = lazy(() =>
+  buildSchemasInSteps(HOME_SCHEMAS)
+    .then(loadCollation)
+    .then(() => import('./SignedInHome'))
+    .then((module) => ({ default: module.SignedInHome })),
+);
 
 /**
  * The home's header, body and footer, drawn with the Ionic elements themselves (no @ionic/react):

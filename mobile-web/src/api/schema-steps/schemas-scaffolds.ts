@@ -1,0 +1,2 @@
+/** A step of building-schemas.ts: scaffolds. */
+export { ScaffoldSchema } from '@plummet/shared';
