@@ -19,6 +19,13 @@ export const JOB_QUEUES = [...Object.values(MAIL_QUEUES), HOUSEKEEPING_QUEUE] as
 export type JobQueueName = (typeof JOB_QUEUES)[number];
 
 /**
+ * pg-boss's own queue: its cron monitor sends every scheduled job (the digest tick, the purge)
+ * through it. pg-boss makes it when it starts, which the application role cannot do (it may not
+ * create tables in the job schema): without it made here, no schedule would ever fire.
+ */
+export const CRON_QUEUE = '__pgboss__send-it';
+
+/**
  * Retries with exponential backoff (pg-boss doubles the delay each time). The defaults, 6 retries
  * from 10 s, ride out about 10 minutes of an unreachable mail server before a job ends failed.
  * Tests shorten both through MAIL_RETRY_LIMIT and MAIL_RETRY_DELAY_S.
@@ -41,7 +48,7 @@ export async function ensureJobSchema(client: pg.PoolClient): Promise<void> {
   boss.on('error', () => undefined);
   await boss.start();
   try {
-    for (const name of JOB_QUEUES) {
+    for (const name of [...JOB_QUEUES, CRON_QUEUE]) {
       if (!(await boss.getQueue(name))) await boss.createQueue(name, { name, policy: 'standard' });
     }
   } finally {
