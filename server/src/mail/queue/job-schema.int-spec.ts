@@ -31,4 +31,23 @@ describe('the job schema made by the migrations', () => {
   it.each([...JOB_QUEUES, CRON_QUEUE])('lets the application role send a job into %s', async (queue) => {
     expect(await boss.send(queue, { probe: true })).toMatch(/^[0-9a-f-]{36}$/);
   });
+
+  it('fires a schedule of the application role: the job reaches its queue', async () => {
+    const scheduler = new PgBoss({ connectionString: database.appUrl, max: 2, migrate: false, supervise: false, cronMonitorIntervalSeconds: 1, cronWorkerIntervalSeconds: 1 });
+    const errors: string[] = [];
+    scheduler.on('error', (error) => errors.push(error.message));
+    await scheduler.start();
+    try {
+      const [queue] = JOB_QUEUES;
+      const before = await scheduler.getQueueSize(queue);
+      // Every minute: the cron monitor sends it at once (the last slot is under a minute old).
+      await scheduler.schedule(queue, '* * * * *', { scheduled: true }, { tz: 'UTC' });
+      const deadline = Date.now() + 15_000;
+      while ((await scheduler.getQueueSize(queue)) === before && Date.now() < deadline) await new Promise((r) => setTimeout(r, 200));
+      expect(errors).toEqual([]);
+      expect(await scheduler.getQueueSize(queue)).toBe(before + 1);
+    } finally {
+      await scheduler.stop({ graceful: false, wait: true });
+    }
+  });
 });
