@@ -162,6 +162,21 @@ describe('versions decided by the server', () => {
     // The conflict names who wrote the replaced value, and when.
     const list = await api.call('demo:manager', 'GET', `/sync/conflicts?entityId=${id}`);
     expect(list.body.items[0]).toMatchObject({ replacedUserId: api.userIds['demo:inspector'], replacedAt: expect.any(String), winnerUserId: api.userIds['demo:inspector'] });
+    // By name too, as the organisation knows them, in the list, the pull and the settled answer.
+    const named = await api.t.drizzle.execute<{ name: string }>(sql`select name from users where id = ${api.userIds['demo:inspector']}::uuid`);
+    const name = named.rows[0]!.name;
+    expect(name).toBeTruthy();
+    expect(list.body.items[0]).toMatchObject({ winnerName: name, replacedName: name });
+    let page = (await api.call('demo:manager', 'GET', '/sync/pull?limit=1000')).body;
+    const pulled = [];
+    for (;;) {
+      pulled.push(...page.changes.filter((c: { type: string; record?: { id: string } }) => c.type === 'conflict' && c.record?.id === pushed.conflictIds[0]));
+      if (!page.hasMore) break;
+      page = (await api.call('demo:manager', 'GET', `/sync/pull?limit=1000&cursor=${page.cursor}`)).body;
+    }
+    expect(pulled).toEqual([expect.objectContaining({ record: expect.objectContaining({ winnerName: name, replacedName: name }) })]);
+    const settled = await api.call('demo:manager', 'POST', `/sync/conflicts/${pushed.conflictIds[0]}/resolve`, { keep: 'current' });
+    expect(settled.body).toMatchObject({ status: 'resolved', winnerName: name, replacedName: name });
   });
 
   it('keeps the public below when an offline push of hard hats clashes with a REST edit it had not seen', async () => {

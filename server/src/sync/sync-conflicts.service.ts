@@ -17,7 +17,7 @@ import { InspectionCommands } from '../inspections/inspection-commands.js';
 import { ScaffoldCommands } from '../scaffolds/scaffold-commands.js';
 import { UserSettingsCommands } from '../users/user-settings-commands.js';
 import { toSyncConflict } from './sync.mapper.js';
-import { SyncRepository } from './sync.repository.js';
+import { conflictWriterNames, SyncRepository } from './sync.repository.js';
 
 /** Conflicts kept by sync, listed and settled by inspectors and managers. */
 @Injectable()
@@ -35,7 +35,8 @@ export class SyncConflictsService {
 
   async list(user: AuthUser, query: SyncConflictListQuery): Promise<{ items: SyncConflict[] }> {
     const rows = await this.sync.listConflicts(user.organisationId, { ...query, foremanId: user.role === 'foreman' ? user.userId : undefined });
-    return { items: rows.map(toSyncConflict) };
+    const names = await conflictWriterNames(rows, this.db);
+    return { items: rows.map((row) => toSyncConflict(row, names)) };
   }
 
   /**
@@ -74,7 +75,8 @@ export class SyncConflictsService {
         // A server-side write has seen every value: it never opens a new conflict.
         await this.commands.writeFields(this.commands.store(tx, user), actor, scoped.finding, { [conflict.field]: value }, scoped.finding.version, 'resolve-conflict');
       }
-      return toSyncConflict(await this.sync.markResolved(id, { resolution: input.keep, resolvedBy: user.userId }, tx));
+      const resolved = await this.sync.markResolved(id, { resolution: input.keep, resolvedBy: user.userId }, tx);
+      return toSyncConflict(resolved, await conflictWriterNames([resolved], tx));
     });
   }
 

@@ -8,6 +8,7 @@ import { RawJson } from './raw-json.js';
 import { idIn } from './sync-batch.repository.js';
 import { syncFindingJson } from './sync-finding-json.js';
 import { toSyncConflict } from './sync.mapper.js';
+import { conflictWriterNames } from './sync.repository.js';
 
 /** (xid, seq) order of the feed; xid8 travels as decimal text, so compare it as a BigInt. */
 export function feedOrder(a: { xid: string; seq: number }, b: { xid: string; seq: number }): number {
@@ -97,7 +98,8 @@ export class SyncPullRepository {
       change: format === 'rows' ? { type: 'finding', row: new RawJson(r.record) } : { type: 'finding', record: new RawJson(r.record) },
       given: { id: r.id, version: r.version },
     }));
-    for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c) } });
+    const names = await conflictWriterNames(conflicts, tx);
+    for (const c of conflicts) out.push({ xid: c.syncXid, seq: c.syncSeq, change: { type: 'conflict', record: toSyncConflict(c, names) } });
     for (const part of otherRows) out.push(...part);
     return out.sort(feedOrder).slice(0, limit);
   }

@@ -10,7 +10,8 @@ export function toSyncFinding(row: FindingApiRow, siteId: string, now = Date.now
   return record;
 }
 
-export function toSyncConflict(row: SyncConflictRow): SyncConflict {
+/** A conflict as the API gives it; `names` (conflictWriterNames) names its writers. */
+export function toSyncConflict(row: SyncConflictRow, names: ReadonlyMap<string, string>): SyncConflict {
   return {
     id: row.id,
     entity: row.entity as SyncConflict['entity'],
@@ -21,6 +22,8 @@ export function toSyncConflict(row: SyncConflictRow): SyncConflict {
     winnerUserId: row.winnerUserId,
     replacedUserId: row.replacedUserId,
     replacedAt: row.replacedAt?.toISOString() ?? null,
+    winnerName: (row.winnerUserId && names.get(row.winnerUserId)) ?? null,
+    replacedName: (row.replacedUserId && names.get(row.replacedUserId)) ?? null,
     status: row.status,
     resolution: (row.resolution as SyncConflict['resolution']) ?? null,
     resolvedBy: row.resolvedBy,

@@ -1,12 +1,23 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { scaffolds, findings, syncClients, syncClientVersions, syncConflicts, syncMutations } from '../db/schema/index.js';
+import { scaffolds, findings, syncClients, syncClientVersions, syncConflicts, syncMutations, users } from '../db/schema/index.js';
 
 export type SyncClientRow = typeof syncClients.$inferSelect;
 export type SyncMutationLogRow = typeof syncMutations.$inferInsert;
 export type SyncConflictRow = typeof syncConflicts.$inferSelect;
 export type SyncConflictInsert = typeof syncConflicts.$inferInsert;
+
+/**
+ * The names of the users who wrote the conflicts' values, by id, in one query (a user of another
+ * organisation, or one removed, is not visible under row-level security and goes unnamed).
+ */
+export async function conflictWriterNames(rows: readonly SyncConflictRow[], executor: DbExecutor): Promise<Map<string, string>> {
+  const ids = [...new Set(rows.flatMap((r) => [r.winnerUserId, r.replacedUserId]).filter((id): id is string => id !== null))];
+  if (!ids.length) return new Map();
+  const named = await executor.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids));
+  return new Map(named.map((u) => [u.id, u.name]));
+}
 
 /** Sync's own tables: clients and their counters, the outcome log, conflicts. */
 @Injectable()

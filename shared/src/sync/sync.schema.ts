@@ -111,6 +111,9 @@ export const SyncConflictSchema = z.object({
   /** Who wrote the replaced value and when (null when the server cannot tell, e.g. an older conflict). */
   replacedUserId: IdSchema.nullable().default(null),
   replacedAt: DateTimeSchema.nullable().default(null),
+  /** The two writers' names as the organisation knows them (null when it cannot tell, or from an older server). */
+  winnerName: z.string().nullable().default(null),
+  replacedName: z.string().nullable().default(null),
   status: SyncConflictStatusSchema,
   resolution: SyncConflictKeepSchema.nullable(),
   resolvedBy: IdSchema.nullable(),

@@ -1,4 +1,4 @@
-import { CONTROL_LABELS, type Control, type InspectionReason } from '@plummet/shared';
+import { CONTROL_LABELS, type Control, type ControlResult, type InspectionReason } from '@plummet/shared';
 
 export const REASON_WORDS: Record<InspectionReason, { label: string; hint: string }> = {
   scheduled: { label: 'Scheduled', hint: 'The regular inspection of the site’s regime' },
@@ -21,3 +21,6 @@ export const CONTROL_WORDS: Record<Control, { label: string; lookFor: string }> 
   'loading-bay-gates': { label: CONTROL_LABELS['loading-bay-gates'], lookFor: 'Closed except while loading, no gap at the edge' },
   'guardrail-mesh': { label: CONTROL_LABELS['guardrail-mesh'], lookFor: 'Fitted toe board to rail, openings small enough for what is handled' },
 };
+
+/** A control check's result, as the inspector chooses it. */
+export const RESULT_WORDS: Record<ControlResult, string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'Not applicable' };

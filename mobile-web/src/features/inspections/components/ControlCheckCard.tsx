@@ -5,9 +5,8 @@ import type { ControlCheckRecord } from '../../../local-db/records';
 import { PhotoPicker } from '../../photos/components/PhotoPicker';
 import { usePhotos } from '../../photos/photos.queries';
 import type { PendingPhoto } from '../../photos/photos.store';
-import { CONTROL_WORDS } from '../inspection-words';
+import { CONTROL_WORDS, RESULT_WORDS } from '../inspection-words';
 
-const RESULT_WORDS: Record<ControlResult, string> = { pass: 'Pass', fail: 'Fail', 'not-applicable': 'Not applicable' };
 
 interface ControlCheckCardProps {
   control: Control;

@@ -1,48 +1,83 @@
 import { IonButton } from '@ionic/react';
-import type { SyncConflict, SyncConflictResolve } from '@plummet/shared';
+import type { SyncConflict, SyncConflictResolve, WindUnits } from '@plummet/shared';
 import { useLiveQuery } from 'dexie-react-hooks';
-import { useState } from 'react';
+import { type ReactNode, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDateTime } from '../../../lib/format-date';
 import { db } from '../../../local-db/db';
 import type { Units } from '../../../lib/units';
-import { canTypeValue, fieldWords, parseTypedValue, replacedWords, valueWords } from '../conflict-words';
+import { CONTROL_WORDS } from '../../inspections/inspection-words';
+import { canTypeValue, ENTITY_WORDS, fieldWords, parseTypedValue, replacedWords, valueWords, writerWords } from '../conflict-words';
 import { describeResolveError, useResolveConflictMutation } from '../conflicts.mutations';
 
 interface ConflictCardProps {
   conflict: SyncConflict;
   userId: string;
   units: Units;
+  windUnits?: WindUnits;
 }
 
 /**
- * One conflict: the finding, the field, the value in place now and the value it replaced, with
- * who wrote each; settled by keeping one or typing another (on the server, so it needs a connection).
+ * One conflict: the record (a finding, an inspection, a control check, the user's settings or a
+ * scaffold's tag), the field, the value in place now and the value it replaced, with who wrote
+ * each; settled by keeping one or typing another (on the server, so it needs a connection).
  */
 export function ConflictCard(props: ConflictCardProps) {
-  return props.conflict.entity === 'scaffold' ? <ScaffoldConflictCard {...props} /> : <FindingConflictCard {...props} />;
+  return props.conflict.entity === 'scaffold' ? <ScaffoldConflictCard {...props} /> : <RecordConflictCard {...props} />;
 }
 
-function FindingConflictCard({ conflict, userId, units }: ConflictCardProps) {
-  const finding = useLiveQuery(async () => {
-    const record = await db.findings.get(conflict.entityId);
-    const scaffold = record ? await db.scaffolds.get(record.scaffoldId) : undefined;
-    return { record, scaffold };
-  }, [conflict.entityId]);
+/** Where a third value is chosen after keeping one here. */
+const THEN_EDIT: Record<SyncConflict['entity'], string> = {
+  finding: 'in the finding',
+  inspection: 'in the inspection',
+  'control-check': 'in the inspection’s control check',
+  scaffold: 'on the scaffold’s page',
+  user: 'in Settings',
+};
+
+/** What a conflict is on, read from the phone's database: a link to it and where it is. */
+interface ConflictSubject {
+  title: ReactNode;
+  where: string;
+}
+
+function useConflictSubject(conflict: SyncConflict): ConflictSubject | undefined {
+  return useLiveQuery(async (): Promise<ConflictSubject> => {
+    const kind = ENTITY_WORDS[conflict.entity];
+    if (conflict.entity === 'user') return { title: <Link to="/settings">{kind}</Link>, where: 'changed on two of your phones' };
+    if (conflict.entity === 'finding') {
+      const record = await db.findings.get(conflict.entityId);
+      if (!record) return { title: kind, where: 'A finding not on this phone' };
+      const scaffold = await db.scaffolds.get(record.scaffoldId);
+      return {
+        title: (
+          <Link to={`/findings/${record.id}`} data-testid="conflict-finding">
+            {record.item.name}
+          </Link>
+        ),
+        where: `${scaffold?.reference ?? 'Scaffold'} · ${record.elevation}, lift ${record.lift}, bay ${record.bay}`,
+      };
+    }
+    const check = conflict.entity === 'control-check' ? await db.controlChecks.get(conflict.entityId) : undefined;
+    const inspection = await db.inspections.get(check ? check.inspectionId : conflict.entityId);
+    if (!inspection) return { title: kind, where: `${conflict.entity === 'control-check' ? 'a control check' : 'an inspection'} not on this phone` };
+    const scaffold = await db.scaffolds.get(inspection.scaffoldId);
+    return {
+      title: <Link to={`/inspections/${inspection.id}`}>{check ? CONTROL_WORDS[check.control].label : kind}</Link>,
+      where: `${check ? 'inspection of ' : ''}${scaffold?.reference ?? 'scaffold'}, started ${formatDateTime(inspection.startedAt)}`,
+    };
+  }, [conflict.entity, conflict.entityId]);
+}
+
+function RecordConflictCard({ conflict, userId, units, windUnits }: ConflictCardProps) {
+  // Until the phone's database answers, name the kind of record only.
+  const subject = useConflictSubject(conflict);
   const resolve = useResolveConflictMutation();
   const [typing, setTyping] = useState(false);
   const [text, setText] = useState(typeof conflict.currentValue === 'string' || typeof conflict.currentValue === 'number' ? String(conflict.currentValue) : '');
   const [problem, setProblem] = useState<string>();
 
-  const record = finding?.record;
-  // Until the phone's database answers, name no place rather than say the finding is missing.
-  const where =
-    finding === undefined
-      ? 'Finding'
-      : record
-        ? `${finding.scaffold?.reference ?? 'Scaffold'} · ${record.elevation}, lift ${record.lift}, bay ${record.bay}`
-        : 'A finding not on this phone';
-  const winner = conflict.winnerUserId === userId ? 'you' : 'another user';
+  const winner = writerWords(conflict.winnerUserId, conflict.winnerName, userId);
   const settle = (body: SyncConflictResolve) => {
     setProblem(undefined);
     resolve.mutate({ id: conflict.id, body });
@@ -56,23 +91,17 @@ function FindingConflictCard({ conflict, userId, units }: ConflictCardProps) {
   return (
     <article className="conflict-card" data-testid="conflict-card" data-conflict-id={conflict.id} data-field={conflict.field}>
       <h3 className="conflict-card__title">
-        {record ? (
-          <Link to={`/findings/${record.id}`} data-testid="conflict-finding">
-            {record.item.name}
-          </Link>
-        ) : (
-          'Finding'
-        )}
-        <span className="muted"> — {where}</span>
+        {subject?.title ?? ENTITY_WORDS[conflict.entity]}
+        {subject && <span className="muted"> — {subject.where}</span>}
       </h3>
       <p>
         <strong data-testid="conflict-field">{fieldWords(conflict.field)}</strong> was changed on two phones before either had seen the other’s change.
       </p>
       <dl className="conflict-card__values">
         <dt>Now in place — written by {winner}, {formatDateTime(conflict.createdAt)}</dt>
-        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
+        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units, windUnits)}</dd>
         <dt data-testid="conflict-replaced-by">Replaced — {replacedWords(conflict, userId)}</dt>
-        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
+        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units, windUnits)}</dd>
       </dl>
       <div className="conflict-card__actions">
         <IonButton disabled={resolve.isPending} onClick={() => settle({ keep: 'current' })} data-testid="keep-current">
@@ -102,7 +131,7 @@ function FindingConflictCard({ conflict, userId, units }: ConflictCardProps) {
           </IonButton>
         </div>
       )}
-      {!canTypeValue(conflict.field) && <p className="muted">To choose a third value, keep one here, then edit the finding.</p>}
+      {!canTypeValue(conflict.field) && <p className="muted">To choose a third value, keep one here, then change it {THEN_EDIT[conflict.entity]}.</p>}
       {(problem || resolve.error) && (
         <p className="field-error" role="alert" data-testid="conflict-problem">
           {problem ?? describeResolveError(resolve.error)}
@@ -117,7 +146,7 @@ function FindingConflictCard({ conflict, userId, units }: ConflictCardProps) {
  * A clash on a scaffold's tag: the more restrictive tag is in place; settling keeps it or puts the
  * other back (a third tag is set on the scaffold's page afterwards).
  */
-function ScaffoldConflictCard({ conflict, userId, units }: ConflictCardProps) {
+function ScaffoldConflictCard({ conflict, userId, units, windUnits }: ConflictCardProps) {
   const scaffold = useLiveQuery(async () => (await db.scaffolds.get(conflict.entityId)) ?? null, [conflict.entityId]);
   const resolve = useResolveConflictMutation();
   const settle = (body: SyncConflictResolve) => resolve.mutate({ id: conflict.id, body });
@@ -139,9 +168,9 @@ function ScaffoldConflictCard({ conflict, userId, units }: ConflictCardProps) {
       </p>
       <dl className="conflict-card__values">
         <dt>Now in place, the more restrictive — since {formatDateTime(conflict.createdAt)}</dt>
-        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
+        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units, windUnits)}</dd>
         <dt data-testid="conflict-replaced-by">Not in place — {replacedWords(conflict, userId)}</dt>
-        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
+        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units, windUnits)}</dd>
       </dl>
       <div className="conflict-card__actions">
         <IonButton disabled={resolve.isPending} onClick={() => settle({ keep: 'current' })} data-testid="keep-current">

@@ -71,7 +71,7 @@ export function SyncStatusPage() {
                         No conflicts: nobody’s change has replaced another they had not seen.
                       </p>
                     ) : (
-                      status.openConflicts.map((conflict) => <ConflictCard key={conflict.id} conflict={conflict} userId={session.user.id} units={session.user.units} />)
+                      status.openConflicts.map((conflict) => <ConflictCard key={conflict.id} conflict={conflict} userId={session.user.id} units={session.user.units} windUnits={session.user.windUnits} />)
                     )}
                   </FormSection>
                 )}
