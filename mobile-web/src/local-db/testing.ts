@@ -53,6 +53,7 @@ export const scaffold: Scaffold = {
   id: SCAFFOLD_ID,
   siteId: SITE_ID,
   reference: 'QL-A',
+  statusSetAt: null,
   description: 'Main façade',
   elevations: ['North', 'East'],
   lifts: 6,

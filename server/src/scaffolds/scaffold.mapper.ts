@@ -1,4 +1,4 @@
-import type { Scaffold } from '@plummet/shared';
+import type { FieldStamps, Scaffold } from '@plummet/shared';
 import type { scaffolds } from '../db/schema/index.js';
 
 export type ScaffoldRow = typeof scaffolds.$inferSelect;
@@ -15,6 +15,8 @@ export function toScaffold(row: ScaffoldRow): Scaffold {
     liftHeightsM: row.liftHeightsM,
     baysPerElevation: row.baysPerElevation,
     status: row.status,
+    // Every write of the tag (command, inspection, closure) stamps its field with the time.
+    statusSetAt: (row.syncFields as FieldStamps | null)?.status?.t ?? null,
     foremanId: row.foremanId,
     regime: row.regime,
     loadClass: row.loadClass,

@@ -258,7 +258,12 @@ describe('a scaffold’s tag through push: the more restrictive tag stands', () 
 
   it('records a conflict when an offline push replaces a tag a REST change set after the phone last saw it, and settles it', async () => {
     const id = await newScaffold();
+    const before = Date.now();
     expect((await api.call('demo:manager', 'POST', `/scaffolds/${id}/status`, { status: 'cleared', note: 'Handover' })).status).toBe(200);
+    // The scaffold says when its tag was set.
+    const setAt = Date.parse((await api.call('demo:manager', 'GET', `/scaffolds/${id}`)).body.statusSetAt);
+    expect(setAt).toBeGreaterThanOrEqual(before - 1000);
+    expect(setAt).toBeLessThanOrEqual(Date.now() + 1000);
     // The phone last saw version 1 (closed) and limits the tag offline: the safer tag is written over the unseen one.
     const pushed = await push('demo:inspector', tag(id, 'limited', 1));
     expect(pushed.outcome).toBe('conflict');

@@ -44,6 +44,8 @@ export const ScaffoldSchema = z.object({
   liftHeightsM: z.array(z.number()),
   baysPerElevation: z.number().int(),
   status: ScaffoldStatusSchema,
+  /** When the tag status was last set (a tag change, a signed inspection, a closure); null when not known. */
+  statusSetAt: DateTimeSchema.nullable().default(null),
   foremanId: IdSchema.nullable(),
   /** Its own inspection regime; null: the site's. */
   regime: InspectionRegimeSchema.nullable(),

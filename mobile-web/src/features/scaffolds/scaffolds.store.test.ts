@@ -20,10 +20,13 @@ describe('a scaffold’s tag set on the phone', () => {
   it('is written locally with its outbox entry, keeping the version the phone last had from the server', async () => {
     const database = await seeded();
     await changeScaffoldStatus(database, scaffold.id, { status: 'closed', note: 'Ties removed on lift 3' }, new Date('2026-03-02T08:00:00Z'));
-    expect(await database.scaffolds.get(scaffold.id)).toMatchObject({ status: 'closed', version: 4, updatedAt: '2026-03-02T08:00:00.000Z' });
+    expect(await database.scaffolds.get(scaffold.id)).toMatchObject({ status: 'closed', statusSetAt: '2026-03-02T08:00:00.000Z', version: 4, updatedAt: '2026-03-02T08:00:00.000Z' });
     expect(await listWaitingChanges(database)).toEqual([
       expect.objectContaining({ entity: 'scaffold', action: 'status', entityId: scaffold.id, payload: { status: 'closed', note: 'Ties removed on lift 3' } }),
     ]);
+    // The same tag again keeps the time it was set.
+    await changeScaffoldStatus(database, scaffold.id, { status: 'closed', note: 'Still closed' }, new Date('2026-03-02T09:00:00Z'));
+    expect(await database.scaffolds.get(scaffold.id)).toMatchObject({ status: 'closed', statusSetAt: '2026-03-02T08:00:00.000Z' });
   });
 
   it('refuses a scaffold that is not on the phone and leaves the outbox empty', async () => {

@@ -20,7 +20,8 @@ export async function changeScaffoldStatus(database: PlummetDb, scaffoldId: stri
   return database.transaction('rw', database.scaffolds, database.outbox, async () => {
     const scaffold = await database.scaffolds.get(scaffoldId);
     if (!scaffold) throw new ScaffoldNotOnPhoneError();
-    const record: ScaffoldRecord = { ...scaffold, status: change.status, updatedAt: now.toISOString() };
+    const setAt = scaffold.status === change.status ? scaffold.statusSetAt : now.toISOString();
+    const record: ScaffoldRecord = { ...scaffold, status: change.status, statusSetAt: setAt, updatedAt: now.toISOString() };
     await database.scaffolds.put(record);
     await enqueueChange(database, scaffoldId, { entity: 'scaffold', action: 'status', payload: change }, now);
     return record;

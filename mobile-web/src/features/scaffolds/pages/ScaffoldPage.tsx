@@ -1,3 +1,4 @@
+import type { ScaffoldRecord } from '../../../local-db/records';
 import { IonButton, IonContent, IonFooter, IonPage, useIonRouter } from '@ionic/react';
 import { useState } from 'react';
 import { useParams } from 'react-router-dom';
@@ -41,7 +42,7 @@ export function ScaffoldPage() {
               {scaffold && (
                 <>
                   <div className="scaffold-summary">
-                    <ScaffoldStatusTag status={scaffold.status} recorded={scaffold.lastInspectedAt ? `as recorded ${formatDateTime(scaffold.lastInspectedAt)}` : null} />
+                    <ScaffoldStatusTag status={scaffold.status} recorded={tagRecordedWords(scaffold)} />
                     <dl className="data-list">
                       <dt>Last inspected</dt>
                       <dd data-testid="last-inspected">{formatDateTime(scaffold.lastInspectedAt)}</dd>
@@ -101,4 +102,10 @@ export function ScaffoldPage() {
       )}
     </IonPage>
   );
+}
+
+/** When the tag in place was set; from data before that was kept, the last inspection that recorded it. */
+function tagRecordedWords(scaffold: Pick<ScaffoldRecord, 'statusSetAt' | 'lastInspectedAt'>): string | null {
+  if (scaffold.statusSetAt) return `set ${formatDateTime(scaffold.statusSetAt)}`;
+  return scaffold.lastInspectedAt ? `as recorded ${formatDateTime(scaffold.lastInspectedAt)}` : null;
 }
