@@ -5,6 +5,7 @@ import type { AuditChange, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { CatalogueRepository } from '../catalogue/catalogue.repository.js';
+import { insertConflictRows } from '../common/command-writes.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { findings, type syncConflicts } from '../db/schema/index.js';
 import type { InspectionRow } from '../inspections/inspection.mapper.js';
@@ -133,7 +134,7 @@ export class DbFindingStore implements FindingStore {
   }
 
   insertConflicts(rows: ConflictInsert[]) {
-    return this.deps.findings.insertConflicts(rows, this.tx);
+    return insertConflictRows(this.tx, rows);
   }
 
   insertFix(values: FixInsert) {

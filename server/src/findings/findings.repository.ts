@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 import { type FindingListQuery, NOTE_PREVIEW_MAX } from '@plummet/shared';
 import { keyset, type SortKey } from '../common/keyset.js';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { auditEvents, findings, fixes, organisations, photos, scaffolds, syncConflicts, users, verifications } from '../db/schema/index.js';
+import { auditEvents, findings, fixes, organisations, photos, scaffolds, users, verifications } from '../db/schema/index.js';
 import { findingFilters } from './finding-filters.js';
 import {
   FINDING_API_COLUMNS,
@@ -149,10 +149,6 @@ export class FindingsRepository {
       .update(scaffolds)
       .set({ alteredAt: at, nextDueAt: at, version: sql`${scaffolds.version} + 1`, updatedAt: sql`now()` })
       .where(inArray(scaffolds.id, scaffoldIds));
-  }
-
-  async insertConflicts(rows: (typeof syncConflicts.$inferInsert)[], executor: DbExecutor = this.db) {
-    return rows.length ? executor.insert(syncConflicts).values(rows).returning({ id: syncConflicts.id, field: syncConflicts.field }) : [];
   }
 
   /** The audit events of one finding with the actor's name, oldest first (the finding's history). */

@@ -2,11 +2,10 @@ import { Inject, Injectable } from '@nestjs/common';
 import { and, eq, sql } from 'drizzle-orm';
 import type { Control } from '@plummet/shared';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { controlChecks, syncConflicts } from '../db/schema/index.js';
+import { controlChecks } from '../db/schema/index.js';
 import type { ControlCheckRow } from './inspection.mapper.js';
 
 export type ControlCheckInsert = Omit<typeof controlChecks.$inferInsert, 'createdAt' | 'updatedAt' | 'version' | 'syncXid' | 'syncSeq'>;
-export type ConflictInsert = typeof syncConflicts.$inferInsert;
 
 /** The writes of the inspection commands (inspection-commands.ts) that the listing repository does not have. */
 @Injectable()
@@ -44,15 +43,5 @@ export class InspectionCommandRepository {
       .where(eq(controlChecks.id, id))
       .returning();
     return row!;
-  }
-
-  async insertConflicts(rows: ConflictInsert[], executor: DbExecutor = this.db): Promise<{ id: string; field: string }[]> {
-    return rows.length ? executor.insert(syncConflicts).values(rows).returning({ id: syncConflicts.id, field: syncConflicts.field }) : [];
-  }
-
-  async now(executor: DbExecutor = this.db): Promise<Date> {
-    const result = await executor.execute<{ now: string | Date }>(sql`select now() as now`);
-    const value = result.rows[0]!.now;
-    return value instanceof Date ? value : new Date(value);
   }
 }

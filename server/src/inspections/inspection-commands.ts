@@ -30,6 +30,7 @@ import {
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { insertConflictRows, transactionNow } from '../common/command-writes.js';
 import { type CommandActor, conflictReason, conflictRows, parseInput, requireRole, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { ReportMailQueue } from '../mail/report-mail.queue.js';
@@ -95,7 +96,7 @@ export class InspectionCommands {
     const existing = await this.inspections.findAnyOrg(input.id, tx);
     if (existing) return { ...done(this.retried(existing, input, user), 'Already recorded: nothing to change'), created: false };
     if (!(await this.scaffolds.find(user.organisationId, input.scaffoldId, tx))) throw AppError.notFound('Scaffold');
-    const now = await this.writes.now(tx);
+    const now = await transactionNow(tx);
     const row = await this.inspections.insertIfAbsent(
       {
         id: input.id,
@@ -156,7 +157,7 @@ export class InspectionCommands {
       if (sameFinish(current, input)) return done(current, 'Already finished: nothing to change');
       throw signedRejection();
     }
-    const finishedAt = input.finishedAt ? new Date(input.finishedAt) : await this.writes.now(tx);
+    const finishedAt = input.finishedAt ? new Date(input.finishedAt) : await transactionNow(tx);
     if (finishedAt.getTime() < current.startedAt.getTime()) {
       throw new AppError(ErrorCode.ValidationFailed, 'The request is not valid', [
         { path: ['finishedAt'], code: 'too_small', message: 'An inspection cannot finish before it started' },
@@ -174,7 +175,7 @@ export class InspectionCommands {
       const nextDueAt = nextInspectionDue(finishedAt, context.regime, context.timeZone);
       // The tag status the inspector recorded becomes the scaffold's (none recorded: it stays as it
       // was), stamped as a write of the field, so a later push that had not seen it is a conflict.
-      const status = input.tagStatus ? seenTagWrite(target.scaffold, input.tagStatus, actor, await this.writes.now(tx)) : {};
+      const status = input.tagStatus ? seenTagWrite(target.scaffold, input.tagStatus, actor, await transactionNow(tx)) : {};
       const scaffold = toScaffold(await this.scaffolds.update(target.scaffold.id, { lastInspectedAt: finishedAt, nextDueAt, ...status }, tx));
       await this.audit.record(tx, user, { entityType: 'scaffold', entityId: scaffold.id, action: 'inspected', before: toScaffold(target.scaffold), after: scaffold });
     }
@@ -196,7 +197,7 @@ export class InspectionCommands {
     const existing = await this.writes.lockControlCheck(input.inspectionId, input.control, tx);
     if (!existing) {
       const first = parseInput(ControlCheckPutSchema, { result: input.result, note: input.note });
-      const now = await this.writes.now(tx);
+      const now = await transactionNow(tx);
       const row = await this.writes.insertControlCheck(
         {
           id: checkId ?? randomUUID(),
@@ -254,16 +255,13 @@ export class InspectionCommands {
       clientId: actor.clientId,
       nextVersion: current.version + 1,
       userId: actor.user.userId,
-      at: (await this.writes.now(tx)).toISOString(),
+      at: (await transactionNow(tx)).toISOString(),
       policies,
     });
   }
 
   private async keepConflicts(tx: DbExecutor, actor: CommandActor, entity: 'inspection' | 'control-check', entityId: string, conflicts: FieldConflict[]): Promise<string[]> {
-    const rows = await this.writes.insertConflicts(
-      conflictRows(actor, entity, entityId, conflicts),
-      tx,
-    );
+    const rows = await insertConflictRows(tx, conflictRows(actor, entity, entityId, conflicts));
     return rows.map((r) => r.id);
   }
 

@@ -12,9 +12,9 @@ import { Injectable } from '@nestjs/common';
 import { type FieldConflict, type FieldStamps, mergeFieldPatch, SCAFFOLD_MERGE_POLICIES, ScaffoldStatusChangeSchema, type ScaffoldStatus } from '@plummet/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { AppError } from '../common/app-error.js';
+import { insertConflictRows, transactionNow } from '../common/command-writes.js';
 import { type CommandActor, conflictReason, conflictRows, parseInput, requireRole, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
-import { ScaffoldCommandRepository } from './scaffold-command.repository.js';
 import { type ScaffoldRow, toScaffold } from './scaffold.mapper.js';
 import { ScaffoldsRepository } from './scaffolds.repository.js';
 
@@ -51,7 +51,6 @@ export function seenTagWrite(scaffold: ScaffoldRow, status: ScaffoldStatus, acto
 export class ScaffoldCommands {
   constructor(
     private readonly scaffolds: ScaffoldsRepository,
-    private readonly writes: ScaffoldCommandRepository,
     private readonly audit: AuditService,
   ) {}
 
@@ -75,7 +74,7 @@ export class ScaffoldCommands {
       clientId: actor.clientId,
       nextVersion: current.version + 1,
       userId: user.userId,
-      at: (await this.writes.now(tx)).toISOString(),
+      at: (await transactionNow(tx)).toISOString(),
       policies: SCAFFOLD_MERGE_POLICIES,
     });
     const changes = merge.changes as { status?: ScaffoldStatus };
@@ -99,10 +98,7 @@ export class ScaffoldCommands {
   }
 
   private async keepConflicts(tx: DbExecutor, actor: CommandActor, entityId: string, conflicts: FieldConflict[]): Promise<string[]> {
-    const rows = await this.writes.insertConflicts(
-      conflictRows(actor, 'scaffold', entityId, conflicts),
-      tx,
-    );
+    const rows = await insertConflictRows(tx, conflictRows(actor, 'scaffold', entityId, conflicts));
     return rows.map((r) => r.id);
   }
 }

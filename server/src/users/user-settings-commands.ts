@@ -7,6 +7,7 @@
 import { Injectable } from '@nestjs/common';
 import { type FieldStamps, mergeFieldPatch, UserProfileUpdateSchema } from '@plummet/shared';
 import { AppError, ErrorCode } from '../common/app-error.js';
+import { insertConflictRows, transactionNow } from '../common/command-writes.js';
 import { type CommandActor, conflictReason, conflictRows, parseInput, seenVersion } from '../common/command-actor.js';
 import type { DbExecutor } from '../db/db.tokens.js';
 import { UserSettingsRepository } from './user-settings.repository.js';
@@ -39,14 +40,11 @@ export class UserSettingsCommands {
       clientId: actor.clientId,
       nextVersion: current.version + 1,
       userId: user.userId,
-      at: (await this.settings.now(tx)).toISOString(),
+      at: (await transactionNow(tx)).toISOString(),
     });
     if (!Object.keys(merge.changes).length && !merge.conflicts.length) return { outcome: 'applied', reason: 'Nothing to change', conflictIds: [] };
     if (Object.keys(merge.changes).length) await this.settings.update(userId, { ...merge.changes, syncFields: merge.stamps }, tx);
-    const conflicts = await this.settings.insertConflicts(
-      conflictRows(actor, 'user', userId, merge.conflicts),
-      tx,
-    );
+    const conflicts = await insertConflictRows(tx, conflictRows(actor, 'user', userId, merge.conflicts));
     const shown = (row: typeof current) => ({ name: row.name, position: row.position, units: row.units, windUnits: row.windUnits });
     await this.users.insertAudit(
       {

@@ -2,7 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { WindUnits } from '@plummet/shared';
 import { eq, sql } from 'drizzle-orm';
 import { DRIZZLE, type Db, type DbExecutor } from '../db/db.tokens.js';
-import { syncConflicts, users } from '../db/schema/index.js';
+import { users } from '../db/schema/index.js';
 
 export interface UserSettingsRow {
   name: string;
@@ -34,15 +34,5 @@ export class UserSettingsRepository {
       .update(users)
       .set({ ...changes, version: sql`${users.version} + 1` })
       .where(eq(users.id, userId));
-  }
-
-  async insertConflicts(rows: (typeof syncConflicts.$inferInsert)[], executor: DbExecutor = this.db): Promise<{ id: string }[]> {
-    return rows.length ? executor.insert(syncConflicts).values(rows).returning({ id: syncConflicts.id }) : [];
-  }
-
-  async now(executor: DbExecutor = this.db): Promise<Date> {
-    const result = await executor.execute<{ now: string | Date }>(sql`select now() as now`);
-    const value = result.rows[0]!.now;
-    return value instanceof Date ? value : new Date(value);
   }
 }
