@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { artifactPath, launchPhone } from '../support/browser.js';
@@ -200,6 +201,53 @@ describe('two phones edit the same finding offline', () => {
     await b.screenshot({ path: artifactPath('sync-conflict-tag.png') });
     await card.getByTestId('keep-current').click();
     await onScreen(b, 'no-conflicts').waitFor({ timeout: 15_000 });
+    expect(errors).toEqual([]);
+  });
+  it('names a writer who is not you, and says what a conflict is on when it is an inspection', async () => {
+    const b = pages[1]!;
+    const call = async (token: string | undefined, method: string, path: string, body?: unknown) => {
+      const res = await fetch(`${server.url}/api${path}`, {
+        method,
+        headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
+        body: body === undefined ? undefined : JSON.stringify(body),
+      });
+      const answer = await res.json();
+      expect(res.status, JSON.stringify(answer)).toBeLessThan(300);
+      return answer;
+    };
+    const tokenOf = async (email: string) => (await call(undefined, 'POST', '/auth/sign-in', { email, password: 'plummet-demo' })).accessToken as string;
+    const [inspector, manager] = [await tokenOf('inspector@demo.test'), await tokenOf('manager@demo.test')];
+    const qlB = (await readTable<{ id: string; reference: string }>(b, 'scaffolds')).find((scaffold) => scaffold.reference === 'QL-B')!;
+
+    // Offline, the phone closes QL-B; meanwhile the manager, who had not seen that, clears it from the office.
+    await goOffline(phoneB, b);
+    await setTag(b, server.url, qlB.id, 'closed', 'Boards loose on lift 2');
+    await call(manager, 'POST', `/scaffolds/${qlB.id}/status`, { status: 'cleared', note: 'Boards fixed' });
+    // And two of the inspector's phones send an inspection's wind, each without the other's.
+    const inspectionId = randomUUID();
+    await call(inspector, 'POST', '/inspections', { id: inspectionId, scaffoldId: qlB.id, reason: 'scheduled', windSpeedMps: 4 });
+    for (const windSpeedMps of [12, 6]) {
+      await call(inspector, 'POST', '/sync/push', {
+        clientId: randomUUID(),
+        mutations: [{ id: 1, entity: 'inspection', entityId: inspectionId, action: 'update', baseVersion: 1, payload: { windSpeedMps } }],
+      });
+    }
+
+    await phoneB.context.setOffline(false);
+    await expect.poll(() => onScreen(b, 'sync-attention').textContent(), { timeout: 30_000 }).toBe('2 conflicts to settle');
+    await onScreen(b, 'sync-badge').click();
+    await onScreen(b, 'sync-page').waitFor();
+    const tag = b.locator('[data-testid="conflict-card"][data-entity="scaffold"]');
+    await expect.poll(() => tag.getByTestId('conflict-replaced-by').textContent()).toMatch(/^Not in place — written by Tomasz Reid, /);
+    expect(await tag.getByTestId('conflict-current').textContent()).toBe('Closed to use');
+    const inspection = b.locator('[data-testid="conflict-card"][data-entity="inspection"]');
+    await expect.poll(() => inspection.locator('.conflict-card__title').innerText()).toMatch(/^Inspection — QL-B, started \d{1,2} \w{3} \d{4}, \d\d:\d\d$/);
+    expect(await inspection.getByTestId('conflict-field').textContent()).toBe('Wind speed');
+    // The stronger wind stands (it carries items further), in the user's wind unit.
+    expect(await inspection.getByTestId('conflict-current').textContent()).toMatch(/^(12 m\/s|43\.2 km\/h|26\.8 mph)$/);
+    expect(await inspection.innerText()).toMatch(/then change it in the inspection/);
+    await inspection.scrollIntoViewIfNeeded();
+    await b.screenshot({ path: artifactPath('sync-conflict-inspection.png') });
     expect(errors).toEqual([]);
   });
 });

@@ -89,7 +89,7 @@ function RecordConflictCard({ conflict, userId, units, windUnits }: ConflictCard
   };
 
   return (
-    <article className="conflict-card" data-testid="conflict-card" data-conflict-id={conflict.id} data-field={conflict.field}>
+    <article className="conflict-card" data-testid="conflict-card" data-conflict-id={conflict.id} data-field={conflict.field} data-entity={conflict.entity}>
       <h3 className="conflict-card__title">
         {subject?.title ?? ENTITY_WORDS[conflict.entity]}
         {subject && <span className="muted"> — {subject.where}</span>}
