@@ -2,6 +2,8 @@ import {
   type InspectionDetail,
   InspectionDetailSchema,
   InspectionListResponseSchema,
+  type RegisterDueItem,
+  RegisterDueItemSchema,
   type RegisterDueList,
   RegisterDueListSchema,
   type ScaffoldTriggerCreate,
@@ -9,11 +11,39 @@ import {
   ScaffoldTriggerResultSchema,
 } from '@plummet/shared';
 import { authorisedFetch } from '../../api/authorised-fetch';
+import { nextTask } from '../../lib/next-task';
 
 /** `GET /api/register/due`: scaffolds waiting on a trigger, never inspected, overdue or due today. */
 export async function fetchDueList(siteId?: string): Promise<RegisterDueList> {
   const query = siteId ? `?${new URLSearchParams({ siteId }).toString()}` : '';
-  return RegisterDueListSchema.parse(await authorisedFetch(`/register/due${query}`));
+  return parseDueList(await authorisedFetch(`/register/due${query}`));
+}
+
+/** How long the due list's check may hold the phone before it lets it paint and answer a tap. */
+const PARSE_SLICE_MS = 8;
+
+/**
+ * RegisterDueListSchema.parse, an item at a time, with a pause for the browser every few
+ * milliseconds: a long list checked in one go is a long task on a phone, on the home's busiest
+ * moment. Anything that does not check gets the whole-list parse, so errors read as before.
+ */
+async function parseDueList(body: unknown): Promise<RegisterDueList> {
+  const list = body as { items?: unknown } | null;
+  if (typeof list !== 'object' || list === null || !Array.isArray(list.items)) return RegisterDueListSchema.parse(body);
+  const items: RegisterDueItem[] = [];
+  let sliceStart = performance.now();
+  for (const item of list.items as unknown[]) {
+    const checked = RegisterDueItemSchema.safeParse(item);
+    if (!checked.success) return RegisterDueListSchema.parse(body);
+    items.push(checked.data);
+    if (performance.now() - sliceStart > PARSE_SLICE_MS) {
+      await nextTask();
+      sliceStart = performance.now();
+    }
+  }
+  const envelope = RegisterDueListSchema.safeParse({ ...list, items: [] });
+  if (!envelope.success) return RegisterDueListSchema.parse(body);
+  return { ...envelope.data, items };
 }
 
 /** `POST /api/scaffolds/:id/trigger`: closes the scaffold and makes its inspection due now. */
