@@ -5,9 +5,9 @@ import type { AuditChange, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../auth/auth.types.js';
 import type { CatalogueItemRow } from '../catalogue/catalogue.mapper.js';
 import type { CatalogueRepository } from '../catalogue/catalogue.repository.js';
-import { insertConflictRows } from '../common/command-writes.js';
+import { type ConflictInsert, insertConflictRows } from '../common/command-writes.js';
 import type { DbExecutor } from '../db/db.tokens.js';
-import { findings, type syncConflicts } from '../db/schema/index.js';
+import { findings } from '../db/schema/index.js';
 import type { InspectionRow } from '../inspections/inspection.mapper.js';
 import type { InspectionsRepository } from '../inspections/inspections.repository.js';
 import type { ScaffoldRow } from '../scaffolds/scaffold.mapper.js';
@@ -17,7 +17,7 @@ import type { FindingChanges, FindingInsert, FindingsRepository, FindingWithScop
 
 export type FixInsert = Parameters<FindingsRepository['insertFix']>[0];
 export type VerificationInsert = Parameters<FindingsRepository['insertVerification']>[0];
-export type ConflictInsert = typeof syncConflicts.$inferInsert;
+export type { ConflictInsert } from '../common/command-writes.js';
 
 /**
  * What a finding command (finding-commands.ts) reads and writes, for the caller's organisation,

@@ -159,8 +159,8 @@ export async function finishInspection(
     if (scaffold) {
       const nextDueAt = site ? nextInspectionDue(new Date(at), effectiveRegime(site.regime, scaffold.regime), site.timeZone).toISOString() : scaffold.nextDueAt;
       // The tag status the inspector recorded shows on the phone at once, as on the server.
-      const tagChanged = Boolean(report.tagStatus) && report.tagStatus !== scaffold.status;
-      await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt, ...(tagChanged && report.tagStatus ? { status: report.tagStatus, statusSetAt: at } : {}) });
+      const newTag = report.tagStatus && report.tagStatus !== scaffold.status ? report.tagStatus : undefined;
+      await database.scaffolds.put({ ...scaffold, lastInspectedAt: at, nextDueAt, ...(newTag ? { status: newTag, statusSetAt: at } : {}) });
     }
     return finished;
   });

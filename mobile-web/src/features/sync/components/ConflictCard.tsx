@@ -47,7 +47,7 @@ function useConflictSubject(conflict: SyncConflict): ConflictSubject | undefined
     if (conflict.entity === 'user') return { title: <Link to="/settings">{kind}</Link>, where: 'changed on two of your phones' };
     if (conflict.entity === 'finding') {
       const record = await db.findings.get(conflict.entityId);
-      if (!record) return { title: kind, where: 'A finding not on this phone' };
+      if (!record) return { title: kind, where: 'a finding not on this phone' };
       const scaffold = await db.scaffolds.get(record.scaffoldId);
       return {
         title: (
@@ -146,7 +146,7 @@ function RecordConflictCard({ conflict, userId, units, windUnits }: ConflictCard
  * A clash on a scaffold's tag: the more restrictive tag is in place; settling keeps it or puts the
  * other back (a third tag is set on the scaffold's page afterwards).
  */
-function ScaffoldConflictCard({ conflict, userId, units, windUnits }: ConflictCardProps) {
+function ScaffoldConflictCard({ conflict, userId, units }: ConflictCardProps) {
   const scaffold = useLiveQuery(async () => (await db.scaffolds.get(conflict.entityId)) ?? null, [conflict.entityId]);
   const resolve = useResolveConflictMutation();
   const settle = (body: SyncConflictResolve) => resolve.mutate({ id: conflict.id, body });
@@ -168,9 +168,9 @@ function ScaffoldConflictCard({ conflict, userId, units, windUnits }: ConflictCa
       </p>
       <dl className="conflict-card__values">
         <dt>Now in place, the more restrictive — since {formatDateTime(conflict.createdAt)}</dt>
-        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units, windUnits)}</dd>
+        <dd data-testid="conflict-current">{valueWords(conflict.field, conflict.currentValue, units)}</dd>
         <dt data-testid="conflict-replaced-by">Not in place — {replacedWords(conflict, userId)}</dt>
-        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units, windUnits)}</dd>
+        <dd data-testid="conflict-replaced">{valueWords(conflict.field, conflict.replacedValue, units)}</dd>
       </dl>
       <div className="conflict-card__actions">
         <IonButton disabled={resolve.isPending} onClick={() => settle({ keep: 'current' })} data-testid="keep-current">
