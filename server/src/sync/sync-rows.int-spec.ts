@@ -99,8 +99,8 @@ describe('findings pulled as rows', () => {
       [full, api.userIds['demo:foreman']],
     );
     // An estimate changed without its row (as by hand here, or a path that forgot it) loses its row
-    // (the trigger of migration 0020), so it travels as its object, never as the row of the old one.
-    await client.query(`update findings set estimate = estimate - 'windPeakForceN', sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq') where id = $1`, [older]);
+    // (the trigger of migrations 0020 and 0021), so it travels as its object, never as the row of the old one.
+    await client.query(`update findings set estimate = (estimate::jsonb - 'windPeakForceN')::json, sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq') where id = $1`, [older]);
     const stored = await client.query<{ id: string; has_row: boolean }>(`select id, estimate_row is not null as has_row from findings where id = any($1::uuid[])`, [bodies.map((b) => b.id)]);
     expect(Object.fromEntries(stored.rows.map((r) => [r.id, r.has_row]))).toEqual(Object.fromEntries(bodies.map((b) => [b.id, b.id !== older])));
 

@@ -1,4 +1,4 @@
-import { bigserial, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigserial, index, integer, json, jsonb, pgEnum, pgTable, real, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { sql } from 'drizzle-orm';
 import { createdAt, updatedAt, version } from './columns.js';
 import { catalogueItems } from './catalogue.table.js';
@@ -36,7 +36,7 @@ export const findings = pgTable(
     likelihoodAnswers: jsonb('likelihood_answers').notNull(),
     likelihood: integer('likelihood').notNull(),
     /** The server-computed fall estimate (SI units). */
-    estimate: jsonb('estimate').notNull(),
+    estimate: json('estimate').notNull(),
     /**
      * The estimate as a pulled row (shared/src/sync/finding-rows.ts), JSON text written with it
      * (finding-input.ts); read only by the pull. NULL for an estimate stored before rows, or of
@@ -151,8 +151,8 @@ export const auditEvents = pgTable(
     entityType: text('entity_type').notNull(),
     entityId: text('entity_id').notNull(),
     action: text('action').notNull(),
-    before: jsonb('before'),
-    after: jsonb('after'),
+    before: json('before'),
+    after: json('after'),
     at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index('audit_events_org_entity_idx').on(t.organisationId, t.entityType, t.entityId)],

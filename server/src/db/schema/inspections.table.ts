@@ -1,4 +1,4 @@
-import { boolean, index, jsonb, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, json, jsonb, pgEnum, pgTable, real, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { createdAt, syncStampColumns, updatedAt, version } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { scaffolds, scaffoldStatusEnum } from './sites.table.js';
@@ -38,7 +38,7 @@ export const inspections = pgTable(
     updatedAt: updatedAt(),
     version: version(),
     /** Per-field write history for the merge of pushed edits (see sync.table.ts). */
-    syncFields: jsonb('sync_fields').notNull().default({}),
+    syncFields: json('sync_fields').notNull().default({}),
     ...syncStampColumns(),
   },
   (t) => [
@@ -73,7 +73,7 @@ export const controlChecks = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
     version: version(),
-    syncFields: jsonb('sync_fields').notNull().default({}),
+    syncFields: json('sync_fields').notNull().default({}),
     ...syncStampColumns(),
   },
   (t) => [

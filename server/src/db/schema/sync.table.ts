@@ -3,7 +3,7 @@
  * mutation it sent, and the conflicts kept when a later write replaced a value its writer had not seen.
  */
 import { sql } from 'drizzle-orm';
-import { bigint, bigserial, index, integer, jsonb, pgEnum, pgSequence, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigint, bigserial, index, integer, json, jsonb, pgEnum, pgSequence, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 import { users } from './users.table.js';
@@ -18,7 +18,7 @@ export { syncStampColumns } from './columns.js';
  * c: client id of the writer } }`. A same-field write from a client whose base version is below `v`
  * (and who is not `c`) replaces a value it never saw: a conflict is kept.
  */
-export const syncFieldsColumn = () => jsonb('sync_fields').notNull().default({});
+export const syncFieldsColumn = () => json('sync_fields').notNull().default({});
 
 /** A phone (one browser database): whose it is and the last mutation id applied from it. */
 export const syncClients = pgTable('sync_clients', {

@@ -1,4 +1,4 @@
-import { boolean, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, integer, json, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { syncStampColumns } from './columns.js';
 import { organisations } from './organisations.table.js';
 
@@ -30,7 +30,7 @@ export const users = pgTable('users', {
   /** Bumped by every change of the profile or settings, so pushed edits merge per field. */
   version: integer('version').notNull().default(1),
   /** Per-field write history of the profile and settings (see sync.table.ts). */
-  syncFields: jsonb('sync_fields').notNull().default({}),
+  syncFields: json('sync_fields').notNull().default({}),
   /** The change feed carries a user's own profile and settings to their phones (read by id). */
   ...syncStampColumns(),
 });
