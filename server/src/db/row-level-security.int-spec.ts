@@ -159,6 +159,14 @@ describe('row-level security', () => {
     for (const name of allTables.filter((n) => !OUTSIDE_ROW_SECURITY.has(n))) belongsTo(name);
   });
 
+  it('requires an organisation on every row that names one, but the built-in catalogue items shared by all', async () => {
+    const { rows } = await owner.query<{ name: string }>(
+      `SELECT table_name AS name FROM information_schema.columns
+       WHERE table_schema = 'public' AND column_name = 'organisation_id' AND is_nullable = 'YES' ORDER BY 1`,
+    );
+    expect(rows.map((r) => r.name).filter((name) => orgColumnTables.has(name))).toEqual(['catalogue_items']);
+  });
+
   it('binds the application role: no superuser, no BYPASSRLS, owner of nothing', async () => {
     const { rows } = await app.query<{ rolsuper: boolean; rolbypassrls: boolean; owned: number }>(
       `SELECT r.rolsuper, r.rolbypassrls,

@@ -27,7 +27,10 @@ export const emailTokens = pgTable('email_tokens', {
   id: uuid('id').primaryKey().defaultRandom(),
   kind: emailTokenKindEnum('kind').notNull(),
   userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
-  organisationId: uuid('organisation_id').references(() => organisations.id, { onDelete: 'cascade' }),
+  /** The organisation the link opens (an invitation's, a reset's membership): row-level security files it there. */
+  organisationId: uuid('organisation_id')
+    .notNull()
+    .references(() => organisations.id, { onDelete: 'cascade' }),
   role: roleEnum('role'),
   tokenHash: text('token_hash').notNull().unique(),
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
