@@ -5,7 +5,7 @@ import { StreamableFile } from '@nestjs/common';
 let collecting: { texts: string[]; tag: string } | undefined;
 
 /**
- * JSON text as PostgreSQL wrote it (a jsonb column read `::text`), carried in an answer as it is. A
+ * JSON text as PostgreSQL wrote it (a json or jsonb column read `::text`), carried in an answer as it is. A
  * pull page holds a thousand findings whose estimates are most of its bytes: parsing each one only
  * to write it out again was most of the page's time. `stringifyWithRawJson` splices the text in;
  * anything else that serialises it (`toJSON`) gets the parsed value, so it is never wrong, only slower.
@@ -20,7 +20,7 @@ export class RawJson {
   }
 }
 
-/** A jsonb column read as text: null stays null, anything else goes into the answer unparsed. */
+/** A json or jsonb column read as text: null stays null, anything else goes into the answer unparsed. */
 export function rawJson(text: unknown): RawJson | null {
   return text === null || text === undefined ? null : new RawJson(text as string);
 }

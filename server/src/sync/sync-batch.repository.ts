@@ -27,7 +27,7 @@ const INSERTED = ['id', 'organisationId', 'createdBy', ...UPDATABLE] as const;
 
 type FindingColumn = (typeof INSERTED)[number];
 
-/** Rows as a JSON array keyed by column name (timestamps as ISO text, jsonb columns as JSON). */
+/** Rows as a JSON array keyed by column name (timestamps as ISO text, json and jsonb columns as JSON). */
 function asJson(rows: FindingRow[], columns: readonly FindingColumn[]): string {
   const names = columns.map((c) => [c, findings[c].name] as const);
   const out: Record<string, unknown>[] = new Array(rows.length);
@@ -54,13 +54,13 @@ export interface BatchFinding extends FindingWithScope {
   siteId: string;
 }
 
-/** The API columns PostgreSQL might store differently from what was computed (jsonb is compared by the merge itself). */
+/** The API columns PostgreSQL might store differently from what was computed (json values are compared by the merge itself). */
 export const CHECKED = [
   'organisationId', 'inspectionId', 'scaffoldId', 'elevation', 'lift', 'bay', 'heightM', 'catalogueItemId', 'itemName', 'massKg',
   'exposure', 'likelihood', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'notes', 'madeSafeNote', 'createdBy', 'version',
 ] as const;
 
-/** What the batch's read-back check reads: the checked columns and the times, no jsonb to parse. */
+/** What the batch's read-back check reads: the checked columns and the times, no JSON to parse. */
 const CHECK_COLUMNS = ['id', ...CHECKED, 'createdAt', 'updatedAt', 'dueAt'] as const;
 
 export type CheckedFinding = Pick<FindingRow, (typeof CHECK_COLUMNS)[number]>;

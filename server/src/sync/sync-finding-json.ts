@@ -10,8 +10,9 @@ import { sql, type SQL } from 'drizzle-orm';
  * json_build_object does.
  *
  * What keeps the two the same:
- * - text is written by to_json, jsonb columns by their own output, which the driver's parse plus
- *   JSON.stringify reproduce (the same values; spacing aside); uuids and enum labels need no escaping;
+ * - text is written by to_json, json and jsonb columns by their own output (json as it was
+ *   stored), which the driver's parse plus JSON.stringify reproduce (the same values; spacing
+ *   aside); uuids and enum labels need no escaping;
  * - `real` columns print the shortest decimal that identifies the stored float, which is what the
  *   driver parses (the physics never stores a non-finite one);
  * - timestamps are written as Date#toISOString writes them: UTC, milliseconds, the microseconds cut

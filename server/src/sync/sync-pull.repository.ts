@@ -65,7 +65,7 @@ export class SyncPullRepository {
     // turns sorting off for the rest of this read-only transaction: every read below wants its rows
     // in feed order from the table's feed index, stopping at the limit. PostgreSQL cannot estimate
     // how many rows lie past an xid8 cursor, and with a low guess it would rather sort every row of
-    // the organisation after the cursor (turning each one's jsonb into text first) than walk the index.
+    // the organisation after the cursor (turning each one's record into text first) than walk the index.
     const probes = [sql`exists (select 1 from ${findings} where ${findingsInWindow})`, sql`exists (select 1 from ${syncConflicts} where ${conflictsInWindow})`, ...others.map((r) => r.changed)];
     const [probe] = (
       await tx.execute<{ changed: boolean[] }>(sql`select set_config('enable_sort', 'off', true), array[${sql.join(probes, sql`, `)}] as changed`)
