@@ -1,6 +1,7 @@
 import sharp from 'sharp';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiCall, apiSignIn } from '../support/api.js';
 import { artifactPath, launchPhone } from '../support/browser.js';
 import { choose, onScreen, readTable, rowOverlaps, settled, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
@@ -49,17 +50,6 @@ async function attachPhoto(page: Page, inputTestId: string, jpeg: Buffer): Promi
   await current.getByTestId(inputTestId).setInputFiles({ name: 'camera.jpg', mimeType: 'image/jpeg', buffer: jpeg });
 }
 
-async function apiToken(url: string, email: string): Promise<string> {
-  const res = await fetch(`${url}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: 'plummet-demo' }) });
-  expect(res.status).toBe(200);
-  return ((await res.json()) as { accessToken: string }).accessToken;
-}
-
-async function apiGet(url: string, path: string, token: string): Promise<{ status: number; body: any }> {
-  const res = await fetch(`${url}/api${path}`, { headers: { Authorization: `Bearer ${token}`, Accept: 'application/json' } });
-  return { status: res.status, body: await res.json().catch(() => undefined) };
-}
-
 async function screenshotBoth(page: Page, name: string, rows?: string): Promise<void> {
   await settled(page);
   if (rows) await expect.poll(() => rowOverlaps(page, rows)).toEqual([]);
@@ -90,9 +80,9 @@ describe('the fix loop across two phones with no signal in between', () => {
   beforeAll(async () => {
     server = await startBuiltServer();
     [inspectorPhone, foremanPhone] = await Promise.all([launchPhone(), launchPhone()]);
-    const token = await apiToken(server.url, 'inspector@demo.test');
-    const any = (await apiGet(server.url, '/findings?limit=1', token)).body.items[0].id as string;
-    serverHasFixLoop = (await apiGet(server.url, `/findings/${any}/history`, token)).status === 200;
+    const token = await apiSignIn(server.url, 'inspector@demo.test');
+    const any = (await apiCall(server.url, 'GET', '/findings?limit=1', token)).body.items[0].id as string;
+    serverHasFixLoop = (await apiCall(server.url, 'GET', `/findings/${any}/history`, token)).status === 200;
     if (!serverHasFixLoop) console.warn('fix-loop e2e: this server has no finding history route yet; only the phone-side steps run');
   });
   afterAll(async () => {
@@ -160,8 +150,8 @@ describe('the fix loop across two phones with no signal in between', () => {
     if (!serverHasFixLoop) context.skip();
     await setOffline(inspector, inspectorPhone.context, false);
     await syncNow(inspector, server.url);
-    const token = await apiToken(server.url, 'inspector@demo.test');
-    const onServer = await apiGet(server.url, `/findings/${findingId}`, token);
+    const token = await apiSignIn(server.url, 'inspector@demo.test');
+    const onServer = await apiCall(server.url, 'GET', `/findings/${findingId}`, token);
     expect(onServer.status).toBe(200);
     expect(onServer.body.assigneeId).toEqual(expect.any(String)); // the assignment travelled through the push
 
@@ -222,15 +212,13 @@ describe('the fix loop across two phones with no signal in between', () => {
 
   it('the fixer cannot verify their own fix, through the push either', async (context) => {
     if (!serverHasFixLoop) context.skip();
-    const token = await apiToken(server.url, 'foreman@demo.test');
-    const push = await fetch(`${server.url}/api/sync/push`, {
-      method: 'POST',
-      headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
-      body: JSON.stringify({ clientId: crypto.randomUUID(), mutations: [{ id: 1, entity: 'finding', entityId: findingId, action: 'state', baseVersion: 0, payload: { to: 'verified', note: '' } }] }),
+    const token = await apiSignIn(server.url, 'foreman@demo.test');
+    const push = await apiCall(server.url, 'POST', '/sync/push', token, {
+      clientId: crypto.randomUUID(),
+      mutations: [{ id: 1, entity: 'finding', entityId: findingId, action: 'state', baseVersion: 0, payload: { to: 'verified', note: '' } }],
     });
     expect(push.status).toBe(200);
-    const answer = (await push.json()) as { results: { outcome: string }[] };
-    expect(answer.results[0]?.outcome).toBe('rejected');
+    expect((push.body as { results: { outcome: string }[] }).results[0]?.outcome).toBe('rejected');
   });
 
   it('the inspector syncs, sees it to verify, and verifies; the server’s history shows open → fixed → verified with the photo', async (context) => {
@@ -255,13 +243,13 @@ describe('the fix loop across two phones with no signal in between', () => {
     await setOffline(inspector, inspectorPhone.context, false);
     await syncNow(inspector, server.url);
 
-    const token = await apiToken(server.url, 'inspector@demo.test');
-    const history = await apiGet(server.url, `/findings/${findingId}/history`, token);
+    const token = await apiSignIn(server.url, 'inspector@demo.test');
+    const history = await apiCall(server.url, 'GET', `/findings/${findingId}/history`, token);
     expect(history.status).toBe(200);
     const moves = (history.body.items as { kind: string; to: string | null; photoIds: string[]; control: string | null }[]).filter((i) => i.kind === 'state');
     expect(moves.map((m) => m.to)).toEqual(['fixed', 'verified']);
     expect(moves[0]).toMatchObject({ control: 'remove', photoIds: [expect.any(String)] });
-    const photo = await apiGet(server.url, `/photos/${moves[0]!.photoIds[0]}`, token);
+    const photo = await apiCall(server.url, 'GET', `/photos/${moves[0]!.photoIds[0]}`, token);
     expect(photo.status).toBe(200);
   });
 

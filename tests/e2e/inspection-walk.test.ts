@@ -4,6 +4,7 @@ import sharp from 'sharp';
 import { processPhoto } from '../../server/src/photos/photo-image.js';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiSignIn } from '../support/api.js';
 import { artifactPath, launchPhone } from '../support/browser.js';
 import { choose, onScreen, readTable, saveFinding, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
@@ -102,15 +103,13 @@ async function expectWalkOnServer(server: RunningServer, inspectionId: string, s
     expect(phonePhotos).toHaveLength(3);
     const stored = (await pool.query('select id, owner_type, owner_id, content_hash from photos where id = any($1::uuid[])', [phonePhotos.map((p) => p.id)])).rows;
     expect(stored).toHaveLength(3);
-    const session = await (
-      await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'inspector@demo.test', password: 'plummet-demo' }) })
-    ).json();
+    const token = await apiSignIn(server.url, 'inspector@demo.test');
     for (const photo of phonePhotos) {
       const row = stored.find((r) => r.id === photo.id);
       expect(row).toMatchObject({ owner_type: photo.ownerType, owner_id: photo.ownerId });
       const processed = await processPhoto(Buffer.from(photo.base64, 'base64'), 'image/jpeg', { keepLocation: false });
       expect(row.content_hash).toBe(processed.contentHash);
-      const served = await fetch(`${server.url}/api/photos/${photo.id}`, { headers: { Authorization: `Bearer ${session.accessToken}` } });
+      const served = await fetch(`${server.url}/api/photos/${photo.id}`, { headers: { Authorization: `Bearer ${token}` } });
       expect(served.status).toBe(200);
       expect(createHash('sha256').update(Buffer.from(await served.arrayBuffer())).digest('hex')).toBe(processed.contentHash);
     }

@@ -12,6 +12,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type OwnMailFake, startOwnMailFake } from '../../server/test/mail-fake.js';
 import { flat, parseEml, pdfText } from '../../server/test/report-fixture.js';
+import { apiCall, apiSignIn } from '../support/api.js';
 import { artifactPath, launchBrowser, launchPhone } from '../support/browser.js';
 import { choose, onScreen, saveFinding, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
@@ -37,11 +38,6 @@ async function signInOnScreen(page: Page, url: string, email: string): Promise<v
   await typeInto(page, 'sign-in-email', email);
   await typeInto(page, 'sign-in-password', 'plummet-demo');
   await onScreen(page, 'sign-in-submit').click();
-}
-
-async function apiToken(url: string, email: string): Promise<string> {
-  const res = await fetch(`${url}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: 'plummet-demo' }) });
-  return ((await res.json()) as { accessToken: string }).accessToken;
 }
 
 describe('the signed report reaches the manager once the phone is back online', () => {
@@ -167,12 +163,12 @@ describe('the signed report reaches the manager once the phone is back online', 
   it('shows the admin an e-mail that kept failing, at a desk and on a phone, and sends it again', async () => {
     expect(inspectionId).not.toBe('');
     await mail.stop();
-    const manager = await apiToken(server.url, 'manager@demo.test');
-    const resend = await fetch(`${server.url}/api/inspections/${inspectionId}/report/send`, { method: 'POST', headers: { Authorization: `Bearer ${manager}` } });
+    const manager = await apiSignIn(server.url, 'manager@demo.test');
+    const resend = await apiCall(server.url, 'POST', `/inspections/${inspectionId}/report/send`, manager);
     expect(resend.status).toBe(202);
-    const admin = await apiToken(server.url, 'admin@demo.test');
+    const admin = await apiSignIn(server.url, 'admin@demo.test');
     await expect
-      .poll(async () => ((await (await fetch(`${server.url}/api/mail-jobs/failed`, { headers: { Authorization: `Bearer ${admin}` } })).json()) as { items: unknown[] }).items.length, {
+      .poll(async () => ((await apiCall(server.url, 'GET', '/mail-jobs/failed', admin)).body as { items: unknown[] }).items.length, {
         timeout: 30_000,
         interval: 500,
       })

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { apiCall, apiSignIn } from '../support/api.js';
 import { artifactPath, launchPhone } from '../support/browser.js';
 import { choose, onScreen, readTable, typeInto } from '../support/phone-page.js';
 import { type RunningServer, startBuiltServer } from '../support/server.js';
@@ -205,18 +206,12 @@ describe('two phones edit the same finding offline', () => {
   });
   it('names a writer who is not you, and says what a conflict is on when it is an inspection', async () => {
     const b = pages[1]!;
-    const call = async (token: string | undefined, method: string, path: string, body?: unknown) => {
-      const res = await fetch(`${server.url}/api${path}`, {
-        method,
-        headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
-        body: body === undefined ? undefined : JSON.stringify(body),
-      });
-      const answer = await res.json();
-      expect(res.status, JSON.stringify(answer)).toBeLessThan(300);
-      return answer;
+    const call = async (token: string, method: string, path: string, body?: unknown) => {
+      const answer = await apiCall(server.url, method, path, token, body);
+      expect(answer.status, JSON.stringify(answer.body)).toBeLessThan(300);
+      return answer.body;
     };
-    const tokenOf = async (email: string) => (await call(undefined, 'POST', '/auth/sign-in', { email, password: 'plummet-demo' })).accessToken as string;
-    const [inspector, manager] = [await tokenOf('inspector@demo.test'), await tokenOf('manager@demo.test')];
+    const [inspector, manager] = [await apiSignIn(server.url, 'inspector@demo.test'), await apiSignIn(server.url, 'manager@demo.test')];
     const qlB = (await readTable<{ id: string; reference: string }>(b, 'scaffolds')).find((scaffold) => scaffold.reference === 'QL-B')!;
 
     // Offline, the phone closes QL-B; meanwhile the manager, who had not seen that, clears it from the office.
