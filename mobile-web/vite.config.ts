@@ -89,7 +89,7 @@ export default defineConfig({
     VitePWA({
       strategies: 'generateSW',
       registerType: 'prompt',
-      // src/app/ReloadPrompt.tsx registers the worker with useRegisterSW; inject nothing else.
+      // src/app/service-worker.ts registers the worker, once per page; inject nothing else.
       injectRegister: null,
       // public/ files are precached by globPatterns below; listing them again would duplicate entries.
       includeManifestIcons: false,
