@@ -84,6 +84,8 @@ export class BatchSyncStore implements FindingStore {
   private altered: { scaffoldId: string; at: Date }[] = [];
   private assignedMails: { findingId: string; assigneeId: string }[] = [];
   private undo: (() => void)[] = [];
+  /** The compared columns of every finding written so far, as the writes returned them. */
+  private readonly stored = new Map<string, CheckedFinding>();
 
   constructor(
     /** Reads of scaffolds, inspections and catalogue items go here (and are kept for the batch). */
@@ -281,8 +283,12 @@ export class BatchSyncStore implements FindingStore {
 
   /** Writes a part; call inside a savepoint, parts in the order taken. Throws BatchFallback when the database would not take it as computed. */
   async write(part: BatchPart, tx: DbExecutor, repo: SyncBatchRepository, audit: AuditService): Promise<void> {
-    if ((await repo.insertFindings(part.insert, tx)) !== part.insert.length) throw new BatchFallback('a finding id was taken meanwhile');
-    if ((await repo.updateFindings(part.update, tx)) !== part.update.length) throw new BatchFallback('a finding changed meanwhile');
+    const inserted = await repo.insertFindings(part.insert, tx);
+    if (inserted.length !== part.insert.length) throw new BatchFallback('a finding id was taken meanwhile');
+    const updated = await repo.updateFindings(part.update, tx);
+    if (updated.length !== part.update.length) throw new BatchFallback('a finding changed meanwhile');
+    // As stored; a finding written again by a later part is checked as that part left it.
+    for (const row of [...inserted, ...updated]) this.stored.set(row.id, row);
     if ((await repo.insertFixes(part.fixes, tx)) !== part.fixes.length) throw new BatchFallback('a fix record id is taken');
     if ((await repo.insertVerifications(part.verifications, tx)) !== part.verifications.length) throw new BatchFallback('a verification record id is taken');
     await repo.insertConflicts(part.conflicts, tx);
@@ -317,12 +323,14 @@ export class BatchSyncStore implements FindingStore {
     return { found, missing };
   }
 
-  /** True when every finding written reads back as it was computed (so every audit row and the answer tell the truth). */
-  matchesStored(stored: CheckedFinding[]): boolean {
-    const byId = new Map(stored.map((r) => [r.id, r]));
+  /**
+   * True when every finding written was stored as it was computed (so every audit row and the
+   * answer tell the truth), by what its last write returned. Call after flush().
+   */
+  matchesStored(): boolean {
     return this.written().every((id) => {
       const mine = this.rows.get(id)!.finding;
-      const theirs = byId.get(id);
+      const theirs = this.stored.get(id);
       if (!theirs) return false;
       if (mine.createdAt.getTime() !== theirs.createdAt.getTime() || mine.updatedAt.getTime() !== theirs.updatedAt.getTime()) return false;
       if ((mine.dueAt?.getTime() ?? null) !== (theirs.dueAt?.getTime() ?? null)) return false;

@@ -60,12 +60,25 @@ export const CHECKED = [
   'exposure', 'likelihood', 'severity', 'riskScore', 'riskBand', 'state', 'assigneeId', 'notes', 'madeSafeNote', 'createdBy', 'version',
 ] as const;
 
-/** What the batch's read-back check reads: the checked columns and the times, no JSON to parse. */
+/** What the batch's writes return to be checked: the checked columns and the times, no JSON to parse. */
 const CHECK_COLUMNS = ['id', ...CHECKED, 'createdAt', 'updatedAt', 'dueAt'] as const;
 
 export type CheckedFinding = Pick<FindingRow, (typeof CHECK_COLUMNS)[number]>;
 
-const checkSelection = Object.fromEntries(CHECK_COLUMNS.map((c) => [c, findings[c]])) as { [K in (typeof CHECK_COLUMNS)[number]]: (typeof findings)[K] };
+/** The checked columns as a write's RETURNING list, of the findings row aliased `f`. */
+const RETURNING_CHECKED = sql.raw(CHECK_COLUMNS.map((c) => `f.${findings[c].name}`).join(', '));
+
+/** Rows a write returned (RETURNING_CHECKED) as a select reads them: each value through its column's mapping. */
+function asChecked(rows: Record<string, unknown>[]): CheckedFinding[] {
+  return rows.map((raw) => {
+    const out: Record<string, unknown> = {};
+    for (const c of CHECK_COLUMNS) {
+      const value = raw[findings[c].name];
+      out[c] = value === null || value === undefined ? null : findings[c].mapFromDriverValue(value);
+    }
+    return out as CheckedFinding;
+  });
+}
 
 /** The multi-row reads and writes of a push applied as one batch (BatchSyncStore). */
 @Injectable()
@@ -88,35 +101,32 @@ export class SyncBatchRepository {
       .for('update', { of: findings });
   }
 
-  /** The compared columns of the findings just written, as they read back. */
-  async readChecked(ids: string[], tx: DbExecutor): Promise<CheckedFinding[]> {
-    if (!ids.length) return [];
-    return tx.select(checkSelection).from(findings).where(idIn(ids));
+  /**
+   * Inserts new findings; returns the compared columns of those inserted, as stored (fewer rows when
+   * an id appeared meanwhile). The rows travel as one JSON parameter (json_populate_recordset): far
+   * cheaper to send and plan than thirty thousand bind parameters.
+   */
+  async insertFindings(rows: FindingRow[], tx: DbExecutor): Promise<CheckedFinding[]> {
+    if (!rows.length) return [];
+    const cols = sql.raw(INSERTED.map((c) => findings[c].name).join(', '));
+    const result = await tx.execute<Record<string, unknown>>(sql`
+      insert into findings as f (${cols}) select ${cols} from json_populate_recordset(null::findings, ${asJson(rows, INSERTED)}::json)
+      on conflict (id) do nothing returning ${RETURNING_CHECKED}`);
+    return asChecked(result.rows);
   }
 
   /**
-   * Inserts new findings; returns how many were inserted (fewer when an id appeared meanwhile). The
-   * rows travel as one JSON parameter (json_populate_recordset): far cheaper to send and plan than
-   * thirty thousand bind parameters.
+   * Writes the new state of existing (locked) findings, bumping version stamp and change-feed stamp;
+   * returns the compared columns of those written, as stored.
    */
-  async insertFindings(rows: FindingRow[], tx: DbExecutor): Promise<number> {
-    if (!rows.length) return 0;
-    const cols = sql.raw(INSERTED.map((c) => findings[c].name).join(', '));
-    const result = await tx.execute(sql`
-      insert into findings (${cols}) select ${cols} from json_populate_recordset(null::findings, ${asJson(rows, INSERTED)}::json)
-      on conflict (id) do nothing returning id`);
-    return result.rows.length;
-  }
-
-  /** Writes the new state of existing (locked) findings, bumping version stamp and change-feed stamp; returns how many. */
-  async updateFindings(rows: FindingRow[], tx: DbExecutor): Promise<number> {
-    if (!rows.length) return 0;
+  async updateFindings(rows: FindingRow[], tx: DbExecutor): Promise<CheckedFinding[]> {
+    if (!rows.length) return [];
     const set = sql.raw(UPDATABLE.map((c) => `${findings[c].name} = r.${findings[c].name}`).join(', '));
-    const result = await tx.execute(sql`
+    const result = await tx.execute<Record<string, unknown>>(sql`
       update findings f set ${set}, updated_at = now(), sync_xid = pg_current_xact_id(), sync_seq = nextval('sync_change_seq')
       from json_populate_recordset(null::findings, ${asJson(rows, ['id', ...UPDATABLE])}::json) r
-      where f.id = r.id returning f.id`);
-    return result.rows.length;
+      where f.id = r.id returning ${RETURNING_CHECKED}`);
+    return asChecked(result.rows);
   }
 
   /** An alteration recorded in the batch: the scaffold is marked altered and its inspection falls due (before use). */

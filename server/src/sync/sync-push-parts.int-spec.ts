@@ -74,4 +74,27 @@ describe('a long batch, written in parts as it is computed', () => {
     const log = await api.t.drizzle.execute<{ n: number }>(sql`select count(*)::int as n from sync_mutations where client_id = ${clientId}`);
     expect(log.rows[0]!.n).toBe(521);
   });
+
+  it('goes one by one, and answers and audits what was stored, when PostgreSQL stores a finding otherwise than computed', async () => {
+    // A trigger stands for whatever might change a row on its way in (a rule added in SQL later).
+    await api.t.drizzle.execute(sql.raw(`
+      create function test_stored_otherwise() returns trigger language plpgsql as $$
+      begin new.notes := new.notes || ' (as stored)'; return new; end $$;
+      create trigger test_stored_otherwise before insert on findings for each row
+        when (new.notes like 'Stored otherwise%') execute function test_stored_otherwise()`));
+    try {
+      const creates = [create('Stored as sent'), create('Stored otherwise'), create('Also as sent')];
+      const res = await push(randomUUID(), [...creates, update(creates[0]!.entityId, 1, { notes: 'Edited in the same batch' })]);
+      expect(res.status).toBe(200);
+      expect(res.body.results.map((r: { outcome: string }) => r.outcome)).toEqual(['applied', 'applied', 'applied', 'applied']);
+      const notesOf = (id: string) => res.body.records.find((r: { id: string }) => r.id === id)?.notes;
+      expect(notesOf(creates[1]!.entityId)).toBe('Stored otherwise (as stored)');
+      expect(notesOf(creates[0]!.entityId)).toBe('Edited in the same batch');
+      expect(notesOf(creates[2]!.entityId)).toBe('Also as sent');
+      const audited = await api.t.drizzle.execute<{ after: { notes: string } }>(sql`select after from audit_events where entity_id = ${creates[1]!.entityId}`);
+      expect(audited.rows.map((r) => r.after.notes)).toEqual(['Stored otherwise (as stored)']);
+    } finally {
+      await api.t.drizzle.execute(sql.raw('drop trigger test_stored_otherwise on findings; drop function test_stored_otherwise()'));
+    }
+  });
 });
