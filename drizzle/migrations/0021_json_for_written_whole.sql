@@ -1,9 +1,10 @@
 -- Values the server writes and reads only whole (a finding's estimate, every record's field stamps, an
 -- audit event's before and after records) are stored as json, not jsonb: PostgreSQL keeps json as the
--- text it was given, after checking it is JSON, instead of building jsonb's binary tree from it. A push
--- of a thousand findings spent most of its database time building those trees; reading the text back
--- is cheaper too. Nothing queries inside these columns except by ->> (which json has as well), and
--- nothing compares them in SQL but the estimate-row guard below, which compares their text.
+-- text it was given, after checking it is JSON, instead of building jsonb's binary tree from it.
+-- Measured on the real tables, a push's thousand findings insert in about three quarters of the time
+-- and their audit events in under 60%; reading the text back is no dearer. Nothing queries inside
+-- these columns except by ->> (which json has as well), and nothing compares them in SQL but the
+-- estimate-row guard below, which compares their text.
 DROP TRIGGER "findings_estimate_row_guard" ON "findings";
 --> statement-breakpoint
 ALTER TABLE "findings"

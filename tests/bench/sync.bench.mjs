@@ -1,9 +1,10 @@
 #!/usr/bin/env node
 // `npm run bench:sync`: sync on loopback with the real database. Times a push of 1,000 finding
 // mutations (one transaction: estimates recomputed, audit and outcome rows written; the median of
-// three rounds) and a pull of 10,000 changes (pages of 1,000, findings as rows and unpacked, as the phone pulls; then as records,
-// as older phones pull, for comparison), against baselines measured in the same run on the same
-// database: a raw batched INSERT of the same 1,000 rows and a raw SELECT of the same 10,000 rows.
+// three rounds) and a pull of 10,000 changes (pages of 1,000, findings as rows and unpacked, as the
+// phone pulls; then as records, as older phones pull, for comparison), against baselines measured
+// in the same run on the same database: a raw batched INSERT of the same 1,000 rows and a raw
+// SELECT of the same 10,000 rows.
 // A throwaway PostgreSQL in a temp dir; leaves nothing behind. Nothing about speed is asserted.
 import { createHmac, randomUUID } from 'node:crypto';
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
