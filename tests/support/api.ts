@@ -3,9 +3,7 @@
  * phones: to sign a demo user in, to set something up as another user, or to check what reached the
  * server.
  */
-
-/** Every demo user's password (the demo seed). */
-export const DEMO_PASSWORD = 'plummet-demo';
+import { DEMO_PASSWORD } from '../../server/src/seed/demo-data.js';
 
 export interface ApiAnswer {
   status: number;
@@ -24,8 +22,9 @@ export async function apiCall(url: string, method: string, path: string, token?:
     },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
-  const isJson = (res.headers.get('content-type') ?? '').includes('json');
-  return { status: res.status, body: isJson ? await res.json() : (await res.arrayBuffer(), undefined) };
+  if ((res.headers.get('content-type') ?? '').includes('json')) return { status: res.status, body: await res.json() };
+  await res.arrayBuffer(); // read to the end, so the connection is free for the next call
+  return { status: res.status, body: undefined };
 }
 
 /** A demo user's access token, signed in through the API; throws, naming the answer, when refused. */
